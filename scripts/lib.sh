@@ -1,0 +1,37 @@
+# Shared helpers for the project's scripts. Sourced, not run.
+# Everything the scripts start listens on 127.0.0.1 only.
+set -euo pipefail
+
+ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+export ROOT
+export ISOBATH_PG_PORT="${ISOBATH_PG_PORT:-54329}"
+
+log() { printf '\033[36m[isobath]\033[0m %s\n' "$*" >&2; }
+
+as_root() {
+  if [ "$(id -u)" = 0 ]; then "$@"; elif command -v sudo >/dev/null 2>&1; then sudo "$@"; else
+    log "need root to run: $*"; return 1; fi
+}
+
+apt_install() {
+  log "installing from Debian's packages: $*"
+  as_root env DEBIAN_FRONTEND=noninteractive apt-get update -qq
+  as_root env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq "$@" >/dev/null
+}
+
+# Install node_modules when missing or older than the lockfile.
+ensure_deps() {
+  if [ ! -d "$ROOT/node_modules" ] || [ "$ROOT/package-lock.json" -nt "$ROOT/node_modules/.package-lock.json" ]; then
+    log "installing dependencies (npm ci)"
+    (cd "$ROOT" && npm ci --no-audit --no-fund)
+  fi
+}
+
+# Build the client when dist/ is missing or older than any client source.
+ensure_client_build() {
+  local stamp="$ROOT/dist/index.html"
+  if [ ! -f "$stamp" ] || [ -n "$(cd "$ROOT" && find src shared index.html vite.config.ts tailwind.config.ts public -newer "$stamp" -print -quit 2>/dev/null)" ]; then
+    log "building the client"
+    (cd "$ROOT" && npx vite build --logLevel warn)
+  fi
+}

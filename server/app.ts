@@ -1,0 +1,109 @@
+import express, { type Express } from 'express';
+import session from 'express-session';
+import connectPgSimple from 'connect-pg-simple';
+import helmet from 'helmet';
+import pg from 'pg';
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import { env, ROOT_DIR } from './config/env';
+import { initModels } from './db/models';
+import { configurePassport } from './auth/passport';
+import { requireSignIn } from './auth/authorize';
+import { sameOriginOnly } from './middleware/same-origin';
+import { errorHandler, notFoundApi } from './middleware/error-handler';
+import { authRouter } from './modules/auth/router';
+import { healthRouter } from './modules/health/router';
+import { materialsRouter, propertySetsRouter } from './modules/property-sets/router';
+
+export interface AppHandle {
+  app: Express;
+  /** Closes what the app opened itself (the session store's pool). */
+  close(): Promise<void>;
+}
+
+export function createApp(): AppHandle {
+  const config = env();
+  initModels();
+  const passport = configurePassport();
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.set('query parser', 'simple');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'"],
+          'connect-src': ["'self'"],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'upgrade-insecure-requests': config.cookieSecure ? [] : null,
+        },
+      },
+      hsts: config.cookieSecure,
+    }),
+  );
+
+  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 10, connectionTimeoutMillis: 3_000 });
+  sessionPool.on('error', () => {
+    /* idle client lost (database restarted); the pool reconnects on next use */
+  });
+  const PgStore = connectPgSimple(session);
+  const store = new PgStore({
+    pool: sessionPool,
+    tableName: 'session',
+    createTableIfMissing: false,
+    pruneSessionInterval: config.NODE_ENV === 'test' ? false : 15 * 60,
+  });
+
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb', strict: true }));
+  api.use(sameOriginOnly);
+  api.use(
+    session({
+      name: 'isobath.sid',
+      secret: config.SESSION_SECRET,
+      store,
+      resave: false,
+      saveUninitialized: false,
+      rolling: false,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: config.cookieSecure, maxAge: 12 * 3600_000 },
+    }),
+  );
+  api.use(passport.session());
+
+  // Public: sign-in and health. Everything after requireSignIn needs a session.
+  api.use('/auth', authRouter());
+  api.use('/health', healthRouter());
+  api.use(requireSignIn);
+  api.use('/property-sets', propertySetsRouter());
+  api.use('/materials', materialsRouter());
+  api.use(notFoundApi);
+
+  app.use('/api', api);
+
+  const dist = path.join(ROOT_DIR, 'dist');
+  if (existsSync(path.join(dist, 'index.html'))) {
+    app.use(express.static(dist, { index: false, maxAge: '1h', immutable: false }));
+    app.get('/{*splat}', (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(path.join(dist, 'index.html'));
+    });
+  }
+  app.use(errorHandler);
+
+  return {
+    app,
+    close: async () => {
+      store.close();
+      await sessionPool.end().catch(() => undefined);
+    },
+  };
+}

@@ -1,0 +1,29 @@
+import { setupDatabase } from './setup';
+import { migrate } from './migrate';
+import { closeDatabase } from './sequelize';
+import { initModels } from './models';
+
+const command = process.argv[2] ?? 'setup';
+
+async function main() {
+  initModels();
+  if (command === 'migrate') {
+    const done = await migrate();
+    console.log(`[isobath] migrations applied: ${done.length ? done.join(', ') : 'none pending'}`);
+  } else if (command === 'setup' || command === 'seed') {
+    const r = await setupDatabase();
+    console.log(
+      `[isobath] database ready: ${r.migrations.length} migration(s) applied, ${r.propertySets} property set(s) and ${r.demoUsers} demo account(s) seeded`,
+    );
+  } else {
+    console.error('usage: tsx server/db/cli.ts setup|migrate|seed');
+    process.exitCode = 2;
+  }
+}
+
+main()
+  .catch((err) => {
+    console.error('[isobath] database setup failed:', err instanceof Error ? err.message : err);
+    process.exitCode = 1;
+  })
+  .finally(() => closeDatabase());

@@ -1,0 +1,23 @@
+import { Umzug, SequelizeStorage } from 'umzug';
+import type { QueryInterface } from 'sequelize';
+import { sequelize } from './sequelize';
+import * as m0001 from './migrations/0001-initial';
+
+// Listed explicitly: vitest cannot glob-load .ts migrations. Add new ones at the end.
+const MIGRATIONS = [{ name: '0001-initial', ...m0001 }];
+
+export function migrator() {
+  const db = sequelize();
+  return new Umzug<QueryInterface>({
+    migrations: MIGRATIONS.map((m) => ({ name: m.name, up: m.up, down: m.down })),
+    context: db.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize: db, tableName: 'schema_migrations' }),
+    logger: undefined,
+  });
+}
+
+/** Apply pending migrations; returns the names applied. */
+export async function migrate(): Promise<string[]> {
+  const done = await migrator().up();
+  return done.map((m) => m.name);
+}

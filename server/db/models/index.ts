@@ -1,0 +1,217 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type ForeignKey,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type NonAttribute,
+} from 'sequelize';
+import { sequelize } from '../sequelize';
+import type {
+  CyclesPoint,
+  Family,
+  HoursPoint,
+  PropertySetStatus,
+  Quantity,
+  ReferenceKind,
+  TemperaturePoint,
+  ValueDetail,
+} from '../../../shared/schemas/catalogue';
+import type { Role } from '../../../shared/schemas/auth';
+
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<number>;
+  declare email: string;
+  declare name: string;
+  declare role: Role;
+  declare passwordHash: string | null;
+  declare active: CreationOptional<boolean>;
+  declare lastLoginAt: Date | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export class Material extends Model<InferAttributes<Material>, InferCreationAttributes<Material>> {
+  declare id: CreationOptional<number>;
+  declare name: string;
+  declare family: Family;
+  declare transparent: boolean;
+  declare description: string | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export class Reference extends Model<InferAttributes<Reference>, InferCreationAttributes<Reference>> {
+  declare id: CreationOptional<number>;
+  declare kind: ReferenceKind;
+  declare title: string;
+  declare authors: string | null;
+  declare year: number | null;
+  declare identifier: string | null;
+  declare location: string | null;
+  declare note: string | null;
+  declare createdById: ForeignKey<User['id']> | null;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+}
+
+export class PropertySet extends Model<InferAttributes<PropertySet>, InferCreationAttributes<PropertySet>> {
+  declare id: CreationOptional<number>;
+  declare materialId: ForeignKey<Material['id']>;
+  declare referenceId: ForeignKey<Reference['id']> | null;
+  declare condition: string;
+  declare status: CreationOptional<PropertySetStatus>;
+  declare version: CreationOptional<number>;
+  declare lineageId: number | null;
+  declare supersedesId: number | null;
+  declare supersededById: number | null;
+  declare density: number;
+  declare youngsModulus: number;
+  declare poissonsRatio: number;
+  declare tensileStrength: number;
+  declare tensileYield: number | null;
+  declare compressiveStrength: number;
+  declare compressiveYield: number | null;
+  declare shearStrength: number;
+  declare elongation: number | null;
+  declare luminousTransmittance: number | null;
+  declare serviceTempMin: number;
+  declare serviceTempMax: number;
+  declare valueDetails: CreationOptional<Partial<Record<Quantity, ValueDetail>>>;
+  declare temperatureFactors: CreationOptional<TemperaturePoint[]>;
+  declare sustainedLoadFactors: CreationOptional<HoursPoint[]>;
+  declare cyclicFactors: CreationOptional<CyclesPoint[]>;
+  declare draftedById: ForeignKey<User['id']> | null;
+  declare approvedById: ForeignKey<User['id']> | null;
+  declare publishedAt: Date | null;
+  declare retiredAt: Date | null;
+  declare lockVersion: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare material?: NonAttribute<Material>;
+  declare reference?: NonAttribute<Reference | null>;
+  declare draftedBy?: NonAttribute<User | null>;
+  declare approvedBy?: NonAttribute<User | null>;
+}
+
+export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreationAttributes<AuditEntry>> {
+  declare id: CreationOptional<number>;
+  declare actorId: number | null;
+  declare action: string;
+  declare entityType: string;
+  declare entityId: string | null;
+  declare before: unknown;
+  declare after: unknown;
+  declare createdAt: CreationOptional<Date>;
+}
+
+const timestamps = {
+  createdAt: { type: DataTypes.DATE, allowNull: false },
+  updatedAt: { type: DataTypes.DATE, allowNull: false },
+};
+const real = (allowNull = false) => ({ type: DataTypes.DOUBLE, allowNull });
+
+let initialised = false;
+
+/** Bind the models to this process's Sequelize instance (idempotent). */
+export function initModels(): void {
+  if (initialised) return;
+  const db = sequelize();
+  User.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      email: { type: DataTypes.TEXT, allowNull: false, unique: true },
+      name: { type: DataTypes.TEXT, allowNull: false },
+      role: { type: DataTypes.TEXT, allowNull: false },
+      passwordHash: { type: DataTypes.TEXT },
+      active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
+      lastLoginAt: { type: DataTypes.DATE },
+      ...timestamps,
+    },
+    { sequelize: db, tableName: 'users' },
+  );
+  Material.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      name: { type: DataTypes.TEXT, allowNull: false, unique: true },
+      family: { type: DataTypes.TEXT, allowNull: false },
+      transparent: { type: DataTypes.BOOLEAN, allowNull: false },
+      description: { type: DataTypes.TEXT },
+      ...timestamps,
+    },
+    { sequelize: db, tableName: 'materials' },
+  );
+  Reference.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      kind: { type: DataTypes.TEXT, allowNull: false },
+      title: { type: DataTypes.TEXT, allowNull: false },
+      authors: { type: DataTypes.TEXT },
+      year: { type: DataTypes.INTEGER },
+      identifier: { type: DataTypes.TEXT },
+      location: { type: DataTypes.TEXT },
+      note: { type: DataTypes.TEXT },
+      createdById: { type: DataTypes.INTEGER },
+      ...timestamps,
+    },
+    { sequelize: db, tableName: 'data_references' },
+  );
+  PropertySet.init(
+    {
+      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      materialId: { type: DataTypes.INTEGER, allowNull: false },
+      referenceId: { type: DataTypes.INTEGER },
+      condition: { type: DataTypes.TEXT, allowNull: false },
+      status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
+      version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+      lineageId: { type: DataTypes.INTEGER },
+      supersedesId: { type: DataTypes.INTEGER },
+      supersededById: { type: DataTypes.INTEGER },
+      density: real(),
+      youngsModulus: real(),
+      poissonsRatio: real(),
+      tensileStrength: real(),
+      tensileYield: real(true),
+      compressiveStrength: real(),
+      compressiveYield: real(true),
+      shearStrength: real(),
+      elongation: real(true),
+      luminousTransmittance: real(true),
+      serviceTempMin: { type: DataTypes.DOUBLE, allowNull: false, field: 'service_temp_min' },
+      serviceTempMax: { type: DataTypes.DOUBLE, allowNull: false, field: 'service_temp_max' },
+      valueDetails: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+      temperatureFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      sustainedLoadFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      cyclicFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      draftedById: { type: DataTypes.INTEGER },
+      approvedById: { type: DataTypes.INTEGER },
+      publishedAt: { type: DataTypes.DATE },
+      retiredAt: { type: DataTypes.DATE },
+      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      ...timestamps,
+    },
+    { sequelize: db, tableName: 'property_sets', version: 'lockVersion' },
+  );
+  AuditEntry.init(
+    {
+      id: { type: DataTypes.BIGINT, autoIncrement: true, primaryKey: true },
+      actorId: { type: DataTypes.INTEGER },
+      action: { type: DataTypes.TEXT, allowNull: false },
+      entityType: { type: DataTypes.TEXT, allowNull: false },
+      entityId: { type: DataTypes.TEXT },
+      before: { type: DataTypes.JSONB },
+      after: { type: DataTypes.JSONB },
+      createdAt: { type: DataTypes.DATE, allowNull: false },
+    },
+    { sequelize: db, tableName: 'audit_log', updatedAt: false },
+  );
+
+  PropertySet.belongsTo(Material, { as: 'material', foreignKey: 'materialId' });
+  Material.hasMany(PropertySet, { as: 'propertySets', foreignKey: 'materialId' });
+  PropertySet.belongsTo(Reference, { as: 'reference', foreignKey: 'referenceId' });
+  PropertySet.belongsTo(User, { as: 'draftedBy', foreignKey: 'draftedById' });
+  PropertySet.belongsTo(User, { as: 'approvedBy', foreignKey: 'approvedById' });
+  initialised = true;
+}

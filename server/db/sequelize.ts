@@ -1,0 +1,25 @@
+import { Sequelize } from 'sequelize';
+import { env } from '../config/env';
+
+let instance: Sequelize | undefined;
+
+/** One Sequelize instance per process; models are bound to it in models/index.ts. */
+export function sequelize(): Sequelize {
+  if (!instance) {
+    instance = new Sequelize(env().DATABASE_URL, {
+      dialect: 'postgres',
+      logging: false,
+      pool: { max: 10, min: 0, idle: 10_000, acquire: 5_000 },
+      dialectOptions: { connectionTimeoutMillis: 3_000, statement_timeout: 15_000 },
+      define: { underscored: true },
+    });
+  }
+  return instance;
+}
+
+export async function closeDatabase(): Promise<void> {
+  if (instance) {
+    await instance.close();
+    instance = undefined;
+  }
+}

@@ -1,0 +1,37 @@
+import type { ZodError } from 'zod';
+
+export type FieldErrors = Record<string, string>;
+
+/** An error the API reports to the caller as `{ error: { code, message, fields } }`. */
+export class AppError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields?: FieldErrors,
+  ) {
+    super(message);
+  }
+}
+
+export const badRequest = (message: string, fields?: FieldErrors, code = 'invalid_input') =>
+  new AppError(400, code, message, fields);
+export const unauthorized = (message = 'Sign in to continue.') => new AppError(401, 'unauthenticated', message);
+export const forbidden = (message = 'Your role does not allow this.') => new AppError(403, 'forbidden', message);
+export const notFound = (what = 'The requested item') => new AppError(404, 'not_found', `${what} was not found.`);
+export const conflict = (message: string, code = 'conflict') => new AppError(409, code, message);
+export const unavailable = (message = 'The database is unavailable. Try again in a moment.') =>
+  new AppError(503, 'unavailable', message);
+
+/** Field path → first message, e.g. { "loadCase.component.thickness": "must be greater than zero" }. */
+export function fieldErrorsFromZod(error: ZodError): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length ? issue.path.map(String).join('.') : '_';
+    if (!(key in fields)) fields[key] = issue.message;
+    if (issue.code === 'unrecognized_keys') {
+      for (const k of issue.keys) fields[[...issue.path.map(String), k].join('.')] = 'is not a recognised field';
+    }
+  }
+  return fields;
+}

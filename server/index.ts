@@ -1,0 +1,33 @@
+import { createServer } from 'node:http';
+import { env } from './config/env';
+import { createApp } from './app';
+import { closeDatabase } from './db/sequelize';
+
+const config = env();
+const { app, close } = createApp();
+const server = createServer(app);
+server.keepAliveTimeout = 65_000;
+
+server.listen(config.PORT, config.HOST, () => {
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.PORT;
+  console.log(`[isobath] serving on http://localhost:${port} (${config.NODE_ENV})`);
+});
+
+// Graceful shutdown: stop accepting, let in-flight requests finish, then close pools.
+let stopping = false;
+async function shutdown(signal: string) {
+  if (stopping) return;
+  stopping = true;
+  console.log(`[isobath] ${signal}: finishing in-flight requests`);
+  const force = setTimeout(() => process.exit(1), 10_000);
+  force.unref();
+  server.close(async () => {
+    await close();
+    await closeDatabase();
+    process.exit(0);
+  });
+  server.closeIdleConnections();
+}
+process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('SIGINT', () => void shutdown('SIGINT'));

@@ -1,0 +1,36 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { authorize } from '../../auth/authorize';
+import { can } from '../../../shared/schemas/auth';
+import { propertySetQuerySchema } from '../../../shared/schemas/catalogue';
+import { parse, parseId } from '../../middleware/validate';
+import { getMaterial, getPropertySet, listPropertySets } from './service';
+
+const pageSchema = z.object({
+  limit: z.coerce.number().int().min(1).max(5000).default(1000),
+  offset: z.coerce.number().int().min(0).max(1_000_000).default(0),
+});
+
+const callerOf = (req: Express.Request) => ({ canDraft: can(req.user?.role, 'catalogue:draft') });
+
+export function propertySetsRouter(): Router {
+  const router = Router();
+  router.get('/', authorize('catalogue:read'), async (req, res) => {
+    const { limit, offset, ...rest } = req.query as Record<string, unknown>;
+    const page = parse(pageSchema, { limit, offset }, 'query');
+    const query = parse(propertySetQuerySchema, rest, 'query');
+    res.json(await listPropertySets({ ...query, ...page }, callerOf(req)));
+  });
+  router.get('/:id', authorize('catalogue:read'), async (req, res) => {
+    res.json(await getPropertySet(parseId(req.params.id), callerOf(req)));
+  });
+  return router;
+}
+
+export function materialsRouter(): Router {
+  const router = Router();
+  router.get('/:id', authorize('catalogue:read'), async (req, res) => {
+    res.json(await getMaterial(parseId(req.params.id), callerOf(req)));
+  });
+  return router;
+}

@@ -1,0 +1,149 @@
+import { Op, type WhereOptions, type Includeable } from 'sequelize';
+import { Material, PropertySet, Reference, User } from '../../db/models';
+import type {
+  MaterialDto,
+  PropertySetDto,
+  PropertySetListDto,
+  PropertySetQuery,
+  PropertySetStatus,
+  ReferenceDto,
+} from '../../../shared/schemas/catalogue';
+import { forbidden, notFound } from '../../errors';
+
+/** Statuses a caller may read: drafts and reviews stay on the library desk. */
+export function readableStatuses(canDraft: boolean): PropertySetStatus[] {
+  return canDraft ? ['draft', 'in-review', 'published', 'retired'] : ['published', 'retired'];
+}
+
+export function materialDto(m: Material): MaterialDto {
+  return { id: m.id, name: m.name, family: m.family, transparent: m.transparent, description: m.description };
+}
+
+export function referenceDto(r: Reference): ReferenceDto {
+  return {
+    id: r.id,
+    kind: r.kind,
+    title: r.title,
+    authors: r.authors,
+    year: r.year,
+    identifier: r.identifier,
+    location: r.location,
+    note: r.note,
+  };
+}
+
+const userRef = (u: User | null | undefined) => (u ? { id: u.id, name: u.name } : null);
+
+export function propertySetDto(ps: PropertySet): PropertySetDto {
+  return {
+    id: ps.id,
+    status: ps.status,
+    version: ps.version,
+    condition: ps.condition,
+    material: materialDto(ps.material!),
+    reference: ps.reference ? referenceDto(ps.reference) : null,
+    density: ps.density,
+    youngsModulus: ps.youngsModulus,
+    poissonsRatio: ps.poissonsRatio,
+    tensileStrength: ps.tensileStrength,
+    tensileYield: ps.tensileYield,
+    compressiveStrength: ps.compressiveStrength,
+    compressiveYield: ps.compressiveYield,
+    shearStrength: ps.shearStrength,
+    elongation: ps.elongation,
+    luminousTransmittance: ps.luminousTransmittance,
+    serviceTemperature: { min: ps.serviceTempMin, max: ps.serviceTempMax },
+    valueDetails: ps.valueDetails ?? {},
+    temperatureFactors: ps.temperatureFactors ?? [],
+    sustainedLoadFactors: ps.sustainedLoadFactors ?? [],
+    cyclicFactors: ps.cyclicFactors ?? [],
+    draftedBy: userRef(ps.draftedBy),
+    approvedBy: userRef(ps.approvedBy),
+    publishedAt: ps.publishedAt ? ps.publishedAt.toISOString() : null,
+    updatedAt: ps.updatedAt.toISOString(),
+  };
+}
+
+const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
+
+function include(materialWhere?: WhereOptions<Material>): Includeable[] {
+  return [
+    { model: Material, as: 'material', required: true, ...(materialWhere ? { where: materialWhere } : {}) },
+    { model: Reference, as: 'reference' },
+    { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
+    { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
+  ];
+}
+
+export interface Caller {
+  canDraft: boolean;
+}
+
+export async function listPropertySets(
+  query: PropertySetQuery & { limit?: number; offset?: number },
+  caller: Caller,
+): Promise<PropertySetListDto> {
+  const allowed = readableStatuses(caller.canDraft);
+  const status = query.status ?? 'published';
+  if (!allowed.includes(status)) throw forbidden('Only librarians can list drafts and sets in review.');
+
+  const where: WhereOptions<PropertySet>[] = [{ status }];
+  if (query.materialId !== undefined) where.push({ materialId: query.materialId });
+  // Service temperature must cover the requested range.
+  if (query.tmin !== undefined) where.push({ serviceTempMin: { [Op.lte]: query.tmin } }, { serviceTempMax: { [Op.gte]: query.tmin } });
+  if (query.tmax !== undefined) where.push({ serviceTempMax: { [Op.gte]: query.tmax } }, { serviceTempMin: { [Op.lte]: query.tmax } });
+  if (query.q) {
+    for (const word of query.q.split(/\s+/).filter(Boolean).slice(0, 8)) {
+      const like = { [Op.iLike]: `%${escapeLike(word)}%` };
+      where.push({
+        [Op.or]: [
+          { condition: like },
+          { '$material.name$': like },
+          { '$material.family$': like },
+          { '$reference.title$': like },
+          { '$reference.identifier$': like },
+        ],
+      } as WhereOptions<PropertySet>);
+    }
+  }
+  const materialWhere: WhereOptions<Material> = {};
+  if (query.family) Object.assign(materialWhere, { family: query.family });
+  if (query.transparent !== undefined) Object.assign(materialWhere, { transparent: query.transparent });
+
+  const { rows, count } = await PropertySet.findAndCountAll({
+    where: { [Op.and]: where },
+    include: include(Object.keys(materialWhere).length ? materialWhere : undefined),
+    order: [
+      [{ model: Material, as: 'material' }, 'family', 'ASC'],
+      [{ model: Material, as: 'material' }, 'name', 'ASC'],
+      ['condition', 'ASC'],
+      ['version', 'DESC'],
+    ],
+    limit: query.limit,
+    offset: query.offset,
+    distinct: true,
+  });
+  return { items: rows.map(propertySetDto), total: count };
+}
+
+export async function getPropertySet(id: number, caller: Caller): Promise<PropertySetDto> {
+  const ps = await PropertySet.findByPk(id, { include: include() });
+  if (!ps || !readableStatuses(caller.canDraft).includes(ps.status)) throw notFound('Property set');
+  return propertySetDto(ps);
+}
+
+export interface MaterialDetailDto extends MaterialDto {
+  propertySets: PropertySetDto[];
+}
+
+export async function getMaterial(id: number, caller: Caller): Promise<MaterialDetailDto> {
+  const material = await Material.findByPk(id);
+  if (!material) throw notFound('Material');
+  const sets = await PropertySet.findAll({
+    where: { materialId: id, status: readableStatuses(caller.canDraft) },
+    include: include(),
+    order: [['status', 'ASC'], ['condition', 'ASC'], ['version', 'DESC']],
+  });
+  if (!sets.length && !caller.canDraft) throw notFound('Material');
+  return { ...materialDto(material), propertySets: sets.map(propertySetDto) };
+}

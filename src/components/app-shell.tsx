@@ -1,0 +1,85 @@
+import { NavLink, Outlet, useNavigate } from 'react-router-dom';
+import type { Permission } from '@shared/schemas/auth';
+import { ROLE_LABELS } from '@shared/schemas/auth';
+import { useMe, useSignOut } from '@/features/auth/api/session';
+import { useUnits } from '@/lib/unit-system';
+import { Logo } from './logo';
+
+/** Main sections, each shown only to roles that may use it (the server checks again). */
+export const SECTIONS: { to: string; label: string; permission: Permission }[] = [
+  { to: '/catalogue', label: 'Catalogue', permission: 'catalogue:read' },
+];
+
+function UnitSwitch() {
+  const { system, setSystem } = useUnits();
+  return (
+    <div role="radiogroup" aria-label="Units" className="flex overflow-hidden rounded-plate border border-white/20 text-xs">
+      {(['SI', 'US'] as const).map((s) => (
+        <button
+          key={s}
+          type="button"
+          role="radio"
+          aria-checked={system === s}
+          onClick={() => setSystem(s)}
+          className={`px-2 py-1 font-bold ${system === s ? 'bg-brass text-white' : 'text-white/70 hover:text-white'}`}
+          title={s === 'SI' ? 'SI units (MPa, mm, °C)' : 'US customary units (psi, in, °F)'}
+        >
+          {s}
+        </button>
+      ))}
+    </div>
+  );
+}
+
+export function AppShell() {
+  const { data: me } = useMe();
+  const signOut = useSignOut();
+  const navigate = useNavigate();
+  return (
+    <div className="flex min-h-screen flex-col">
+      <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-white focus:p-2">
+        Skip to content
+      </a>
+      <header className="no-print bg-trench text-white">
+        <div className="mx-auto flex max-w-7xl items-center gap-6 px-4 py-2">
+          <NavLink to="/catalogue" className="flex items-center gap-2 font-bold tracking-wide">
+            <Logo className="h-7 w-7" />
+            Isobath
+          </NavLink>
+          <nav aria-label="Sections" className="flex gap-1">
+            {SECTIONS.filter((s) => me?.permissions.includes(s.permission)).map((s) => (
+              <NavLink
+                key={s.to}
+                to={s.to}
+                className={({ isActive }) => `rounded-plate px-3 py-1.5 text-sm ${isActive ? 'bg-white/15 font-bold' : 'text-white/80 hover:text-white'}`}
+              >
+                {s.label}
+              </NavLink>
+            ))}
+          </nav>
+          <div className="ml-auto flex items-center gap-4">
+            <UnitSwitch />
+            {me ? (
+              <span className="text-sm text-white/80" data-testid="signed-in-as">
+                {me.name} · {ROLE_LABELS[me.role]}
+              </span>
+            ) : null}
+            <button
+              type="button"
+              className="text-sm text-white/80 underline hover:text-white"
+              onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) })}
+            >
+              Sign out
+            </button>
+          </div>
+        </div>
+      </header>
+      <main id="main" className="print-full mx-auto w-full max-w-7xl flex-1 px-4 py-6">
+        <Outlet />
+      </main>
+      <footer className="no-print border-t border-chart-line py-3 text-center text-xs text-ink-faint">
+        Isobath · screening estimates for qualified engineers; defer to the applicable standards and licensed practice.
+      </footer>
+    </div>
+  );
+}

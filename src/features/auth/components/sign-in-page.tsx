@@ -1,0 +1,61 @@
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useNavigate, useSearchParams } from 'react-router-dom';
+import { loginSchema, type LoginInput } from '@shared/schemas/auth';
+import { useSignIn } from '../api/session';
+import { TextField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { ApiError } from '@/lib/api-client';
+import { Logo } from '@/components/logo';
+
+export function SignInPage() {
+  const navigate = useNavigate();
+  const [params] = useSearchParams();
+  const signIn = useSignIn();
+  const form = useForm<LoginInput>({ resolver: zodResolver(loginSchema), defaultValues: { email: '', password: '' } });
+  const next = params.get('next');
+  const safeNext = next && next.startsWith('/') && !next.startsWith('//') ? next : '/catalogue';
+
+  const onSubmit = form.handleSubmit(async (values) => {
+    try {
+      await signIn.mutateAsync(values);
+      navigate(safeNext, { replace: true });
+    } catch (err) {
+      if (err instanceof ApiError) {
+        for (const [field, message] of Object.entries(err.fields)) {
+          if (field === 'email' || field === 'password') form.setError(field, { message });
+        }
+        form.setError('root', { message: err.message });
+      } else {
+        form.setError('root', { message: 'Sign-in failed. Try again.' });
+      }
+    }
+  });
+
+  const { errors, isSubmitting } = form.formState;
+  return (
+    <main className="flex min-h-screen items-center justify-center bg-trench px-4">
+      <div className="w-full max-w-sm rounded-plate bg-chart-raised p-6 shadow-plate">
+        <div className="mb-5 flex items-center gap-3">
+          <Logo className="h-9 w-9" />
+          <div>
+            <h1 className="text-xl font-bold">Isobath</h1>
+            <p className="text-xs text-ink-soft">Windows and hulls for deep water, with their sources</p>
+          </div>
+        </div>
+        <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Sign in">
+          <TextField label="E-mail" type="email" autoComplete="username" autoFocus error={errors.email?.message} {...form.register('email')} />
+          <TextField label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...form.register('password')} />
+          {errors.root ? (
+            <p role="alert" className="text-sm font-bold text-verdict-fail">
+              {errors.root.message}
+            </p>
+          ) : null}
+          <Button type="submit" disabled={isSubmitting}>
+            {isSubmitting ? 'Signing in…' : 'Sign in'}
+          </Button>
+        </form>
+      </div>
+    </main>
+  );
+}

@@ -1,0 +1,167 @@
+import { lazy, Suspense } from 'react';
+import { Link, useParams, useSearchParams } from 'react-router-dom';
+import { FAMILY_LABELS, QUANTITIES, QUANTITY_LABELS, type PropertySetDto, type Quantity } from '@shared/schemas/catalogue';
+import { useMaterial } from '../api/property-sets';
+import { ReferenceCard } from './reference-card';
+import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import { useUnits } from '@/lib/unit-system';
+import { toDisplay, type QuantityKind } from '@/lib/units';
+
+const FactorChart = lazy(() => import('@/components/charts/factor-chart').then((m) => ({ default: m.FactorChart })));
+
+const KIND_OF: Record<Quantity, QuantityKind | null> = {
+  density: 'density',
+  youngsModulus: 'modulus',
+  poissonsRatio: null,
+  tensileStrength: 'stress',
+  tensileYield: 'stress',
+  compressiveStrength: 'stress',
+  compressiveYield: 'stress',
+  shearStrength: 'stress',
+  elongation: 'fraction',
+  luminousTransmittance: 'fraction',
+};
+
+function ValuesTable({ set }: { set: PropertySetDto }) {
+  const { format } = useUnits();
+  const rows = QUANTITIES.filter((q) => set[q] !== null && set[q] !== undefined);
+  return (
+    <table className="w-full text-sm" aria-label="Values">
+      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+        <tr>
+          <th className="py-1 pr-3">Quantity</th>
+          <th className="py-1 pr-3 text-right">Value</th>
+          <th className="py-1 pr-3">Basis</th>
+          <th className="py-1 pr-3">Test method</th>
+          <th className="py-1">Tested at</th>
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map((q) => {
+          const kind = KIND_OF[q];
+          const value = set[q] as number;
+          const detail = set.valueDetails[q];
+          return (
+            <tr key={q} className="border-t border-chart-line/60">
+              <td className="py-1 pr-3">{QUANTITY_LABELS[q]}</td>
+              <td className="py-1 pr-3 text-right font-bold">{kind ? format(kind, value) : value.toFixed(3)}</td>
+              <td className="py-1 pr-3">{detail?.basis ?? '—'}</td>
+              <td className="py-1 pr-3">{detail?.testMethod ?? '—'}</td>
+              <td className="py-1">{detail?.temperature !== undefined ? format('temperature', detail.temperature) : '—'}</td>
+            </tr>
+          );
+        })}
+      </tbody>
+    </table>
+  );
+}
+
+function SetDetail({ set }: { set: PropertySetDto }) {
+  const { format, label, system } = useUnits();
+  const charts = [
+    set.temperatureFactors.length > 1 && (
+      <FactorChart
+        key="t"
+        title="Strength vs temperature"
+        xLabel={label('temperature')}
+        points={set.temperatureFactors.map((p) => ({ x: toDisplay('temperature', system, p.temperature), y: p.factor }))}
+      />
+    ),
+    set.sustainedLoadFactors.length > 1 && (
+      <FactorChart key="h" title="Strength vs sustained load" xLabel="hours (log)" logX points={set.sustainedLoadFactors.filter((p) => p.hours > 0).map((p) => ({ x: p.hours, y: p.factor }))} />
+    ),
+    set.cyclicFactors.length > 1 && (
+      <FactorChart key="c" title="Strength vs pressure cycles" xLabel="cycles (log)" logX points={set.cyclicFactors.filter((p) => p.cycles > 0).map((p) => ({ x: p.cycles, y: p.factor }))} />
+    ),
+  ].filter(Boolean);
+  return (
+    <div className="flex flex-col gap-4">
+      <Panel
+        title={set.condition}
+        actions={
+          <div className="flex items-center gap-2 text-xs">
+            <Tag tone={set.status === 'published' ? 'pass' : set.status === 'retired' ? 'neutral' : 'brass'}>{set.status}</Tag>
+            <span>version {set.version}</span>
+          </div>
+        }
+      >
+        <ValuesTable set={set} />
+        <p className="mt-3 text-sm">
+          Service temperature {format('temperature', set.serviceTemperature.min)} to {format('temperature', set.serviceTemperature.max)}
+        </p>
+        <p className="mt-1 text-xs text-ink-faint">
+          {set.draftedBy ? `Drafted by ${set.draftedBy.name}. ` : 'Seeded from the project catalogue. '}
+          {set.approvedBy ? `Approved by ${set.approvedBy.name}. ` : ''}
+          {set.publishedAt ? `Published ${new Date(set.publishedAt).toLocaleDateString('en-GB')}.` : ''}
+        </p>
+      </Panel>
+      <Panel title="Dependence data">
+        {charts.length ? (
+          <Suspense fallback={<Spinner label="Drawing curves…" />}>
+            <div className="grid gap-4 md:grid-cols-3">{charts}</div>
+          </Suspense>
+        ) : (
+          <p className="text-sm text-ink-soft">This set carries no temperature, sustained-load or cyclic data. Evaluations using it will say so.</p>
+        )}
+        {set.sustainedLoadFactors.length === 0 && set.temperatureFactors.length > 0 ? (
+          <p className="mt-2 text-xs text-ink-soft">No sustained-load (creep) data in this set.</p>
+        ) : null}
+      </Panel>
+      <Panel title="Source">
+        <ReferenceCard reference={set.reference} />
+      </Panel>
+    </div>
+  );
+}
+
+export function MaterialPage() {
+  const id = Number(useParams().id);
+  const [params, setParams] = useSearchParams();
+  const query = useMaterial(id);
+  if (query.isPending) return <Spinner label="Loading material…" />;
+  if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
+  const material = query.data;
+  const selectedId = Number(params.get('set')) || material.propertySets[0]?.id;
+  const selected = material.propertySets.find((s) => s.id === selectedId) ?? material.propertySets[0];
+
+  return (
+    <div className="flex flex-col gap-4">
+      <nav aria-label="Breadcrumb" className="text-sm">
+        <Link to="/catalogue" className="text-sounding hover:underline">
+          Catalogue
+        </Link>{' '}
+        / {material.name}
+      </nav>
+      <div>
+        <h1 className="text-2xl font-bold">{material.name}</h1>
+        <p className="text-sm text-ink-soft">
+          {FAMILY_LABELS[material.family]} · {material.transparent ? 'transparent' : 'opaque'}
+          {material.description ? ` · ${material.description}` : ''}
+        </p>
+      </div>
+      <div className="grid gap-4 md:grid-cols-[16rem_1fr]">
+        <Panel title="Property sets">
+          <ul className="flex flex-col gap-1" role="listbox" aria-label="Property sets of this material">
+            {material.propertySets.map((s) => (
+              <li key={s.id}>
+                <button
+                  type="button"
+                  role="option"
+                  aria-selected={s.id === selected?.id}
+                  onClick={() => setParams({ set: String(s.id) }, { replace: true })}
+                  className={`w-full rounded-plate px-2 py-1.5 text-left text-sm ${s.id === selected?.id ? 'bg-sounding text-white' : 'hover:bg-chart-deep'}`}
+                >
+                  <span className="block font-bold">{s.condition}</span>
+                  <span className="text-xs opacity-80">
+                    v{s.version} · {s.status}
+                  </span>
+                </button>
+              </li>
+            ))}
+          </ul>
+        </Panel>
+        {selected ? <SetDetail set={selected} /> : <p>No property sets yet.</p>}
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,28 @@
+import type { ReferenceDto } from '@shared/schemas/catalogue';
+import { Tag } from '@/components/ui/states';
+
+const KIND_LABELS: Record<ReferenceDto['kind'], string> = {
+  standard: 'Standard',
+  handbook: 'Handbook',
+  paper: 'Paper',
+  'test-report': 'Test report',
+  'supplier-data-sheet': 'Supplier data sheet',
+};
+
+export function ReferenceCard({ reference }: { reference: ReferenceDto | null }) {
+  if (!reference) return <p className="text-sm text-verdict-fail">No reference yet: this set cannot be published without one.</p>;
+  return (
+    <div className="flex flex-col gap-1 text-sm" data-testid="reference">
+      <div className="flex items-center gap-2">
+        <Tag tone="brass">{KIND_LABELS[reference.kind]}</Tag>
+        {reference.identifier ? <span className="font-mono text-xs">{reference.identifier}</span> : null}
+      </div>
+      <p className="font-bold">{reference.title}</p>
+      <p className="text-ink-soft">
+        {[reference.authors, reference.year].filter(Boolean).join(', ')}
+        {reference.location ? ` — ${reference.location}` : ''}
+      </p>
+      {reference.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{reference.note}</p> : null}
+    </div>
+  );
+}

@@ -1,0 +1,35 @@
+import { describe, expect, it } from 'vitest';
+import { formatQuantity, fromDisplay, toDisplay, type QuantityKind } from './units';
+
+describe('units', () => {
+  // Conversion factors: NIST SP 811 (2008), Appendix B: 1 psi = 6894.757 Pa, 1 in = 25.4 mm,
+  // 1 lb = 0.45359237 kg, °F = °C × 9/5 + 32.
+  it.each([
+    ['pressure', 6894.757, 1],
+    ['stress', 6894757, 1],
+    ['modulus', 6894757000, 1],
+    ['length', 0.0254, 1],
+    ['temperature', 100, 212],
+    ['density', 27679.9047, 1],
+    ['massPerArea', 4.88242764, 1],
+  ] as [QuantityKind, number, number][])('converts %s from SI to US customary (NIST SP 811)', (kind, si, us) => {
+    expect(toDisplay(kind, 'US', si)).toBeCloseTo(us, 4);
+  });
+
+  it.each(['stress', 'modulus', 'pressure', 'density', 'temperature', 'length', 'depth', 'massPerArea'] as QuantityKind[])(
+    'round-trips %s through both systems',
+    (kind) => {
+      for (const system of ['SI', 'US'] as const) {
+        expect(fromDisplay(kind, system, toDisplay(kind, system, 123.456))).toBeCloseTo(123.456, 6);
+      }
+    },
+  );
+
+  it('formats with unit labels and a dash for missing values', () => {
+    expect(formatQuantity('stress', 'SI', 62e6)).toBe('62.0 MPa');
+    expect(formatQuantity('stress', 'US', 62e6)).toBe('8.99 ksi');
+    expect(formatQuantity('temperature', 'US', 10)).toBe('50 °F');
+    expect(formatQuantity('stress', 'SI', null)).toBe('—');
+    expect(formatQuantity('stress', 'SI', Number.NaN)).toBe('—');
+  });
+});
