@@ -53,6 +53,10 @@ up() {
     pg "$BINDIR/initdb" -D "$PGDATA" -U postgres --auth-local=trust --auth-host=scram-sha-256 -E UTF8 --locale=C.UTF-8 >/dev/null
   fi
   if ! pg "$BINDIR/pg_ctl" -D "$PGDATA" status >/dev/null 2>&1; then
+    if (exec 3<>"/dev/tcp/127.0.0.1/$ISOBATH_PG_PORT") 2>/dev/null; then
+      log "port $ISOBATH_PG_PORT on 127.0.0.1 is taken by another program; choose a free one with ISOBATH_PG_PORT=<port>"
+      exit 1
+    fi
     log "starting PostgreSQL on 127.0.0.1:$ISOBATH_PG_PORT"
     pg "$BINDIR/pg_ctl" -D "$PGDATA" -l "$PGROOT/postgresql.log" -w -t 30 \
       -o "-c listen_addresses=127.0.0.1 -p $ISOBATH_PG_PORT -k $SOCKDIR -c max_connections=200 -c fsync=${ISOBATH_PG_FSYNC:-on}" start >/dev/null

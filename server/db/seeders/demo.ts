@@ -15,6 +15,8 @@ export const DEMO_USERS: { email: string; name: string; role: Role }[] = [
 
 export async function seedDemoUsers(transaction: Transaction): Promise<number> {
   let created = 0;
+  const existing = await User.count({ where: { email: DEMO_USERS.map((u) => u.email) }, transaction });
+  if (existing === DEMO_USERS.length) return 0;
   const hash = await hashPassword(DEMO_PASSWORD);
   for (const u of DEMO_USERS) {
     const [, isNew] = await User.findOrCreate({
