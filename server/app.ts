@@ -14,6 +14,8 @@ import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { authRouter } from './modules/auth/router';
 import { healthRouter } from './modules/health/router';
 import { materialsRouter, propertySetsRouter } from './modules/property-sets/router';
+import { watchPropertySetChanges } from './modules/property-sets/snapshot';
+import { evaluateRouter, pressureRouter } from './modules/evaluate/router';
 
 export interface AppHandle {
   app: Express;
@@ -24,6 +26,7 @@ export interface AppHandle {
 export function createApp(): AppHandle {
   const config = env();
   initModels();
+  watchPropertySetChanges();
   const passport = configurePassport();
 
   const app = express();
@@ -85,6 +88,8 @@ export function createApp(): AppHandle {
   api.use(requireSignIn);
   api.use('/property-sets', propertySetsRouter());
   api.use('/materials', materialsRouter());
+  api.use('/evaluate', evaluateRouter());
+  api.use('/pressure', pressureRouter());
   api.use(notFoundApi);
 
   app.use('/api', api);

@@ -4,6 +4,7 @@ import { migrate } from './migrate';
 import { sequelize } from './sequelize';
 import { seedCatalogue } from './seeders/catalogue';
 import { seedDemoUsers } from './seeders/demo';
+import { invalidateCatalogueSnapshot } from '../modules/property-sets/snapshot';
 
 export interface SetupResult {
   migrations: string[];
@@ -34,5 +35,6 @@ export async function resetDatabase(): Promise<SetupResult> {
   initModels();
   await migrate();
   await sequelize().query(`TRUNCATE ${TABLES.join(', ')} RESTART IDENTITY CASCADE`);
+  invalidateCatalogueSnapshot();
   return setupDatabase({ demo: true });
 }

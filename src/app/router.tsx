@@ -32,6 +32,8 @@ export const router = createBrowserRouter([
       { index: true, element: <Navigate to="/catalogue" replace /> },
       { path: 'catalogue', lazy: () => import('./routes/catalogue') },
       { path: 'materials/:id', lazy: () => import('./routes/material') },
+      { path: 'sets/:id', lazy: () => import('./routes/set-redirect') },
+      { path: 'evaluate', lazy: () => import('./routes/evaluate') },
       { path: '*', element: <NotFoundPage /> },
     ],
   },

@@ -8,6 +8,7 @@ import { Logo } from './logo';
 /** Main sections, each shown only to roles that may use it (the server checks again). */
 export const SECTIONS: { to: string; label: string; permission: Permission }[] = [
   { to: '/catalogue', label: 'Catalogue', permission: 'catalogue:read' },
+  { to: '/evaluate', label: 'Evaluate', permission: 'evaluate' },
 ];
 
 function UnitSwitch() {

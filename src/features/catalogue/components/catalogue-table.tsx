@@ -8,11 +8,19 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
-import { FAMILY_LABELS, type PropertySetDto } from '@shared/schemas/catalogue';
+import { FAMILY_LABELS, type PropertySetDto, type ReferenceDto } from '@shared/schemas/catalogue';
 import { useUnits } from '@/lib/unit-system';
 import { SortableHeader } from '@/components/ui/sortable-header';
 
 const col = createColumnHelper<PropertySetDto>();
+
+/** "UFC 4-159-01N" for a standard; "Ashby & Jones, 2006" style for the rest. */
+export function shortCitation(ref: ReferenceDto | null): string {
+  if (!ref) return '—';
+  if (ref.kind === 'standard' && ref.identifier) return ref.identifier.replace(/\s*\(.*\)\s*$/, '');
+  const lead = ref.authors?.split(/[,;]/)[0]?.trim() || ref.title;
+  return ref.year ? `${lead}, ${ref.year}` : lead;
+}
 
 export function CatalogueTable({ items }: { items: PropertySetDto[] }) {
   const { format, label } = useUnits();
@@ -48,10 +56,10 @@ export function CatalogueTable({ items }: { items: PropertySetDto[] }) {
         header: `Service (${label('temperature')})`,
         cell: (c) => `${format('temperature', c.row.original.serviceTemperature.min, { unit: false })} to ${format('temperature', c.row.original.serviceTemperature.max, { unit: false })}`,
       }),
-      col.accessor((r) => r.reference?.identifier ?? r.reference?.title ?? '', {
+      col.accessor((r) => shortCitation(r.reference), {
         id: 'source',
         header: 'Source',
-        cell: (c) => <span className="text-xs text-ink-soft">{c.getValue()}{c.row.original.reference?.year ? `, ${c.row.original.reference.year}` : ''}</span>,
+        cell: (c) => <span className="text-xs text-ink-soft" title={c.row.original.reference?.title}>{c.getValue()}</span>,
       }),
     ],
     [format, label],

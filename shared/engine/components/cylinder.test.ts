@@ -1,0 +1,139 @@
+import { describe, expect, it } from 'vitest';
+import { evaluate } from '../evaluate';
+import type { CandidateMaterial } from '../types';
+import {
+  bryanPressure,
+  CYLINDER_FRAMES_WARNING,
+  CYLINDER_KNOCKDOWN,
+  cylinderBucklingPressure,
+  cylinderClassicalBucklingPressure,
+  cylinderLameHoopStress,
+  vonMisesPressure,
+  vonMisesPressureForLobes,
+  windenburgTrillingPressure,
+} from './cylinder';
+
+const E = 207e9;
+const nu = 0.3;
+
+describe('raw buckling formulas (steel tube D = 1 m, t = 10 mm, E 207 GPa, ν 0.3)', () => {
+  it('Bresse/Bryan long cylinder → 0.4549 MPa', () => {
+    // Source: p_cr = 2E/(1−ν²)·(t/D)³ (REFERENCES.md [calc]).
+    expect(Math.abs(bryanPressure(E, nu, 1, 0.01) / 0.4549e6 - 1)).toBeLessThan(0.001);
+  });
+
+  it.each([
+    [1, 5.63e6],
+    [3, 1.819e6],
+  ])('Windenburg & Trilling (1934, Trans. ASME 56), L = %d m → %d Pa', (L, expected) => {
+    // Source: REFERENCES.md [calc] from the published formula.
+    expect(Math.abs(windenburgTrillingPressure(E, nu, 1, 0.01, L)! / expected - 1)).toBeLessThan(0.001);
+  });
+
+  it.each([
+    [1, 5.534e6, 5],
+    [3, 1.721e6, 3],
+  ])('von Mises (hydrostatic), L = %d m → %d Pa at n = %d', (L, expected, n) => {
+    // Source: REFERENCES.md [calc] from the published formula, minimised over n ≥ 2, R = D/2.
+    const r = vonMisesPressure(E, nu, 0.5, 0.01, L);
+    expect(Math.abs(r.pressure / expected - 1)).toBeLessThan(0.001);
+    expect(r.lobes).toBe(n);
+  });
+
+  it('the lobe search finds the true minimum whatever the previous call left behind', () => {
+    const geometries = [
+      [0.5, 0.01, 1],
+      [0.5, 0.01, 30],
+      [2, 0.005, 0.3],
+      [0.1, 0.02, 0.05],
+      [0.5, 0.01, 3],
+      [3, 0.001, 0.2],
+    ];
+    for (const [R, t, L] of geometries) {
+      let best = Infinity;
+      let bestN = 0;
+      for (let n = 2; n <= 400; n++) {
+        const p = vonMisesPressureForLobes(E, nu, R, t, L, n);
+        if (p < best) {
+          best = p;
+          bestN = n;
+        }
+      }
+      const r = vonMisesPressure(E, nu, R, t, L);
+      expect(r.pressure).toBe(best);
+      expect(r.lobes).toBe(bestN);
+    }
+  });
+
+  it('Windenburg & Trilling is floored at the long-cylinder limit and skipped where its denominator fails', () => {
+    // a 30 m bay: W&T falls below Bryan, so the classical value is min(von Mises, Bryan)
+    expect(windenburgTrillingPressure(E, nu, 1.01, 0.01, 30)!).toBeLessThan(bryanPressure(E, nu, 1.01, 0.01));
+    expect(cylinderClassicalBucklingPressure(E, nu, 0.5, 0.01, 30)).toBe(
+      Math.min(vonMisesPressure(E, nu, 0.505, 0.01, 30).pressure, bryanPressure(E, nu, 1.01, 0.01)),
+    );
+    // a 1 m bay: the lower of von Mises and W&T
+    expect(cylinderClassicalBucklingPressure(E, nu, 0.495, 0.01, 1)).toBe(
+      Math.min(vonMisesPressure(E, nu, 0.5, 0.01, 1).pressure, windenburgTrillingPressure(E, nu, 1, 0.01, 1)!),
+    );
+    expect(windenburgTrillingPressure(E, nu, 1, 0.01, 0.01)).toBeNull();
+    expect(Number.isFinite(cylinderClassicalBucklingPressure(E, nu, 0.5, 0.01, 0.01))).toBe(true);
+  });
+
+  it('knock-down is explicit: 0.56 of the classical value', () => {
+    expect(CYLINDER_KNOCKDOWN).toBe(0.56);
+    expect(cylinderBucklingPressure(E, nu, 0.5, 0.01, 1)).toBeCloseTo(0.56 * cylinderClassicalBucklingPressure(E, nu, 0.5, 0.01, 1), 6);
+  });
+});
+
+describe('hoop compression', () => {
+  it('Lamé inner-surface hoop stress 2p·Ro²/(Ro² − Ri²) is at least the thin p·R/t and tends to it', () => {
+    expect(cylinderLameHoopStress(10e6, 0.95, 0.1)).toBeCloseTo((2 * 10e6 * 1.05 ** 2) / (1.05 ** 2 - 0.95 ** 2), 0);
+    for (const r of [1e-4, 1e-2, 0.3]) {
+      const lame = cylinderLameHoopStress(1e6, 1, r);
+      const thin = (1e6 * (1 + r / 2)) / r;
+      expect(lame).toBeGreaterThanOrEqual(thin);
+      if (r <= 1e-2) expect(lame / thin - 1).toBeLessThan(2 * r);
+    }
+  });
+});
+
+describe('cylinder results', () => {
+  const steel: CandidateMaterial = {
+    name: 'Quenched and tempered steel (demo)',
+    family: 'steel',
+    density: 7850,
+    youngsModulus: 207e9,
+    poissonsRatio: 0.3,
+    tensileStrength: 760e6,
+    tensileYield: 552e6,
+    compressiveStrength: 760e6,
+    compressiveYield: 552e6,
+    shearStrength: 450e6,
+  };
+  const bay = (thickness: number, length = 0.6) =>
+    evaluate({
+      loadCase: {
+        pressure: { depth: 1200, latitude: 56, water: 'sea' },
+        temperature: { min: 2, max: 25 },
+        sustainedHours: 0,
+        cycles: 0,
+        component: { type: 'cylinder', innerRadius: 0.9, thickness, length },
+      },
+      candidates: [steel],
+    }).results[0];
+
+  it('always states that frames are not checked', () => {
+    expect(bay(0.02).warnings).toContain(CYLINDER_FRAMES_WARNING);
+  });
+
+  it('warns of inelastic buckling for a thick, short bay', () => {
+    expect(bay(0.06, 0.3).warnings.some((w) => /buckling would be inelastic/.test(w))).toBe(true);
+    expect(bay(0.005, 2).warnings.some((w) => /inelastic/.test(w))).toBe(false);
+  });
+
+  it('weight-to-displacement per unit length at the required thickness: (ρ/ρw)·(1 − (Ri/Ro)²)', () => {
+    const r = bay(0.02);
+    const ro = 0.9 + r.requiredThickness!;
+    expect(r.weightToDisplacement).toBeCloseTo((7850 / 1025) * (1 - (0.9 / ro) ** 2), 12);
+  });
+});

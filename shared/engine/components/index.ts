@@ -1,0 +1,21 @@
+/** Component models by component type. */
+import type { Component } from '../../schemas/evaluate';
+import type { ComponentModel } from './common';
+import { conicalFrustumModel } from './conical-frustum';
+import { cylinderModel } from './cylinder';
+import { flatDiscModel } from './flat-disc';
+import { sphereModel } from './sphere';
+
+const MODELS = {
+  'flat-disc': flatDiscModel,
+  'conical-frustum': conicalFrustumModel,
+  sphere: sphereModel,
+  cylinder: cylinderModel,
+} as const;
+
+/** The model of a component (typed loosely: the caller passes the same component back in). */
+export function modelFor(component: Component): ComponentModel<Component> {
+  return MODELS[component.type] as unknown as ComponentModel<Component>;
+}
+
+export type { ComponentModel, ModeMaterial } from './common';

@@ -1,0 +1,89 @@
+/**
+ * Isobath calculation engine: pure, deterministic TypeScript (no I/O), SI units throughout
+ * (Pa, m, kg/m³, °C, hours). Results are screening estimates for qualified engineers; the
+ * applicable pressure-vessel standard and classification rules govern real designs.
+ *
+ * Typical use (server):
+ *   const req = evaluateRequestSchema.parse(body);              // ../schemas/evaluate
+ *   const candidates = resolve(req.candidates)                   // property sets → candidateFromPropertySet
+ *                                                                // inline        → candidateFromInline
+ *   const out = evaluate({ loadCase: req.loadCase, candidates, limit: req.limit, sortBy: req.sortBy });
+ *
+ * See README.md beside this file for the models, their sources and limits.
+ */
+
+// Evaluation and ranking
+export { evaluate, evaluateCandidate, prepareLoadCase, targetFor } from './evaluate';
+export type { EvaluateInput, PreparedLoadCase } from './evaluate';
+export { sortResults, compareResults, topResults, rankKey } from './rank';
+export { sweepThickness, MAX_SWEEP_STEPS } from './sweep';
+export type { SweepOptions, SweepResult, SweepSeries, GoverningTransition } from './sweep';
+export { candidateFromPropertySet, candidateFromInline } from './candidates';
+
+// Pressure
+export {
+  pressureFromDepth,
+  depthFromPressure,
+  unesco1983Depth,
+  unesco1983PressureDbar,
+  saunders1981PressureDbar,
+  freshWaterPressurePa,
+  freshWaterDepthM,
+  surfaceGravity,
+  PA_PER_DBAR,
+  SEAWATER_METHOD,
+  FRESH_WATER_METHOD,
+} from './pressure';
+export type { PressureFromDepth } from './pressure';
+
+// Allowables and defaults
+export { computeAllowables, worstTemperatureFactor, sustainedLoadFactor, cyclicFactor, isPolymer, isBrittle } from './allowables';
+export type { Allowables, Conditions } from './allowables';
+export {
+  DEFAULT_TARGET_SAFETY_FACTORS,
+  FALLBACK_TARGET_SAFETY_FACTOR,
+  defaultTargetSafetyFactor,
+  WATER_DENSITY,
+} from './defaults';
+export { DEFAULT_PROOF_FACTOR } from '../schemas/evaluate';
+
+// Raw published formulas (for tests, charts and explanations)
+export { flatDiscBendingStress, flatDiscDeflection, edgeShearStress, flatDiscBendingCoefficient } from './components/flat-disc';
+export { majorDiameter, seatBearingStress, CONICAL_FRUSTUM_WARNING } from './components/conical-frustum';
+export {
+  sphereLameStress,
+  sphereMembraneStress,
+  zoellyPressure,
+  sphereKnockdown,
+  sphereBucklingPressure,
+  sphereBucklingThickness,
+} from './components/sphere';
+export {
+  cylinderLameHoopStress,
+  vonMisesPressure,
+  vonMisesPressureForLobes,
+  windenburgTrillingPressure,
+  bryanPressure,
+  cylinderClassicalBucklingPressure,
+  cylinderBucklingPressure,
+  CYLINDER_KNOCKDOWN,
+} from './components/cylinder';
+
+// Root finding
+export { brent, thicknessForTarget } from './solve';
+
+// Types
+export type {
+  FailureMode,
+  Water,
+  CandidateMaterial,
+  ModeResult,
+  CandidateResult,
+  EvaluateResult,
+  AppliedFactors,
+  SortBy,
+  TemperatureFactorPoint,
+  HoursFactorPoint,
+  CyclesFactorPoint,
+} from './types';
+export { FAILURE_MODES } from './types';

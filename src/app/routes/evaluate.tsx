@@ -1,0 +1,3 @@
+import { EvaluatePage } from '@/features/evaluate/components/evaluate-page';
+
+export const Component = EvaluatePage;

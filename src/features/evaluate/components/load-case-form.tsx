@@ -1,0 +1,204 @@
+import { useEffect, useMemo, useRef } from 'react';
+import { useForm, type Resolver } from 'react-hook-form';
+import { FAMILIES, FAMILY_LABELS } from '@shared/schemas/catalogue';
+import { COMPONENT_TYPES, type EvaluateRequest } from '@shared/schemas/evaluate';
+import { pressureFromDepth, DEFAULT_TARGET_SAFETY_FACTORS } from '@shared/engine';
+import { SelectField, TextField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
+import { useUnits } from '@/lib/unit-system';
+import { fromDisplay } from '@/lib/units';
+import { checkForm, convertForm, type LoadCaseForm } from '../form-model';
+import { ComponentSketch } from './component-sketch';
+
+const COMPONENT_LABELS: Record<(typeof COMPONENT_TYPES)[number], string> = {
+  'flat-disc': 'Flat disc window',
+  'conical-frustum': 'Conical frustum window',
+  sphere: 'Spherical shell',
+  cylinder: 'Cylindrical shell between stiffeners',
+};
+
+function Fieldset({ legend, children }: { legend: string; children: React.ReactNode }) {
+  return (
+    <fieldset className="flex flex-col gap-3 border-t border-chart-line pt-3">
+      <legend className="pr-2 text-xs font-bold uppercase tracking-wide text-sounding-dark">{legend}</legend>
+      {children}
+    </fieldset>
+  );
+}
+
+export function LoadCaseFormPanel({
+  initial,
+  onSubmit,
+  busy,
+}: {
+  /** Initial values in SI. */
+  initial: LoadCaseForm;
+  onSubmit: (request: EvaluateRequest, shownSI: LoadCaseForm) => void;
+  busy: boolean;
+}) {
+  const { system, label, format } = useUnits();
+  const systemRef = useRef(system);
+  const resolver: Resolver<LoadCaseForm> = useMemo(
+    () => async (values) => {
+      const check = checkForm(values, systemRef.current);
+      if (check.ok) return { values, errors: {} };
+      const errors = Object.fromEntries(Object.entries(check.errors).map(([k, message]) => [k, { type: 'validate', message }]));
+      return { values: {}, errors };
+    },
+    [],
+  );
+  const form = useForm<LoadCaseForm>({ resolver, defaultValues: convertForm(initial, 'SI-raw', system), mode: 'onSubmit', reValidateMode: 'onChange' });
+  const { register, handleSubmit, watch, formState, reset, getValues } = form;
+  const errors = formState.errors;
+
+  // Switching units converts what is typed, so the load case stays the same.
+  useEffect(() => {
+    if (systemRef.current !== system) {
+      reset(convertForm(getValues(), systemRef.current, system));
+      systemRef.current = system;
+    }
+  }, [system, reset, getValues]);
+
+  const v = watch();
+  const num = { valueAsNumber: true } as const;
+  const err = (k: keyof LoadCaseForm) => errors[k]?.message as string | undefined;
+
+  // Live design pressure from depth, by the same engine the server uses.
+  let pressureReadout = '';
+  if (v.pressureMode === 'depth' && Number.isFinite(v.depth) && Number.isFinite(v.latitude) && v.depth > 0 && Math.abs(v.latitude) <= 90) {
+    const depthM = fromDisplay('depth', system, v.depth);
+    if (depthM <= 12_000) pressureReadout = `≈ ${format('pressure', pressureFromDepth(depthM, v.latitude, v.water).pressure)} gauge`;
+  }
+
+  const submit = handleSubmit((values) => {
+    const check = checkForm(values, system);
+    if (check.ok) onSubmit(check.request, convertForm(values, system, 'SI-raw'));
+  });
+
+  const len = label('length');
+  const sketchLabels = {
+    diameter: `${v.diameter} ${len}`,
+    minorDiameter: `${v.minorDiameter} ${len}`,
+    thickness: `${v.thickness} ${len}`,
+    includedAngle: `${v.includedAngle}°`,
+    innerRadius: `${v.innerRadius} ${len}`,
+    length: `${v.length} ${len}`,
+  };
+
+  return (
+    <form onSubmit={submit} noValidate aria-label="Load case" className="flex flex-col gap-4">
+      <Fieldset legend="Load">
+        <div role="radiogroup" aria-label="Pressure from" className="flex gap-4 text-sm">
+          <label className="flex items-center gap-1.5">
+            <input type="radio" value="depth" {...register('pressureMode')} /> Depth
+          </label>
+          <label className="flex items-center gap-1.5">
+            <input type="radio" value="pressure" {...register('pressureMode')} /> Pressure
+          </label>
+        </div>
+        {v.pressureMode === 'depth' ? (
+          <div className="grid grid-cols-3 gap-2">
+            <TextField label="Design depth" unit={label('depth')} inputMode="decimal" error={err('depth')} {...register('depth', num)} />
+            <SelectField label="Water" error={err('water')} {...register('water')}>
+              <option value="sea">Seawater</option>
+              <option value="fresh">Fresh water</option>
+            </SelectField>
+            <TextField label="Latitude" unit="°" inputMode="decimal" error={err('latitude')} {...register('latitude', num)} />
+          </div>
+        ) : (
+          <TextField label="Design pressure" unit={label('pressure')} inputMode="decimal" error={err('pressureValue')} {...register('pressureValue', num)} />
+        )}
+        {pressureReadout ? <p className="text-xs text-ink-soft" data-testid="pressure-readout">Design pressure {pressureReadout}</p> : null}
+      </Fieldset>
+
+      <Fieldset legend="Service">
+        <div className="grid grid-cols-2 gap-2">
+          <TextField label="Coldest" unit={label('temperature')} inputMode="decimal" error={err('tmin')} {...register('tmin', num)} />
+          <TextField label="Warmest" unit={label('temperature')} inputMode="decimal" error={err('tmax')} {...register('tmax', num)} />
+          <TextField label="Sustained load" unit="h" inputMode="decimal" error={err('sustainedHours')} hint="Longest time held at pressure" {...register('sustainedHours', num)} />
+          <TextField label="Pressure cycles" inputMode="numeric" error={err('cycles')} hint="Dives over the service life" {...register('cycles', num)} />
+        </div>
+      </Fieldset>
+
+      <Fieldset legend="Targets">
+        <label className="flex items-start gap-2 text-sm">
+          <input type="checkbox" className="mt-1" {...register('useFamilyTargets')} />
+          <span>
+            Each family's default safety factor <span className="text-ink-faint">(common practice: acrylic {DEFAULT_TARGET_SAFETY_FACTORS.acrylic}, glass {DEFAULT_TARGET_SAFETY_FACTORS.glass}, titanium {DEFAULT_TARGET_SAFETY_FACTORS['titanium-alloy']} …)</span>
+          </span>
+        </label>
+        <div className="grid grid-cols-2 gap-2">
+          {!v.useFamilyTargets ? (
+            <TextField label="Target safety factor" inputMode="decimal" error={err('targetSafetyFactor')} {...register('targetSafetyFactor', num)} />
+          ) : null}
+          <TextField label="Proof-test factor" inputMode="decimal" error={err('proofFactor')} hint="Common practice 1.25–1.5" {...register('proofFactor', num)} />
+        </div>
+      </Fieldset>
+
+      <Fieldset legend="Component">
+        <SelectField label="Geometry" error={err('componentType')} {...register('componentType')}>
+          {COMPONENT_TYPES.map((t) => (
+            <option key={t} value={t}>
+              {COMPONENT_LABELS[t]}
+            </option>
+          ))}
+        </SelectField>
+        <ComponentSketch type={v.componentType} labels={sketchLabels} />
+        <div className="grid grid-cols-2 gap-2">
+          {v.componentType === 'flat-disc' ? (
+            <>
+              <TextField label="Unsupported diameter" unit={len} inputMode="decimal" error={err('diameter')} {...register('diameter', num)} />
+              <SelectField label="Edge" error={err('edge')} {...register('edge')}>
+                <option value="simply-supported">Simply supported</option>
+                <option value="clamped">Clamped</option>
+              </SelectField>
+            </>
+          ) : null}
+          {v.componentType === 'conical-frustum' ? (
+            <>
+              <TextField label="Minor diameter" unit={len} inputMode="decimal" error={err('minorDiameter')} {...register('minorDiameter', num)} />
+              <TextField label="Included angle" unit="°" inputMode="decimal" error={err('includedAngle')} hint="30° to 180°" {...register('includedAngle', num)} />
+            </>
+          ) : null}
+          {v.componentType === 'sphere' || v.componentType === 'cylinder' ? (
+            <TextField label="Inner radius" unit={len} inputMode="decimal" error={err('innerRadius')} {...register('innerRadius', num)} />
+          ) : null}
+          {v.componentType === 'cylinder' ? (
+            <TextField label="Unsupported length" unit={len} inputMode="decimal" error={err('length')} hint="Between stiffeners or bulkheads" {...register('length', num)} />
+          ) : null}
+          <TextField label="Thickness" unit={len} inputMode="decimal" error={err('thickness')} {...register('thickness', num)} />
+        </div>
+      </Fieldset>
+
+      <Fieldset legend="Candidates from the catalogue">
+        <div className="grid grid-cols-2 gap-2">
+          <SelectField label="Family" {...register('family')}>
+            <option value="">All families</option>
+            {FAMILIES.map((f) => (
+              <option key={f} value={f}>
+                {FAMILY_LABELS[f]}
+              </option>
+            ))}
+          </SelectField>
+          <SelectField label="Transparency" {...register('transparent')}>
+            <option value="">Any</option>
+            <option value="true">Transparent</option>
+            <option value="false">Opaque</option>
+          </SelectField>
+        </div>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" {...register('coversTemperature')} /> Service range must cover the design temperatures
+        </label>
+      </Fieldset>
+
+      {errors.root ? (
+        <p role="alert" className="text-sm font-bold text-verdict-fail">
+          {errors.root.message as string}
+        </p>
+      ) : null}
+      <Button type="submit" disabled={busy}>
+        {busy ? 'Evaluating…' : 'Evaluate candidates'}
+      </Button>
+    </form>
+  );
+}

@@ -1,0 +1,232 @@
+import { Fragment, useMemo, useState } from 'react';
+import { Link } from 'react-router-dom';
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
+} from '@tanstack/react-table';
+import type { CandidateResult } from '@shared/engine';
+import { useUnits } from '@/lib/unit-system';
+import { SortableHeader } from '@/components/ui/sortable-header';
+import { MODE_COLOURS, MODE_LABELS } from '../modes';
+
+const col = createColumnHelper<CandidateResult & { rank: number }>();
+
+export function ModeTag({ mode }: { mode: CandidateResult['governingMode'] }) {
+  return (
+    <span className="inline-flex items-center gap-1.5 text-sm font-bold" style={{ color: MODE_COLOURS[mode] }}>
+      <span aria-hidden className="inline-block h-2.5 w-2.5 rounded-full" style={{ background: MODE_COLOURS[mode] }} />
+      {MODE_LABELS[mode]}
+    </span>
+  );
+}
+
+export function MarginCell({ margin }: { margin: number }) {
+  const pct = `${margin >= 0 ? '+' : ''}${(margin * 100).toFixed(0)} %`;
+  return <span className={`font-bold ${margin >= 0 ? 'text-verdict-pass' : 'text-verdict-fail'}`}>{pct}</span>;
+}
+
+function ModeBreakdown({ result }: { result: CandidateResult }) {
+  const { format } = useUnits();
+  return (
+    <div className="grid gap-3 bg-chart px-4 py-3 text-sm md:grid-cols-[2fr_1fr]">
+      <table className="w-full" aria-label={`Modes of ${result.name}`}>
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th className="pr-2">Mode</th>
+            <th className="pr-2 text-right">Stress</th>
+            <th className="pr-2 text-right">Allowable</th>
+            <th className="pr-2 text-right">Safety factor</th>
+            <th className="pr-2 text-right">Needs t</th>
+            <th>Model</th>
+          </tr>
+        </thead>
+        <tbody>
+          {result.modes.map((m) => (
+            <tr key={m.mode} className="border-t border-chart-line/60 align-top">
+              <td className="py-1 pr-2">
+                <ModeTag mode={m.mode} />
+              </td>
+              <td className="py-1 pr-2 text-right">{format('stress', m.stress)}</td>
+              <td className="py-1 pr-2 text-right">{format('stress', m.allowable)}</td>
+              <td className="py-1 pr-2 text-right">{m.safetyFactor.toFixed(2)}</td>
+              <td className="py-1 pr-2 text-right">{m.requiredThickness === null ? 'none suffices' : format('length', m.requiredThickness)}</td>
+              <td className="py-1 text-xs text-ink-soft">{m.model}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <div>
+        <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">Warnings</p>
+        {result.warnings.length ? (
+          <ul className="mt-1 list-disc pl-4 text-xs text-verdict-watch">
+            {result.warnings.map((w) => (
+              <li key={w}>{w}</li>
+            ))}
+          </ul>
+        ) : (
+          <p className="mt-1 text-xs text-ink-soft">None for this load case.</p>
+        )}
+        <p className="mt-2 text-xs text-ink-soft">
+          Strength factors applied: temperature {result.factors.temperature.toFixed(2)} (at {format('temperature', result.factors.worstTemperature)}), sustained load{' '}
+          {result.factors.sustainedLoad.toFixed(2)}, cycles {result.factors.cyclic.toFixed(2)}.
+        </p>
+      </div>
+    </div>
+  );
+}
+
+export function ResultsTable({
+  results,
+  selectedKey,
+  onSelect,
+  hull,
+}: {
+  results: CandidateResult[];
+  selectedKey: string | null;
+  onSelect: (key: string) => void;
+  hull: boolean;
+}) {
+  const { format, label } = useUnits();
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const [open, setOpen] = useState<Set<string>>(new Set());
+  const data = useMemo(() => results.map((r, i) => ({ ...r, rank: i + 1 })), [results]);
+  const keyOf = (r: CandidateResult) => `${r.propertySetId ?? 'inline'}:${r.name}`;
+
+  const columns = useMemo(
+    () => [
+      col.accessor('rank', { header: '#', meta: { numeric: true } }),
+      col.accessor('name', {
+        header: 'Candidate',
+        cell: (c) => {
+          // Catalogue names read "Material (condition)": show the condition on its own line.
+          const name = c.getValue();
+          const cut = c.row.original.propertySetId ? name.indexOf(' (') : -1;
+          const head = cut > 0 ? name.slice(0, cut) : name;
+          const tail = cut > 0 ? name.slice(cut + 2, -1) : '';
+          return (
+            <div className="min-w-[15rem] max-w-[22rem]">
+              {c.row.original.propertySetId ? (
+                <Link to={`/sets/${c.row.original.propertySetId}`} className="font-bold text-sounding hover:underline" onClick={(e) => e.stopPropagation()}>
+                  {head}
+                </Link>
+              ) : (
+                <span className="font-bold">{head}</span>
+              )}
+              {tail ? <div className="text-xs text-ink-soft">{tail}</div> : null}
+            </div>
+          );
+        },
+      }),
+      col.accessor('governingMode', { header: 'Governed by', cell: (c) => <ModeTag mode={c.getValue()} /> }),
+      col.accessor('safetyFactor', { header: 'Safety factor', cell: (c) => c.getValue().toFixed(2), meta: { numeric: true } }),
+      col.accessor('targetSafetyFactor', { header: 'Target', cell: (c) => c.getValue().toFixed(2), meta: { numeric: true } }),
+      col.accessor('margin', { header: 'Margin', cell: (c) => <MarginCell margin={c.getValue()} />, meta: { numeric: true } }),
+      col.accessor((r) => r.requiredThickness ?? Number.POSITIVE_INFINITY, {
+        id: 'requiredThickness',
+        header: `Required t (${label('length')})`,
+        cell: (c) => (c.row.original.requiredThickness === null ? 'none suffices' : format('length', c.row.original.requiredThickness, { unit: false })),
+        meta: { numeric: true },
+      }),
+      col.accessor((r) => r.massPerArea ?? Number.POSITIVE_INFINITY, {
+        id: 'massPerArea',
+        header: `Mass (${label('massPerArea')})`,
+        cell: (c) => format('massPerArea', c.row.original.massPerArea, { unit: false }),
+        meta: { numeric: true },
+      }),
+      ...(hull
+        ? [
+            col.accessor((r) => r.weightToDisplacement ?? Number.POSITIVE_INFINITY, {
+              id: 'weightToDisplacement',
+              header: 'Weight / displacement',
+              cell: (c) => (c.row.original.weightToDisplacement === null ? '—' : c.row.original.weightToDisplacement.toFixed(2)),
+              meta: { numeric: true },
+            }),
+          ]
+        : []),
+      col.accessor((r) => r.warnings.length, {
+        id: 'warnings',
+        header: 'Warnings',
+        cell: (c) => (c.getValue() ? <span className="font-bold text-verdict-watch">⚠ {c.getValue()}</span> : <span className="text-ink-faint">—</span>),
+        meta: { numeric: true },
+      }),
+    ],
+    [format, label, hull],
+  );
+
+  const table = useReactTable({ data, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+  const toggle = (key: string) =>
+    setOpen((prev) => {
+      const next = new Set(prev);
+      if (next.has(key)) next.delete(key);
+      else next.add(key);
+      return next;
+    });
+
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Ranked candidates">
+        <thead className="border-b border-chart-line text-left">
+          {table.getHeaderGroups().map((hg) => (
+            <tr key={hg.id}>
+              {hg.headers.map((h) => (
+                <SortableHeader key={h.id} header={h} numeric={!!(h.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric}>
+                  {flexRender(h.column.columnDef.header, h.getContext())}
+                </SortableHeader>
+              ))}
+              <th className="px-2" />
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {table.getRowModel().rows.map((row) => {
+            const key = keyOf(row.original);
+            const expanded = open.has(key);
+            return (
+              <Fragment key={key}>
+                <tr
+                  className={`cursor-pointer border-b border-chart-line/60 ${selectedKey === key ? 'bg-sounding-light/70' : 'hover:bg-chart-deep/40'}`}
+                  onClick={() => onSelect(key)}
+                  aria-selected={selectedKey === key}
+                >
+                  {row.getVisibleCells().map((cell) => (
+                    <td key={cell.id} className={`px-3 py-2 ${(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? 'text-right' : ''}`}>
+                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                    </td>
+                  ))}
+                  <td className="px-2">
+                    <button
+                      type="button"
+                      aria-expanded={expanded}
+                      aria-label={`${expanded ? 'Hide' : 'Show'} modes of ${row.original.name}`}
+                      onClick={(e) => {
+                        e.stopPropagation();
+                        toggle(key);
+                        onSelect(key);
+                      }}
+                      className="rounded-plate px-2 py-0.5 text-xs font-bold text-sounding hover:bg-chart-deep"
+                    >
+                      {expanded ? 'Less' : 'Modes'}
+                    </button>
+                  </td>
+                </tr>
+                {expanded ? (
+                  <tr>
+                    <td colSpan={row.getVisibleCells().length + 1} className="p-0">
+                      <ModeBreakdown result={row.original} />
+                    </td>
+                  </tr>
+                ) : null}
+              </Fragment>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+export const resultKey = (r: CandidateResult) => `${r.propertySetId ?? 'inline'}:${r.name}`;

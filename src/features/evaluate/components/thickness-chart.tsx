@@ -1,0 +1,79 @@
+import { useMemo } from 'react';
+import { Line } from 'react-chartjs-2';
+import '@/components/charts/setup';
+import { sweepThickness, type CandidateMaterial } from '@shared/engine';
+import type { LoadCaseInput } from '@shared/schemas/evaluate';
+import { useUnits } from '@/lib/unit-system';
+import { toDisplay } from '@/lib/units';
+import { MODE_COLOURS, MODE_LABELS } from '../modes';
+
+/** Safety factor of every mode against thickness for one candidate, computed here by the shared engine. */
+export function ThicknessChart({ loadCase, candidate, thickness, requiredThickness }: { loadCase: LoadCaseInput; candidate: CandidateMaterial; thickness: number; requiredThickness: number | null }) {
+  const { system, label, format } = useUnits();
+  const sweep = useMemo(() => {
+    const upper = Math.max(thickness * 3, (requiredThickness ?? 0) * 1.5);
+    return sweepThickness(loadCase, candidate, { from: upper / 60, to: upper, steps: 120 });
+  }, [loadCase, candidate, thickness, requiredThickness]);
+
+  const x = (t: number) => toDisplay('length', system, t);
+  const cap = sweep.targetSafetyFactor * 6;
+  const data = {
+    datasets: [
+      ...sweep.series.map((s) => ({
+        label: MODE_LABELS[s.mode],
+        borderColor: MODE_COLOURS[s.mode],
+        backgroundColor: MODE_COLOURS[s.mode],
+        pointRadius: 0,
+        borderWidth: 2,
+        data: sweep.thickness.map((t, i) => ({ x: x(t), y: Math.min(s.safetyFactor[i], cap) })),
+      })),
+      {
+        label: `Target ${sweep.targetSafetyFactor}`,
+        borderColor: '#10242f',
+        borderDash: [6, 4],
+        borderWidth: 1,
+        pointRadius: 0,
+        data: [
+          { x: x(sweep.thickness[0]), y: sweep.targetSafetyFactor },
+          { x: x(sweep.thickness[sweep.thickness.length - 1]), y: sweep.targetSafetyFactor },
+        ],
+      },
+      {
+        label: 'Evaluated thickness',
+        borderColor: '#9c6a1c',
+        borderWidth: 1.5,
+        pointRadius: 0,
+        data: [
+          { x: x(thickness), y: 0 },
+          { x: x(thickness), y: cap },
+        ],
+      },
+    ],
+  };
+  return (
+    <figure className="flex flex-col gap-1">
+      <figcaption className="text-xs font-bold uppercase tracking-wide text-ink-soft">Safety factor against thickness — {candidate.name}</figcaption>
+      <div className="h-72">
+        <Line
+          role="img"
+          aria-label={`Safety factor against thickness for ${candidate.name}`}
+          data={data}
+          options={{
+            maintainAspectRatio: false,
+            parsing: false,
+            plugins: { legend: { position: 'bottom' } },
+            scales: {
+              x: { type: 'linear', title: { display: true, text: `thickness (${label('length')})` } },
+              y: { min: 0, max: cap, title: { display: true, text: 'safety factor' } },
+            },
+          }}
+        />
+      </div>
+      <p className="text-xs text-ink-soft" data-testid="mode-transitions">
+        {sweep.governingTransitions.length
+          ? sweep.governingTransitions.map((t) => `${MODE_LABELS[t.from]} gives way to ${MODE_LABELS[t.to].toLowerCase()} at ${format('length', t.thickness)}`).join('; ') + '.'
+          : `${MODE_LABELS[sweep.governing[0]]} governs across this range.`}
+      </p>
+    </figure>
+  );
+}

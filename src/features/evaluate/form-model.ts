@@ -1,0 +1,170 @@
+import { evaluateRequestSchema, type ComponentType, type EvaluateRequest, type EvaluateRequestInput } from '@shared/schemas/evaluate';
+import type { Family } from '@shared/schemas/catalogue';
+import { fromDisplay, toDisplay, type QuantityKind, type UnitSystem } from '@/lib/units';
+
+/**
+ * The Evaluate form holds numbers in the units shown on screen; the request is built in SI and
+ * validated by the shared schema, whose field errors are mapped back onto these fields.
+ */
+export interface LoadCaseForm {
+  pressureMode: 'depth' | 'pressure';
+  depth: number;
+  latitude: number;
+  water: 'sea' | 'fresh';
+  pressureValue: number;
+  tmin: number;
+  tmax: number;
+  sustainedHours: number;
+  cycles: number;
+  useFamilyTargets: boolean;
+  targetSafetyFactor: number;
+  proofFactor: number;
+  componentType: ComponentType;
+  diameter: number;
+  minorDiameter: number;
+  includedAngle: number;
+  innerRadius: number;
+  length: number;
+  thickness: number;
+  edge: 'simply-supported' | 'clamped';
+  family: Family | '';
+  transparent: '' | 'true' | 'false';
+  coversTemperature: boolean;
+}
+
+export type NumericField = {
+  [K in keyof LoadCaseForm]: LoadCaseForm[K] extends number ? K : never;
+}[keyof LoadCaseForm];
+
+/** Unit of each numeric field (null: dimensionless or already in its only unit). */
+export const FIELD_KIND: Record<NumericField, QuantityKind | null> = {
+  depth: 'depth',
+  latitude: null,
+  pressureValue: 'pressure',
+  tmin: 'temperature',
+  tmax: 'temperature',
+  sustainedHours: null,
+  cycles: null,
+  targetSafetyFactor: null,
+  proofFactor: null,
+  diameter: 'length',
+  minorDiameter: 'length',
+  includedAngle: null,
+  innerRadius: 'length',
+  length: 'length',
+  thickness: 'length',
+};
+
+/** Harrow Sound's two-person submersible, rated to 1,200 m: its 90° conical viewport (SI). */
+export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
+  pressureMode: 'depth',
+  depth: 1200,
+  latitude: 57,
+  water: 'sea',
+  pressureValue: 12e6,
+  tmin: 2,
+  tmax: 25,
+  sustainedHours: 1000,
+  cycles: 2000,
+  useFamilyTargets: true,
+  targetSafetyFactor: 4,
+  proofFactor: 1.25,
+  componentType: 'conical-frustum',
+  diameter: 0.2,
+  minorDiameter: 0.15,
+  includedAngle: 90,
+  innerRadius: 0.8,
+  length: 1.2,
+  thickness: 0.1,
+  edge: 'simply-supported',
+  family: '',
+  transparent: 'true',
+  coversTemperature: true,
+};
+
+const round = (v: number) => (Number.isFinite(v) ? Number(v.toPrecision(6)) : v);
+
+/** Converts every numeric field between unit systems (SI form ⇄ display form). */
+export function convertForm(form: LoadCaseForm, from: UnitSystem | 'SI-raw', to: UnitSystem | 'SI-raw'): LoadCaseForm {
+  const out = { ...form };
+  for (const [field, kind] of Object.entries(FIELD_KIND) as [NumericField, QuantityKind | null][]) {
+    if (!kind) continue;
+    const si = from === 'SI-raw' ? form[field] : fromDisplay(kind, from, form[field]);
+    out[field] = to === 'SI-raw' ? si : round(toDisplay(kind, to, si));
+  }
+  return out;
+}
+
+/** The request in SI from the form as shown. */
+export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequestInput {
+  const f = convertForm(shown, system, 'SI-raw');
+  const component =
+    f.componentType === 'flat-disc'
+      ? { type: 'flat-disc' as const, diameter: f.diameter, thickness: f.thickness, edge: f.edge }
+      : f.componentType === 'conical-frustum'
+        ? { type: 'conical-frustum' as const, minorDiameter: f.minorDiameter, thickness: f.thickness, includedAngle: f.includedAngle }
+        : f.componentType === 'sphere'
+          ? { type: 'sphere' as const, innerRadius: f.innerRadius, thickness: f.thickness }
+          : { type: 'cylinder' as const, innerRadius: f.innerRadius, thickness: f.thickness, length: f.length };
+  return {
+    loadCase: {
+      pressure: f.pressureMode === 'depth' ? { depth: f.depth, latitude: f.latitude, water: f.water } : { value: f.pressureValue },
+      temperature: { min: f.tmin, max: f.tmax },
+      sustainedHours: f.sustainedHours,
+      cycles: f.cycles,
+      ...(f.useFamilyTargets ? {} : { targetSafetyFactor: f.targetSafetyFactor }),
+      proofFactor: f.proofFactor,
+      component,
+    },
+    filters: {
+      ...(f.family ? { family: f.family } : {}),
+      ...(f.transparent ? { transparent: f.transparent === 'true' } : {}),
+      ...(f.coversTemperature ? { coversTemperature: true } : {}),
+    },
+  };
+}
+
+/** Request error path → form field. */
+const PATHS: Record<string, keyof LoadCaseForm> = {
+  'loadCase.pressure': 'depth',
+  'loadCase.pressure.depth': 'depth',
+  'loadCase.pressure.latitude': 'latitude',
+  'loadCase.pressure.water': 'water',
+  'loadCase.pressure.value': 'pressureValue',
+  'loadCase.temperature.min': 'tmin',
+  'loadCase.temperature.max': 'tmax',
+  'loadCase.sustainedHours': 'sustainedHours',
+  'loadCase.cycles': 'cycles',
+  'loadCase.targetSafetyFactor': 'targetSafetyFactor',
+  'loadCase.proofFactor': 'proofFactor',
+  'loadCase.component.diameter': 'diameter',
+  'loadCase.component.minorDiameter': 'minorDiameter',
+  'loadCase.component.includedAngle': 'includedAngle',
+  'loadCase.component.innerRadius': 'innerRadius',
+  'loadCase.component.length': 'length',
+  'loadCase.component.thickness': 'thickness',
+  'loadCase.component.edge': 'edge',
+  'loadCase.component': 'componentType',
+  'loadCase.component.type': 'componentType',
+};
+
+export function formFieldFor(path: string, mode: LoadCaseForm['pressureMode']): keyof LoadCaseForm | 'root' {
+  if (path === 'loadCase.pressure') return mode === 'depth' ? 'depth' : 'pressureValue';
+  return PATHS[path] ?? 'root';
+}
+
+export type FormCheck =
+  | { ok: true; request: EvaluateRequest }
+  | { ok: false; errors: Partial<Record<keyof LoadCaseForm | 'root', string>> };
+
+/** Validates the form through the shared request schema. */
+export function checkForm(shown: LoadCaseForm, system: UnitSystem): FormCheck {
+  const parsed = evaluateRequestSchema.safeParse(toRequest(shown, system));
+  if (parsed.success) return { ok: true, request: parsed.data };
+  const errors: Partial<Record<keyof LoadCaseForm | 'root', string>> = {};
+  for (const issue of parsed.error.issues) {
+    const field = formFieldFor(issue.path.map(String).join('.'), shown.pressureMode);
+    errors[field] ??= issue.message;
+  }
+  return { ok: false, errors };
+}

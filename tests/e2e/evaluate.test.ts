@@ -1,0 +1,58 @@
+/// <reference lib="dom" />
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startBrowserSession, signInThroughForm, type BrowserSession } from '../helpers/browser';
+
+let s: BrowserSession;
+beforeAll(async () => {
+  s = await startBrowserSession();
+  await signInThroughForm(s.page, s.baseUrl, 'engineer');
+});
+afterAll(async () => {
+  await s?.close();
+});
+
+describe('Evaluate journey in chromium', () => {
+  it('ranks the catalogue for the 1,200 m submersible viewport and names the governing mode', async () => {
+    const { page, baseUrl } = s;
+    await page.goto(`${baseUrl}/evaluate`);
+    // The cautions stay on screen beside the results.
+    await page.getByRole('complementary', { name: 'Cautions' }).waitFor();
+    const table = page.getByRole('table', { name: 'Ranked candidates' });
+    await table.waitFor();
+    expect(await page.getByTestId('pressure-readout').textContent()).toMatch(/12\.\d\d MPa/);
+    const summary = await page.getByTestId('evaluation-summary').textContent();
+    expect(summary).toMatch(/Design pressure 12\.\d\d MPa/);
+    expect(summary).toMatch(/governed by (Tension|Compression|Shear|Buckling)/);
+    const firstRow = table.locator('tbody tr').first();
+    expect(await firstRow.textContent()).toMatch(/Tension|Compression|Shear|Buckling/);
+  });
+
+  it('draws the margin chart and the thickness sweep with where the governing mode changes', async () => {
+    const { page } = s;
+    await page.getByRole('img', { name: 'Margins by failure mode per candidate' }).waitFor();
+    await page.getByRole('img', { name: /Safety factor against thickness for/ }).waitFor();
+    expect(await page.getByTestId('mode-transitions').textContent()).toMatch(/governs across this range|gives way to/);
+  });
+
+  it('shows field errors and keeps the last table when the thickness is negative', async () => {
+    const { page } = s;
+    await page.getByLabel(/^Thickness/).fill('-5');
+    await page.getByRole('button', { name: 'Evaluate candidates' }).click();
+    expect(await page.getByText('Thickness must be at least').isVisible()).toBe(true);
+    expect(await page.getByRole('table', { name: 'Ranked candidates' }).isVisible()).toBe(true);
+  });
+
+  it('re-evaluates a clamped flat disc and opens a candidate’s modes', async () => {
+    const { page } = s;
+    await page.getByLabel('Geometry').selectOption('flat-disc');
+    await page.getByLabel(/Unsupported diameter/).fill('150');
+    await page.getByLabel(/^Thickness/).fill('60');
+    await page.getByLabel('Edge').selectOption('clamped');
+    await page.getByRole('button', { name: 'Evaluate candidates' }).click();
+    await expect.poll(async () => (await page.getByRole('button', { name: /Show modes of/ }).count()) > 0).toBe(true);
+    await page.getByRole('button', { name: /Show modes of/ }).first().click();
+    const modes = page.getByRole('table', { name: /^Modes of/ });
+    await modes.waitFor();
+    expect(await modes.textContent()).toContain('Roark');
+  });
+});
