@@ -11,6 +11,7 @@ const alias = {
 export default defineConfig({
   resolve: { alias },
   test: {
+    globalSetup: ['tests/global-setup.ts'],
     projects: [
       {
         extends: true,

@@ -35,3 +35,21 @@ ensure_client_build() {
     (cd "$ROOT" && npx vite build --logLevel warn)
   fi
 }
+
+# Start the fake S3 and SMTP servers in the background and export what the app needs
+# (S3_ENDPOINT, SMTP_HOST, SMTP_PORT, MAIL_CATCHER_DIR). Sets FAKES_PID.
+start_fakes() {
+  local ready="$ROOT/.data/fakes.ready"
+  mkdir -p "$ROOT/.data"; rm -f "$ready"
+  (cd "$ROOT" && exec node_modules/.bin/tsx scripts/fakes/index.ts >"$ready" 2>"$ROOT/.data/fakes.log") &
+  FAKES_PID=$!
+  for _ in $(seq 1 100); do
+    grep -q 'fakes ready' "$ready" 2>/dev/null && break
+    kill -0 "$FAKES_PID" 2>/dev/null || { log "the fake S3/SMTP servers did not start:"; cat "$ROOT/.data/fakes.log" >&2; exit 1; }
+    sleep 0.1
+  done
+  local line
+  line=$(grep 'fakes ready' "$ready")
+  for pair in $(echo "${line#*ready: }"); do export "${pair?}"; done
+  log "fake S3 at $S3_ENDPOINT and SMTP catcher at $SMTP_HOST:$SMTP_PORT (mail saved in $MAIL_CATCHER_DIR)"
+}

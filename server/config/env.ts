@@ -18,9 +18,35 @@ const envSchema = z.object({
   BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).default(11),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   LOG_REQUESTS: z.enum(['true', 'false']).default('false'),
+
+  /** Object store for uploaded documents. Unset endpoint = the provider's own (AWS) endpoint for S3_REGION. */
+  S3_ENDPOINT: z.string().url({ protocol: /^https?$/ }).optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_BUCKET: z.string().min(3).max(63).default('isobath-documents'),
+  /** Outside production both default to the local fake's key (S3RVER); in production, unset = the SDK's credential chain. */
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** Path-style URLs (endpoint/bucket/key), as the local fake and most self-hosted stores need. */
+  S3_FORCE_PATH_STYLE: z.enum(['true', 'false']).default('true').transform((v) => v === 'true'),
+
+  /** Outgoing mail. The defaults reach the local catcher started by scripts/fakes. */
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(54341),
+  /** true = TLS from the first byte (port 465); false = plain, upgraded by STARTTLS (required off loopback). */
+  SMTP_SECURE: z.enum(['true', 'false']).default('false').transform((v) => v === 'true'),
+  SMTP_USER: z.string().min(1).optional(),
+  SMTP_PASS: z.string().min(1).optional(),
+  MAIL_FROM: z.string().min(3).default('Isobath <no-reply@isobath.example>'),
+  /** Where the local catcher saves mail; when set, the app can list what was caught. */
+  MAIL_CATCHER_DIR: z.string().min(1).optional(),
+  /** Public address of the app, used in links sent by mail. */
+  APP_URL: z.string().url({ protocol: /^https?$/ }).default('http://localhost:3000'),
 });
 
 export type Env = z.infer<typeof envSchema> & { SESSION_SECRET: string; cookieSecure: boolean };
+
+/** The local S3 fake's only access key (s3rver accepts this key id and no other). */
+const FAKE_S3_KEY = 'S3RVER';
 
 /** Dev and test keep one generated session secret under .data so sessions survive restarts. */
 function localSessionSecret(): string {
@@ -47,9 +73,18 @@ export function env(): Env {
   if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
     throw new Error('Invalid environment: SESSION_SECRET (32+ characters) is required in production');
   }
+  if (!e.S3_ACCESS_KEY_ID !== !e.S3_SECRET_ACCESS_KEY) {
+    throw new Error('Invalid environment: set both S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY, or neither');
+  }
+  if (!e.SMTP_USER !== !e.SMTP_PASS) {
+    throw new Error('Invalid environment: set both SMTP_USER and SMTP_PASS, or neither');
+  }
+  const fakeS3Key = e.NODE_ENV === 'production' ? undefined : FAKE_S3_KEY;
   cached = {
     ...e,
     SESSION_SECRET: e.SESSION_SECRET ?? localSessionSecret(),
+    S3_ACCESS_KEY_ID: e.S3_ACCESS_KEY_ID ?? fakeS3Key,
+    S3_SECRET_ACCESS_KEY: e.S3_SECRET_ACCESS_KEY ?? fakeS3Key,
     cookieSecure: e.COOKIE_SECURE ? e.COOKIE_SECURE === 'true' : e.NODE_ENV === 'production',
   };
   return cached;

@@ -1,0 +1,110 @@
+// The object-store and mail variables: defaults, the fake's key outside production, refusals.
+import { afterEach, describe, expect, it } from 'vitest';
+import { env, resetEnvCache } from './env';
+
+const NAMES = [
+  'NODE_ENV',
+  'SESSION_SECRET',
+  'S3_ENDPOINT',
+  'S3_REGION',
+  'S3_BUCKET',
+  'S3_ACCESS_KEY_ID',
+  'S3_SECRET_ACCESS_KEY',
+  'S3_FORCE_PATH_STYLE',
+  'SMTP_HOST',
+  'SMTP_PORT',
+  'SMTP_SECURE',
+  'SMTP_USER',
+  'SMTP_PASS',
+  'MAIL_FROM',
+  'MAIL_CATCHER_DIR',
+  'APP_URL',
+];
+const saved = Object.fromEntries(NAMES.map((n) => [n, process.env[n]]));
+
+/** Only the given variables among NAMES are set (a fixed session secret keeps .data untouched). */
+function withEnv(vars: Record<string, string>) {
+  for (const name of NAMES) delete process.env[name];
+  Object.assign(process.env, { SESSION_SECRET: 'env-test-secret-env-test-secret-env-test', ...vars });
+  resetEnvCache();
+  return env;
+}
+
+afterEach(() => {
+  for (const name of NAMES) {
+    if (saved[name] === undefined) delete process.env[name];
+    else process.env[name] = saved[name];
+  }
+  resetEnvCache();
+});
+
+describe('storage and mail variables', () => {
+  it('defaults to the local fakes outside production', () => {
+    const e = withEnv({ NODE_ENV: 'development' })();
+    expect(e.S3_ENDPOINT).toBeUndefined();
+    expect(e.S3_REGION).toBe('us-east-1');
+    expect(e.S3_BUCKET).toBe('isobath-documents');
+    expect(e.S3_ACCESS_KEY_ID).toBe('S3RVER');
+    expect(e.S3_SECRET_ACCESS_KEY).toBe('S3RVER');
+    expect(e.S3_FORCE_PATH_STYLE).toBe(true);
+    expect(e.SMTP_HOST).toBe('127.0.0.1');
+    expect(e.SMTP_PORT).toBe(54341);
+    expect(e.SMTP_SECURE).toBe(false);
+    expect(e.SMTP_USER).toBeUndefined();
+    expect(e.MAIL_FROM).toBe('Isobath <no-reply@isobath.example>');
+    expect(e.MAIL_CATCHER_DIR).toBeUndefined();
+    expect(e.APP_URL).toBe('http://localhost:3000');
+  });
+
+  it('gives production no fake key: unset keys leave the SDK credential chain in charge', () => {
+    const e = withEnv({ NODE_ENV: 'production' })();
+    expect(e.S3_ACCESS_KEY_ID).toBeUndefined();
+    expect(e.S3_SECRET_ACCESS_KEY).toBeUndefined();
+  });
+
+  it('takes a real store and a real mail server from the environment', () => {
+    const e = withEnv({
+      NODE_ENV: 'production',
+      S3_ENDPOINT: 'https://objects.harrow-sound.example',
+      S3_REGION: 'eu-west-2',
+      S3_BUCKET: 'harrow-sound-documents',
+      S3_ACCESS_KEY_ID: 'AKIDEXAMPLE',
+      S3_SECRET_ACCESS_KEY: 'secret-example',
+      S3_FORCE_PATH_STYLE: 'false',
+      SMTP_HOST: 'smtp.harrow-sound.example',
+      SMTP_PORT: '465',
+      SMTP_SECURE: 'true',
+      SMTP_USER: 'isobath',
+      SMTP_PASS: 'mail-secret',
+      APP_URL: 'https://isobath.harrow-sound.example',
+    })();
+    expect(e).toMatchObject({
+      S3_ENDPOINT: 'https://objects.harrow-sound.example',
+      S3_REGION: 'eu-west-2',
+      S3_BUCKET: 'harrow-sound-documents',
+      S3_ACCESS_KEY_ID: 'AKIDEXAMPLE',
+      S3_SECRET_ACCESS_KEY: 'secret-example',
+      S3_FORCE_PATH_STYLE: false,
+      SMTP_HOST: 'smtp.harrow-sound.example',
+      SMTP_PORT: 465,
+      SMTP_SECURE: true,
+      SMTP_USER: 'isobath',
+      SMTP_PASS: 'mail-secret',
+      APP_URL: 'https://isobath.harrow-sound.example',
+    });
+  });
+
+  it.each([
+    [{ S3_ENDPOINT: 'not a url' }, 'S3_ENDPOINT'],
+    [{ S3_ENDPOINT: 'ftp://objects.harrow-sound.example' }, 'S3_ENDPOINT'],
+    [{ S3_FORCE_PATH_STYLE: 'yes' }, 'S3_FORCE_PATH_STYLE'],
+    [{ SMTP_SECURE: '1' }, 'SMTP_SECURE'],
+    [{ SMTP_PORT: '0' }, 'SMTP_PORT'],
+    [{ S3_BUCKET: 'ab' }, 'S3_BUCKET'],
+    [{ APP_URL: 'localhost:3000' }, 'APP_URL'],
+    [{ S3_ACCESS_KEY_ID: 'only-the-id' }, 'S3_SECRET_ACCESS_KEY'],
+    [{ SMTP_USER: 'only-the-user' }, 'SMTP_PASS'],
+  ])('refuses %j, naming %s', (vars, name) => {
+    expect(() => withEnv({ NODE_ENV: 'development', ...vars })()).toThrow(name);
+  });
+});
