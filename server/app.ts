@@ -16,6 +16,9 @@ import { healthRouter } from './modules/health/router';
 import { materialsRouter, propertySetsRouter } from './modules/property-sets/router';
 import { watchPropertySetChanges } from './modules/property-sets/snapshot';
 import { evaluateRouter, pressureRouter } from './modules/evaluate/router';
+import { libraryRouter } from './modules/library/router';
+import { referencesRouter } from './modules/references/router';
+import { adminRouter } from './modules/admin/router';
 
 export interface AppHandle {
   app: Express;
@@ -90,6 +93,9 @@ export function createApp(): AppHandle {
   api.use('/materials', materialsRouter());
   api.use('/evaluate', evaluateRouter());
   api.use('/pressure', pressureRouter());
+  api.use('/library', libraryRouter());
+  api.use('/references', referencesRouter());
+  api.use('/admin', adminRouter());
   api.use(notFoundApi);
 
   app.use('/api', api);

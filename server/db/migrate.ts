@@ -2,9 +2,13 @@ import { Umzug, SequelizeStorage } from 'umzug';
 import type { QueryInterface } from 'sequelize';
 import { sequelize } from './sequelize';
 import * as m0001 from './migrations/0001-initial';
+import * as m0002 from './migrations/0002-library-desk';
 
 // Listed explicitly: vitest cannot glob-load .ts migrations. Add new ones at the end.
-const MIGRATIONS = [{ name: '0001-initial', ...m0001 }];
+const MIGRATIONS = [
+  { name: '0001-initial', ...m0001 },
+  { name: '0002-library-desk', ...m0002 },
+];
 
 export function migrator() {
   const db = sequelize();

@@ -169,6 +169,11 @@ export interface ReferenceDto {
   identifier: string | null;
   location: string | null;
   note: string | null;
+  /**
+   * True when an uploaded document (PDF) can be downloaded from /api/references/:id/document.
+   * Optional so older fixtures need not carry it; the server should always send it.
+   */
+  hasDocument?: boolean;
 }
 
 export interface MaterialDto {
@@ -210,6 +215,11 @@ export interface PropertySetDto {
   approvedBy: UserRefDto | null;
   publishedAt: string | null;
   updatedAt: string;
+  /**
+   * The set that replaced this one (a retired set superseded by a newer version), else null.
+   * Always sent by the server; optional only so hand-built fixtures need not carry it.
+   */
+  supersededById?: number | null;
 }
 
 export interface PropertySetListDto {

@@ -52,6 +52,12 @@ export class Reference extends Model<InferAttributes<Reference>, InferCreationAt
   declare location: string | null;
   declare note: string | null;
   declare createdById: ForeignKey<User['id']> | null;
+  /** Object-store key of the uploaded document (null: none); name, size and time go with it. */
+  declare documentKey: CreationOptional<string | null>;
+  declare documentName: CreationOptional<string | null>;
+  declare documentSize: CreationOptional<number | null>;
+  declare documentUploadedAt: CreationOptional<Date | null>;
+  declare lockVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 }
@@ -86,6 +92,10 @@ export class PropertySet extends Model<InferAttributes<PropertySet>, InferCreati
   declare approvedById: ForeignKey<User['id']> | null;
   declare publishedAt: Date | null;
   declare retiredAt: Date | null;
+  /** The reviewer's comment when a set in review was sent back to its author. */
+  declare returnedComment: CreationOptional<string | null>;
+  declare lastEditedById: CreationOptional<number | null>;
+  declare submittedAt: CreationOptional<Date | null>;
   declare lockVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -94,6 +104,7 @@ export class PropertySet extends Model<InferAttributes<PropertySet>, InferCreati
   declare reference?: NonAttribute<Reference | null>;
   declare draftedBy?: NonAttribute<User | null>;
   declare approvedBy?: NonAttribute<User | null>;
+  declare lastEditedBy?: NonAttribute<User | null>;
 }
 
 export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreationAttributes<AuditEntry>> {
@@ -105,6 +116,8 @@ export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreation
   declare before: unknown;
   declare after: unknown;
   declare createdAt: CreationOptional<Date>;
+
+  declare actor?: NonAttribute<User | null>;
 }
 
 const timestamps = {
@@ -154,9 +167,21 @@ export function initModels(): void {
       location: { type: DataTypes.TEXT },
       note: { type: DataTypes.TEXT },
       createdById: { type: DataTypes.INTEGER },
+      documentKey: { type: DataTypes.TEXT },
+      documentName: { type: DataTypes.TEXT },
+      // BIGINT comes back from pg as a string; documents are at most 20 MB, so a number is exact.
+      documentSize: {
+        type: DataTypes.BIGINT,
+        get(this: Reference) {
+          const raw = this.getDataValue('documentSize') as unknown;
+          return raw == null ? null : Number(raw);
+        },
+      },
+      documentUploadedAt: { type: DataTypes.DATE },
+      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       ...timestamps,
     },
-    { sequelize: db, tableName: 'data_references' },
+    { sequelize: db, tableName: 'data_references', version: 'lockVersion' },
   );
   PropertySet.init(
     {
@@ -189,6 +214,9 @@ export function initModels(): void {
       approvedById: { type: DataTypes.INTEGER },
       publishedAt: { type: DataTypes.DATE },
       retiredAt: { type: DataTypes.DATE },
+      returnedComment: { type: DataTypes.TEXT },
+      lastEditedById: { type: DataTypes.INTEGER },
+      submittedAt: { type: DataTypes.DATE },
       lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       ...timestamps,
     },
@@ -213,5 +241,7 @@ export function initModels(): void {
   PropertySet.belongsTo(Reference, { as: 'reference', foreignKey: 'referenceId' });
   PropertySet.belongsTo(User, { as: 'draftedBy', foreignKey: 'draftedById' });
   PropertySet.belongsTo(User, { as: 'approvedBy', foreignKey: 'approvedById' });
+  PropertySet.belongsTo(User, { as: 'lastEditedBy', foreignKey: 'lastEditedById' });
+  AuditEntry.belongsTo(User, { as: 'actor', foreignKey: 'actorId', constraints: false });
   initialised = true;
 }

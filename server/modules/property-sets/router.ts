@@ -3,8 +3,9 @@ import { z } from 'zod';
 import { authorize } from '../../auth/authorize';
 import { can } from '../../../shared/schemas/auth';
 import { propertySetQuerySchema } from '../../../shared/schemas/catalogue';
+import { materialCreateSchema } from '../../../shared/schemas/library';
 import { parse, parseId } from '../../middleware/validate';
-import { getMaterial, getPropertySet, listPropertySets } from './service';
+import { createMaterial, getMaterial, getPropertySet, listMaterials, listPropertySets } from './service';
 
 const pageSchema = z.object({
   limit: z.coerce.number().int().min(1).max(5000).default(1000),
@@ -27,8 +28,18 @@ export function propertySetsRouter(): Router {
   return router;
 }
 
+const noQuery = z.strictObject({});
+
 export function materialsRouter(): Router {
   const router = Router();
+  router.get('/', authorize('catalogue:read'), async (req, res) => {
+    parse(noQuery, req.query, 'query');
+    res.json(await listMaterials());
+  });
+  router.post('/', authorize('catalogue:draft'), async (req, res) => {
+    const input = parse(materialCreateSchema, req.body ?? {}, 'material');
+    res.status(201).json(await createMaterial(input, req.user!.id));
+  });
   router.get('/:id', authorize('catalogue:read'), async (req, res) => {
     res.json(await getMaterial(parseId(req.params.id), callerOf(req)));
   });

@@ -1,14 +1,18 @@
-import { Op, type WhereOptions, type Includeable } from 'sequelize';
+import { Op, UniqueConstraintError, type Transaction, type WhereOptions, type Includeable } from 'sequelize';
 import { Material, PropertySet, Reference, User } from '../../db/models';
+import { sequelize } from '../../db/sequelize';
+import { recordAudit } from '../../services/audit';
+import type { LibrarySetDto } from '../../../shared/schemas/library';
 import type {
   MaterialDto,
+  MaterialInput,
   PropertySetDto,
   PropertySetListDto,
   PropertySetQuery,
   PropertySetStatus,
   ReferenceDto,
 } from '../../../shared/schemas/catalogue';
-import { forbidden, notFound } from '../../errors';
+import { conflict, forbidden, notFound } from '../../errors';
 
 /** Statuses a caller may read: drafts and reviews stay on the library desk. */
 export function readableStatuses(canDraft: boolean): PropertySetStatus[] {
@@ -29,6 +33,7 @@ export function referenceDto(r: Reference): ReferenceDto {
     identifier: r.identifier,
     location: r.location,
     note: r.note,
+    hasDocument: !!r.documentKey,
   };
 }
 
@@ -61,17 +66,33 @@ export function propertySetDto(ps: PropertySet): PropertySetDto {
     approvedBy: userRef(ps.approvedBy),
     publishedAt: ps.publishedAt ? ps.publishedAt.toISOString() : null,
     updatedAt: ps.updatedAt.toISOString(),
+    supersededById: ps.supersededById ?? null,
+  };
+}
+
+/** What a librarian sees on the desk: the public DTO plus lock, lineage and review fields. */
+export function librarySetDto(ps: PropertySet): LibrarySetDto {
+  return {
+    ...propertySetDto(ps),
+    lockVersion: ps.lockVersion,
+    lineageId: ps.lineageId,
+    supersedesId: ps.supersedesId,
+    supersededById: ps.supersededById ?? null,
+    returnedComment: ps.returnedComment ?? null,
+    lastEditedBy: userRef(ps.lastEditedBy),
+    submittedAt: ps.submittedAt ? ps.submittedAt.toISOString() : null,
   };
 }
 
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
-function include(materialWhere?: WhereOptions<Material>): Includeable[] {
+export function include(materialWhere?: WhereOptions<Material>): Includeable[] {
   return [
     { model: Material, as: 'material', required: true, ...(materialWhere ? { where: materialWhere } : {}) },
     { model: Reference, as: 'reference' },
     { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
     { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
+    { model: User, as: 'lastEditedBy', attributes: ['id', 'name'] },
   ];
 }
 
@@ -146,4 +167,40 @@ export async function getMaterial(id: number, caller: Caller): Promise<MaterialD
   });
   if (!sets.length && !caller.canDraft) throw notFound('Material');
   return { ...materialDto(material), propertySets: sets.map(propertySetDto) };
+}
+
+/** All materials, by family then name. */
+export async function listMaterials(): Promise<{ items: MaterialDto[]; total: number }> {
+  const rows = await Material.findAll({ order: [['family', 'ASC'], ['name', 'ASC']] });
+  return { items: rows.map(materialDto), total: rows.length };
+}
+
+/** Material names are unique regardless of case (materials_name_lower_idx). */
+export const duplicateMaterial = (name: string) =>
+  conflict(`A material named "${name}" already exists. Choose it instead of creating a new one.`, 'duplicate');
+
+/** Creates a material inside the caller's transaction; 409 "duplicate" on a name clash (any case). */
+export async function createMaterialIn(transaction: Transaction, input: MaterialInput, actorId: number): Promise<Material> {
+  const clash = await Material.findOne({
+    where: sequelize().where(sequelize().fn('lower', sequelize().col('name')), input.name.toLowerCase()),
+    transaction,
+  });
+  if (clash) throw duplicateMaterial(clash.name);
+  try {
+    const material = await Material.create(
+      { name: input.name, family: input.family, transparent: input.transparent, description: input.description ?? null },
+      { transaction },
+    );
+    await recordAudit(transaction, { actorId, action: 'create', entityType: 'material', entityId: material.id, before: null, after: materialDto(material) });
+    return material;
+  } catch (err) {
+    // Two librarians creating the same name at once: the unique index decides.
+    if (err instanceof UniqueConstraintError) throw duplicateMaterial(input.name);
+    throw err;
+  }
+}
+
+export async function createMaterial(input: MaterialInput, actorId: number): Promise<MaterialDto> {
+  const material = await sequelize().transaction((transaction) => createMaterialIn(transaction, input, actorId));
+  return materialDto(material);
 }

@@ -1,0 +1,25 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { CAUGHT_MAIL_ID } from '../../services/mail';
+import { authorize } from '../../auth/authorize';
+import { parse } from '../../middleware/validate';
+import { auditQuerySchema, caughtMailQuerySchema } from '../../../shared/schemas/library';
+import { getMail, listAudit, listMail } from './service';
+
+const mailIdSchema = z.strictObject({ id: z.string().regex(CAUGHT_MAIL_ID, 'is not a message id') });
+
+/** /api/admin: the audit log and caught mail (admins only, by permission). */
+export function adminRouter(): Router {
+  const router = Router();
+  router.get('/audit', authorize('audit:read'), async (req, res) => {
+    res.json(await listAudit(parse(auditQuerySchema, req.query, 'query')));
+  });
+  router.get('/mail', authorize('mail:read'), async (req, res) => {
+    res.json(await listMail(parse(caughtMailQuerySchema, req.query, 'query')));
+  });
+  router.get('/mail/:id', authorize('mail:read'), async (req, res) => {
+    const { id } = parse(mailIdSchema, { id: req.params.id }, 'address');
+    res.json(await getMail(id));
+  });
+  return router;
+}

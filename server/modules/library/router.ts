@@ -1,0 +1,95 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { authorize } from '../../auth/authorize';
+import { parse, parseId } from '../../middleware/validate';
+import { singleFile } from '../../middleware/upload';
+import {
+  draftInputSchema,
+  draftUpdateSchema,
+  IMPORT_MAX_BYTES,
+  libraryQueueQuerySchema,
+  retireSchema,
+  returnSchema,
+  transitionSchema,
+} from '../../../shared/schemas/library';
+import {
+  approveSet,
+  createDraft,
+  getChanges,
+  getLibrarySet,
+  listQueue,
+  returnSet,
+  retireSet,
+  reviseSet,
+  submitSet,
+  updateDraft,
+  type Actor,
+} from './service';
+import { previewImport, runImport, templateCsv } from './csv-import';
+
+const actor = (req: Express.Request): Actor => ({ id: req.user!.id, name: req.user!.name });
+const body = (req: Express.Request & { body?: unknown }) => req.body ?? {};
+const noQuery = z.strictObject({});
+
+/** The library desk: /api/library/sets… and /api/library/import… */
+export function libraryRouter(): Router {
+  const router = Router();
+
+  router.get('/sets', authorize('catalogue:draft'), async (req, res) => {
+    res.json(await listQueue(parse(libraryQueueQuerySchema, req.query, 'query'), actor(req)));
+  });
+  router.get('/sets/:id', authorize('catalogue:draft'), async (req, res) => {
+    res.json(await getLibrarySet(parseId(req.params.id)));
+  });
+  router.get('/sets/:id/changes', authorize('catalogue:draft'), async (req, res) => {
+    res.json(await getChanges(parseId(req.params.id)));
+  });
+  router.post('/sets', authorize('catalogue:draft'), async (req, res) => {
+    res.status(201).json(await createDraft(parse(draftInputSchema, body(req), 'draft'), actor(req)));
+  });
+  router.put('/sets/:id', authorize('catalogue:draft'), async (req, res) => {
+    const id = parseId(req.params.id);
+    const { lockVersion, draft } = parse(draftUpdateSchema, body(req), 'draft');
+    res.json(await updateDraft(id, lockVersion, draft, actor(req)));
+  });
+  router.post('/sets/:id/submit', authorize('catalogue:draft'), async (req, res) => {
+    const id = parseId(req.params.id);
+    const { lockVersion } = parse(transitionSchema, body(req));
+    res.json(await submitSet(id, lockVersion, actor(req)));
+  });
+  router.post('/sets/:id/approve', authorize('catalogue:approve'), async (req, res) => {
+    const id = parseId(req.params.id);
+    const { lockVersion } = parse(transitionSchema, body(req));
+    res.json(await approveSet(id, lockVersion, actor(req)));
+  });
+  router.post('/sets/:id/return', authorize('catalogue:approve'), async (req, res) => {
+    const id = parseId(req.params.id);
+    const { lockVersion, comment } = parse(returnSchema, body(req));
+    res.json(await returnSet(id, lockVersion, comment, actor(req)));
+  });
+  router.post('/sets/:id/revise', authorize('catalogue:draft'), async (req, res) => {
+    const id = parseId(req.params.id);
+    const { lockVersion } = parse(transitionSchema, body(req));
+    res.status(201).json(await reviseSet(id, lockVersion, actor(req)));
+  });
+  router.post('/sets/:id/retire', authorize('catalogue:approve'), async (req, res) => {
+    const id = parseId(req.params.id);
+    const { lockVersion, reason } = parse(retireSchema, body(req));
+    res.json(await retireSet(id, lockVersion, reason, actor(req)));
+  });
+
+  router.get('/import/template.csv', authorize('catalogue:draft'), (req, res) => {
+    parse(noQuery, req.query, 'query');
+    res.setHeader('Content-Type', 'text/csv; charset=utf-8');
+    res.setHeader('Content-Disposition', 'attachment; filename="isobath-property-sets-template.csv"');
+    res.send(templateCsv());
+  });
+  router.post('/import/preview', authorize('catalogue:draft'), singleFile('file', IMPORT_MAX_BYTES), async (req, res) => {
+    res.json(await previewImport(req.file!));
+  });
+  router.post('/import', authorize('catalogue:draft'), singleFile('file', IMPORT_MAX_BYTES), async (req, res) => {
+    res.status(201).json(await runImport(req.file!, actor(req)));
+  });
+
+  return router;
+}
