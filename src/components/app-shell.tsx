@@ -9,6 +9,8 @@ import { Logo } from './logo';
 export const SECTIONS: { to: string; label: string; permission: Permission }[] = [
   { to: '/catalogue', label: 'Catalogue', permission: 'catalogue:read' },
   { to: '/evaluate', label: 'Evaluate', permission: 'evaluate' },
+  { to: '/library', label: 'Library desk', permission: 'catalogue:draft' },
+  { to: '/admin', label: 'Admin', permission: 'audit:read' },
 ];
 
 function UnitSwitch() {

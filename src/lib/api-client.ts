@@ -1,4 +1,7 @@
-/** The only module that calls fetch. Errors arrive as ApiError with the server's field errors. */
+/**
+ * The only module that talks to the server (fetch, and XMLHttpRequest for uploads that report
+ * progress). Errors arrive as ApiError with the server's field errors.
+ */
 export class ApiError extends Error {
   constructor(
     readonly status: number,
@@ -28,6 +31,15 @@ export function setUnauthenticatedHandler(fn: () => void): void {
   onUnauthenticated = fn;
 }
 
+type ErrorBody = { error?: { code?: string; message?: string; fields?: Record<string, string> } } | null;
+
+function apiErrorFrom(status: number, path: string, data: ErrorBody): ApiError {
+  const err = data?.error;
+  if (status === 401 && path !== '/auth/login' && path !== '/auth/me') onUnauthenticated?.();
+  if (status === 413 && !err) return new ApiError(413, 'too_large', 'The file is larger than the server accepts.');
+  return new ApiError(status, err?.code ?? 'http_error', err?.message ?? `The server answered ${status}.`, err?.fields ?? {});
+}
+
 async function request<T>(method: string, path: string, body?: unknown, query?: Query): Promise<T> {
   let res: Response;
   try {
@@ -42,12 +54,50 @@ async function request<T>(method: string, path: string, body?: unknown, query?: 
   }
   if (res.status === 204) return undefined as T;
   const data = await res.json().catch(() => null);
-  if (!res.ok) {
-    const err = (data as { error?: { code?: string; message?: string; fields?: Record<string, string> } } | null)?.error;
-    if (res.status === 401 && path !== '/auth/login' && path !== '/auth/me') onUnauthenticated?.();
-    throw new ApiError(res.status, err?.code ?? 'http_error', err?.message ?? `The server answered ${res.status}.`, err?.fields ?? {});
-  }
+  if (!res.ok) throw apiErrorFrom(res.status, path, data as ErrorBody);
   return data as T;
+}
+
+export interface UploadOptions {
+  /** Bytes sent so far of the whole request body. */
+  onProgress?: (loaded: number, total: number) => void;
+  /** The body has been sent; the server is now working on it. */
+  onSent?: () => void;
+  signal?: AbortSignal;
+}
+
+/**
+ * POSTs a multipart form with upload progress. fetch cannot report how much of a request body
+ * has been sent, so this one case uses XMLHttpRequest.
+ */
+export function upload<T>(path: string, form: FormData, options: UploadOptions = {}): Promise<T> {
+  return new Promise<T>((resolve, reject) => {
+    const xhr = new XMLHttpRequest();
+    xhr.open('POST', `/api${path}`);
+    xhr.setRequestHeader('accept', 'application/json');
+    xhr.responseType = 'text';
+    xhr.upload.onprogress = (e) => {
+      if (e.lengthComputable) options.onProgress?.(e.loaded, e.total);
+    };
+    xhr.upload.onload = () => options.onSent?.();
+    xhr.onload = () => {
+      let data: unknown = null;
+      try {
+        data = xhr.responseText ? JSON.parse(xhr.responseText) : null;
+      } catch {
+        data = null;
+      }
+      if (xhr.status >= 200 && xhr.status < 300) resolve(data as T);
+      else reject(apiErrorFrom(xhr.status, path, data as ErrorBody));
+    };
+    xhr.onerror = () => reject(new ApiError(0, 'network', 'The upload was interrupted. Check your connection and try again.'));
+    xhr.onabort = () => reject(new ApiError(0, 'aborted', 'The upload was cancelled.'));
+    if (options.signal) {
+      if (options.signal.aborted) return reject(new ApiError(0, 'aborted', 'The upload was cancelled.'));
+      options.signal.addEventListener('abort', () => xhr.abort(), { once: true });
+    }
+    xhr.send(form);
+  });
 }
 
 export const api = {
@@ -56,4 +106,5 @@ export const api = {
   put: <T>(path: string, body?: unknown) => request<T>('PUT', path, body ?? {}),
   patch: <T>(path: string, body?: unknown) => request<T>('PATCH', path, body ?? {}),
   delete: <T>(path: string) => request<T>('DELETE', path),
+  upload,
 };

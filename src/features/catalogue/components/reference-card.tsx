@@ -23,6 +23,12 @@ export function ReferenceCard({ reference }: { reference: ReferenceDto | null })
         {reference.location ? ` — ${reference.location}` : ''}
       </p>
       {reference.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{reference.note}</p> : null}
+      {reference.hasDocument ? (
+        // A plain link: the browser downloads the PDF with the session cookie.
+        <a href={`/api/references/${reference.id}/document`} className="no-print mt-1 font-bold text-sounding underline">
+          Download source PDF
+        </a>
+      ) : null}
     </div>
   );
 }

@@ -1,0 +1,26 @@
+import { describe, expect, it } from 'vitest';
+import { changedKeys, entityHref, entityLabel, formatState } from './audit-format';
+
+describe('audit log formatting', () => {
+  it('lists the top-level fields that changed, in order', () => {
+    expect(changedKeys({ status: 'in-review', lockVersion: 3, condition: 'annealed' }, { status: 'published', lockVersion: 4, condition: 'annealed' })).toEqual([
+      'lockVersion',
+      'status',
+    ]);
+    expect(changedKeys(null, { status: 'draft' })).toEqual([]);
+    expect(changedKeys({ a: [1, 2] }, { a: [1, 2], b: null })).toEqual(['b']);
+  });
+
+  it('says “nothing” for a missing side and indents the rest', () => {
+    expect(formatState(null)).toBe('nothing');
+    expect(formatState({ a: 1 })).toBe('{\n  "a": 1\n}');
+  });
+
+  it('links property sets and materials, and names entity types', () => {
+    expect(entityHref('property-set', '12')).toBe('/library/sets/12');
+    expect(entityHref('import', '3')).toBeNull();
+    expect(entityHref('material', null)).toBeNull();
+    expect(entityLabel('import')).toBe('CSV import');
+    expect(entityLabel('widget')).toBe('widget');
+  });
+});

@@ -1,0 +1,33 @@
+/** GET /api/library/sets filters: no status = drafts and in-review; mine = drafted or last edited by me. */
+export interface LibraryQueueFilters {
+  status?: 'draft' | 'in-review';
+  mine?: boolean;
+}
+
+/** Query keys of the library desk: one factory per kind of data. */
+export const librarySetKeys = {
+  all: ['library-sets'] as const,
+  lists: () => [...librarySetKeys.all, 'list'] as const,
+  list: (filters: LibraryQueueFilters) => [...librarySetKeys.lists(), filters] as const,
+  detail: (id: number) => [...librarySetKeys.all, 'detail', id] as const,
+  changes: (id: number) => [...librarySetKeys.all, 'changes', id] as const,
+  published: () => [...librarySetKeys.all, 'published'] as const,
+};
+
+export const libraryMaterialKeys = {
+  all: ['library-materials'] as const,
+  list: () => [...libraryMaterialKeys.all, 'list'] as const,
+};
+
+export const referenceKeys = {
+  all: ['references'] as const,
+  lists: () => [...referenceKeys.all, 'list'] as const,
+  list: (q: string) => [...referenceKeys.lists(), { q }] as const,
+  detail: (id: number) => [...referenceKeys.all, 'detail', id] as const,
+};
+
+/**
+ * Roots of the catalogue feature's keys (its list and material pages). A desk step can change
+ * what they show, so they are invalidated by prefix without importing across features.
+ */
+export const CATALOGUE_KEY_ROOTS = [['property-sets'], ['materials']] as const;

@@ -1,0 +1,221 @@
+import { useEffect, useMemo, useState, type ReactNode } from 'react';
+import { Link, useLocation, useNavigate } from 'react-router-dom';
+import type { LibrarySetDto } from '@shared/schemas/library';
+import type { SessionUserDto } from '@shared/schemas/auth';
+import { TextField } from '@/components/ui/field';
+import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import { useLibrarySets, usePublishedSets } from '../api/library-sets';
+import { STATUS_LABELS, STATUS_TONE, formatDateTime } from '../labels';
+import { isOwnWork } from './review-panel';
+import { LinkButton } from './link-button';
+
+const setLink = (s: { id: number; material: { name: string }; condition: string }) => (
+  <Link to={`/library/sets/${s.id}`} className="font-bold text-sounding hover:underline">
+    {s.material.name}
+    <span className="block text-xs font-normal text-ink-soft">{s.condition}</span>
+  </Link>
+);
+
+function SetTable({ label, items, columns }: { label: string; items: LibrarySetDto[]; columns: { header: string; cell: (s: LibrarySetDto) => ReactNode }[] }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label={label}>
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th scope="col" className="py-1 pr-3">Material and condition</th>
+            {columns.map((c) => (
+              <th key={c.header} scope="col" className="py-1 pr-3">
+                {c.header}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {items.map((s) => (
+            <tr key={s.id} className="border-t border-chart-line/60 align-top">
+              <td className="py-1.5 pr-3">{setLink(s)}</td>
+              {columns.map((c) => (
+                <td key={c.header} className="py-1.5 pr-3">
+                  {c.cell(s)}
+                </td>
+              ))}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function PublishedSearch() {
+  const [q, setQ] = useState('');
+  const term = q.trim().toLowerCase();
+  const published = usePublishedSets(term.length >= 2);
+  const matches = useMemo(
+    () =>
+      term.length < 2
+        ? []
+        : (published.data?.items ?? [])
+            .filter((s) => [s.material.name, s.condition, s.reference?.title ?? '', s.reference?.identifier ?? ''].some((t) => t.toLowerCase().includes(term)))
+            .slice(0, 8),
+    [published.data, term],
+  );
+  return (
+    <Panel title="Revise a published set">
+      <div className="flex flex-col gap-3">
+        <TextField label="Find a published set" type="search" value={q} onChange={(e) => setQ(e.target.value)} hint="Type two letters or more of the material, condition or source" />
+        {term.length < 2 ? null : published.isPending ? (
+          <Spinner label="Searching…" />
+        ) : published.isError ? (
+          <ErrorState error={published.error} onRetry={() => void published.refetch()} />
+        ) : matches.length === 0 ? (
+          <p className="text-sm text-ink-soft">No published set matches “{q.trim()}”.</p>
+        ) : (
+          <ul className="flex flex-col gap-1" aria-label="Published sets found">
+            {matches.map((s) => (
+              <li key={s.id} className="flex items-baseline justify-between gap-3 text-sm">
+                {setLink(s)}
+                <span className="shrink-0 text-xs text-ink-soft">version {s.version}</span>
+              </li>
+            ))}
+          </ul>
+        )}
+      </div>
+    </Panel>
+  );
+}
+
+/** The library desk: what the caller is drafting, what came back, and what waits for their review. */
+export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
+  const location = useLocation();
+  const navigate = useNavigate();
+  // The notice is for this arrival only; a reload should not show it again.
+  const [notice] = useState(() => (location.state as { notice?: string } | null)?.notice);
+  useEffect(() => {
+    if ((location.state as { notice?: string } | null)?.notice) navigate(location.pathname, { replace: true, state: null });
+  }, [location, navigate]);
+  const mine = useLibrarySets({ mine: true });
+  const queue = useLibrarySets({ status: 'in-review' });
+
+  const own = mine.data?.items ?? [];
+  const returned = own.filter((s) => s.status === 'draft' && s.returnedComment);
+  const drafts = own.filter((s) => s.status === 'draft' && !s.returnedComment);
+  const waiting = own.filter((s) => s.status === 'in-review');
+  const toReview = me ? (queue.data?.items ?? []).filter((s) => !isOwnWork(s, me)) : [];
+
+  return (
+    <div className="flex flex-col gap-5">
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 className="text-2xl font-bold">Library desk</h1>
+          <p className="text-sm text-ink-soft">Draft, check and publish cited property sets. Nothing reaches the catalogue without a second librarian’s approval.</p>
+        </div>
+        <nav aria-label="Library desk" className="flex flex-wrap gap-2">
+          <LinkButton to="/library/sets/new">New property set</LinkButton>
+          <LinkButton to="/library/import" tone="quiet">
+            Import CSV
+          </LinkButton>
+          <LinkButton to="/library/references" tone="quiet">
+            References
+          </LinkButton>
+        </nav>
+      </div>
+
+      {notice ? (
+        <p role="status" className="rounded-plate border border-verdict-pass/30 bg-white px-3 py-2 text-sm text-verdict-pass">
+          {notice}
+        </p>
+      ) : null}
+
+      <div className="grid gap-5 xl:grid-cols-2">
+        <div className="flex flex-col gap-5">
+          {mine.isPending ? (
+            <Spinner label="Loading your drafts…" />
+          ) : mine.isError ? (
+            <ErrorState error={mine.error} onRetry={() => void mine.refetch()} />
+          ) : (
+            <>
+              {returned.length ? (
+                <Panel title={`Returned to you (${returned.length})`}>
+                  <SetTable
+                    label="Returned to you"
+                    items={returned}
+                    columns={[
+                      { header: 'Reviewer’s comment', cell: (s) => <p className="whitespace-pre-line">{s.returnedComment}</p> },
+                      { header: 'Version', cell: (s) => s.version },
+                    ]}
+                  />
+                </Panel>
+              ) : null}
+              <Panel title={`Your drafts (${drafts.length})`}>
+                {drafts.length ? (
+                  <SetTable
+                    label="Your drafts"
+                    items={drafts}
+                    columns={[
+                      { header: 'Version', cell: (s) => s.version },
+                      { header: 'Last saved', cell: (s) => formatDateTime(s.updatedAt) },
+                      { header: 'Source', cell: (s) => (s.reference ? <span className="text-xs">{s.reference.title}</span> : <Tag tone="fail">none yet</Tag>) },
+                    ]}
+                  />
+                ) : (
+                  <EmptyState
+                    title="No drafts on your desk"
+                    action={
+                      <div className="flex justify-center gap-2">
+                        <LinkButton to="/library/sets/new">New property set</LinkButton>
+                        <LinkButton to="/library/import" tone="quiet">
+                          Import CSV
+                        </LinkButton>
+                      </div>
+                    }
+                  >
+                    Start a new property set from its source, import many at once from a CSV file, or revise a published set below.
+                  </EmptyState>
+                )}
+              </Panel>
+              {waiting.length ? (
+                <Panel title={`Yours, waiting for review (${waiting.length})`}>
+                  <SetTable
+                    label="Yours, waiting for review"
+                    items={waiting}
+                    columns={[
+                      { header: 'Submitted', cell: (s) => formatDateTime(s.submittedAt) },
+                      { header: 'Status', cell: (s) => <Tag tone={STATUS_TONE[s.status]}>{STATUS_LABELS[s.status]}</Tag> },
+                    ]}
+                  />
+                  <p className="mt-2 text-xs text-ink-soft">Another librarian must approve these; you are told by e-mail when they are approved or returned.</p>
+                </Panel>
+              ) : null}
+            </>
+          )}
+        </div>
+
+        <div className="flex flex-col gap-5">
+          <Panel title={`Review queue (${toReview.length})`}>
+            {queue.isPending ? (
+              <Spinner label="Loading the review queue…" />
+            ) : queue.isError ? (
+              <ErrorState error={queue.error} onRetry={() => void queue.refetch()} />
+            ) : toReview.length ? (
+              <SetTable
+                label="Review queue"
+                items={toReview}
+                columns={[
+                  { header: 'Submitted by', cell: (s) => s.lastEditedBy?.name ?? s.draftedBy?.name ?? '—' },
+                  { header: 'When', cell: (s) => formatDateTime(s.submittedAt) },
+                  { header: 'Version', cell: (s) => s.version },
+                ]}
+              />
+            ) : (
+              <EmptyState title="Nothing waits for your review">
+                When another librarian submits a set, it appears here and you get an e-mail. Your own submissions go to someone else.
+              </EmptyState>
+            )}
+          </Panel>
+          <PublishedSearch />
+        </div>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,10 @@
+import { Link, type LinkProps } from 'react-router-dom';
+
+/** A navigation link that looks like a button (navigation stays a link for the keyboard and the browser). */
+export function LinkButton({ tone = 'primary', className = '', ...props }: LinkProps & { tone?: 'primary' | 'quiet' }) {
+  const tones = {
+    primary: 'bg-sounding text-white hover:bg-sounding-dark',
+    quiet: 'bg-chart-raised text-ink border border-chart-line hover:bg-chart-deep',
+  };
+  return <Link className={`inline-flex items-center justify-center gap-2 rounded-plate px-3 py-1.5 text-sm font-bold ${tones[tone]} ${className}`} {...props} />;
+}
