@@ -8,8 +8,6 @@ ensure_deps
 bash scripts/db.sh up
 export DATABASE_URL="${DATABASE_URL:-$(bash scripts/db.sh url isobath)}"
 export NODE_ENV="${NODE_ENV:-development}"
-node_modules/.bin/tsx server/db/cli.ts setup
-ensure_client_build
 
 FAKES_PID=""
 cleanup() { [ -n "$FAKES_PID" ] && kill "$FAKES_PID" 2>/dev/null && wait "$FAKES_PID" 2>/dev/null; true; }
@@ -17,6 +15,10 @@ trap cleanup EXIT
 if [ "$NODE_ENV" != production ] && [ -z "${S3_ENDPOINT:-}" ]; then
   start_fakes
 fi
+
+# Migrate and seed (the demo project's sign-off sends its mail to the catcher started above).
+node_modules/.bin/tsx server/db/cli.ts setup
+ensure_client_build
 
 node_modules/.bin/tsx server/index.ts &
 APP_PID=$!

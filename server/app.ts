@@ -19,6 +19,10 @@ import { evaluateRouter, pressureRouter } from './modules/evaluate/router';
 import { libraryRouter } from './modules/library/router';
 import { referencesRouter } from './modules/references/router';
 import { adminRouter } from './modules/admin/router';
+import { loadCasesRouter, peopleRouter, projectsRouter, recordsRouter, shortlistsRouter } from './modules/projects/router';
+import { accountRouter, adminUsersRouter } from './modules/users/router';
+import { mountApi } from './openapi/route-table';
+import { openApiRouter } from './openapi/router';
 
 export interface AppHandle {
   app: Express;
@@ -85,17 +89,27 @@ export function createApp(): AppHandle {
   );
   api.use(passport.session());
 
-  // Public: sign-in and health. Everything after requireSignIn needs a session.
-  api.use('/auth', authRouter());
-  api.use('/health', healthRouter());
+  // Public: sign-in, account recovery, health and the API description. Everything after
+  // requireSignIn needs a session, and every route names its permission (route-table.ts reads them).
+  const mount = (base: string, router: ReturnType<typeof authRouter>) => mountApi(app, api, base, router);
+  mount('/auth', authRouter());
+  mount('/auth', accountRouter());
+  mount('/health', healthRouter());
+  mount('/openapi.json', openApiRouter(app));
   api.use(requireSignIn);
-  api.use('/property-sets', propertySetsRouter());
-  api.use('/materials', materialsRouter());
-  api.use('/evaluate', evaluateRouter());
-  api.use('/pressure', pressureRouter());
-  api.use('/library', libraryRouter());
-  api.use('/references', referencesRouter());
-  api.use('/admin', adminRouter());
+  mount('/property-sets', propertySetsRouter());
+  mount('/materials', materialsRouter());
+  mount('/evaluate', evaluateRouter());
+  mount('/pressure', pressureRouter());
+  mount('/library', libraryRouter());
+  mount('/references', referencesRouter());
+  mount('/admin', adminRouter());
+  mount('/admin', adminUsersRouter());
+  mount('/projects', projectsRouter());
+  mount('/people', peopleRouter());
+  mount('/load-cases', loadCasesRouter());
+  mount('/shortlists', shortlistsRouter());
+  mount('/records', recordsRouter());
   api.use(notFoundApi);
 
   app.use('/api', api);

@@ -13,7 +13,7 @@ async function main() {
   } else if (command === 'setup' || command === 'seed') {
     const r = await setupDatabase();
     console.log(
-      `[isobath] database ready: ${r.migrations.length} migration(s) applied, ${r.propertySets} property set(s) and ${r.demoUsers} demo account(s) seeded`,
+      `[isobath] database ready: ${r.migrations.length} migration(s) applied, ${r.propertySets} property set(s) and ${r.demoUsers} demo account(s) seeded${r.demoProject ? ', Harrow Sound demo projects created' : ''}`,
     );
   } else {
     console.error('usage: tsx server/db/cli.ts setup|migrate|seed');

@@ -4,37 +4,58 @@ import { migrate } from './migrate';
 import { sequelize } from './sequelize';
 import { seedCatalogue } from './seeders/catalogue';
 import { seedDemoUsers } from './seeders/demo';
+import { seedDemoProject } from './seeders/demo-project';
 import { invalidateCatalogueSnapshot } from '../modules/property-sets/snapshot';
 
 export interface SetupResult {
   migrations: string[];
   propertySets: number;
   demoUsers: number;
+  demoProject: boolean;
 }
 
 /**
  * Migrate, then seed the catalogue (on an empty database) and, outside production, the
  * demo accounts. Idempotent: a second run changes nothing. One transaction for the seed.
  */
-export async function setupDatabase(options: { demo?: boolean } = {}): Promise<SetupResult> {
+export async function setupDatabase(options: { demo?: boolean; demoProject?: boolean } = {}): Promise<SetupResult> {
   initModels();
   const migrations = await migrate();
   const demo = options.demo ?? (env().NODE_ENV !== 'production' && process.env.ISOBATH_DEMO !== 'false');
-  return sequelize().transaction(async (transaction) => {
+  const seeded = await sequelize().transaction(async (transaction) => {
     const propertySets = await seedCatalogue(transaction);
     const demoUsers = demo ? await seedDemoUsers(transaction) : 0;
     return { migrations, propertySets, demoUsers };
   });
+  // The demo project goes through the projects services (each step its own transaction),
+  // so its design record is a real one.
+  const demoProject = demo && (options.demoProject ?? true) ? await seedDemoProject() : false;
+  return { ...seeded, demoProject };
 }
 
-const TABLES = ['audit_log', 'session', 'property_sets', 'data_references', 'materials', 'users'];
+const TABLES = [
+  'audit_log',
+  'session',
+  'password_resets',
+  'invitations',
+  'design_records',
+  'shortlist_items',
+  'shortlists',
+  'load_cases',
+  'project_members',
+  'projects',
+  'property_sets',
+  'data_references',
+  'materials',
+  'users',
+];
 
-/** Tests only: empty every table, then seed again. */
-export async function resetDatabase(): Promise<SetupResult> {
+/** Tests only: empty every table, then seed the catalogue and demo accounts (and, when asked, the demo project). */
+export async function resetDatabase(options: { demoProject?: boolean } = {}): Promise<SetupResult> {
   if (env().NODE_ENV !== 'test') throw new Error('resetDatabase is for tests only');
   initModels();
   await migrate();
   await sequelize().query(`TRUNCATE ${TABLES.join(', ')} RESTART IDENTITY CASCADE`);
   invalidateCatalogueSnapshot();
-  return setupDatabase({ demo: true });
+  return setupDatabase({ demo: true, demoProject: options.demoProject ?? false });
 }

@@ -8,6 +8,7 @@ import {
   type NonAttribute,
 } from 'sequelize';
 import { sequelize } from '../sequelize';
+import { initProjectModels } from './projects';
 import type {
   CyclesPoint,
   Family,
@@ -243,5 +244,6 @@ export function initModels(): void {
   PropertySet.belongsTo(User, { as: 'approvedBy', foreignKey: 'approvedById' });
   PropertySet.belongsTo(User, { as: 'lastEditedBy', foreignKey: 'lastEditedById' });
   AuditEntry.belongsTo(User, { as: 'actor', foreignKey: 'actorId', constraints: false });
+  initProjectModels(db);
   initialised = true;
 }

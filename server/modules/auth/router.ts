@@ -5,6 +5,7 @@ import { loginSchema } from '../../../shared/schemas/auth';
 import { parse } from '../../middleware/validate';
 import { AppError, unauthorized } from '../../errors';
 import { toSessionUser } from '../../auth/passport';
+import { open } from '../../auth/authorize';
 import { env } from '../../config/env';
 import { User } from '../../db/models';
 
@@ -23,7 +24,7 @@ export function authRouter(): Router {
       next(new AppError(429, 'too_many_attempts', 'Too many failed sign-ins. Wait 15 minutes and try again.')),
   });
 
-  router.post('/login', loginLimiter, (req, res, next) => {
+  router.post('/login', open, loginLimiter, (req, res, next) => {
     const credentials = parse(loginSchema, req.body ?? {}, 'sign-in');
     req.body = credentials;
     passport.authenticate('local', { session: true }, (err: unknown, user: Express.User | false) => {
@@ -39,7 +40,7 @@ export function authRouter(): Router {
     })(req, res, next);
   });
 
-  router.post('/logout', (req, res, next) => {
+  router.post('/logout', open, (req, res, next) => {
     req.logout((err) => {
       if (err) return next(err);
       req.session.destroy((destroyErr) => {
@@ -50,7 +51,7 @@ export function authRouter(): Router {
     });
   });
 
-  router.get('/me', (req, _res, next) => {
+  router.get('/me', open, (req, _res, next) => {
     if (!req.user) return next(unauthorized());
     next();
   }, (req, res) => {

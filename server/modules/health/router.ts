@@ -1,11 +1,12 @@
 import { Router } from 'express';
 import { sequelize } from '../../db/sequelize';
 import { unavailable } from '../../errors';
+import { open } from '../../auth/authorize';
 
 /** Public: one database round trip. 503 while the database cannot answer. */
 export function healthRouter(): Router {
   const router = Router();
-  router.get('/', async (_req, res) => {
+  router.get('/', open, async (_req, res) => {
     try {
       await sequelize().query('SELECT 1', { plain: true, raw: true });
     } catch {

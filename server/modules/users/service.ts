@@ -1,0 +1,172 @@
+import { createHash, randomBytes } from 'node:crypto';
+import { Op } from 'sequelize';
+import { sequelize } from '../../db/sequelize';
+import { User } from '../../db/models';
+import { Invitation, PasswordReset } from '../../db/models/projects';
+import type { Role } from '../../../shared/schemas/auth';
+import { ROLE_LABELS } from '../../../shared/schemas/auth';
+import { AppError, badRequest, conflict, notFound } from '../../errors';
+import { hashPassword, verifyPassword } from '../../auth/passwords';
+import { recordAudit } from '../../services/audit';
+import { sendMailSafely } from '../../services/mail';
+import { env } from '../../config/env';
+
+export const INVITATION_HOURS = 72;
+export const RESET_HOURS = 1;
+
+/** Tokens travel by e-mail; only their SHA-256 is stored, so a database leak reveals none. */
+const newToken = () => randomBytes(32).toString('base64url');
+const tokenHash = (token: string) => createHash('sha256').update(token).digest('hex');
+const link = (path: string) => `${env().APP_URL.replace(/\/$/, '')}${path}`;
+
+export interface AdminUserDto {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+  lastLoginAt: string | null;
+  createdAt: string;
+}
+
+const adminUserDto = (u: User): AdminUserDto => ({
+  id: u.id,
+  email: u.email,
+  name: u.name,
+  role: u.role,
+  active: u.active,
+  lastLoginAt: u.lastLoginAt?.toISOString() ?? null,
+  createdAt: u.createdAt.toISOString(),
+});
+
+export async function listUsers(): Promise<AdminUserDto[]> {
+  return (await User.findAll({ order: [['active', 'DESC'], ['name', 'ASC']] })).map(adminUserDto);
+}
+
+/** Ends every stored session of a user at once. */
+export async function endSessionsOf(userId: number, exceptSid?: string): Promise<number> {
+  const [, result] = await sequelize().query(
+    `DELETE FROM session WHERE (sess -> 'passport' ->> 'user') = :user ${exceptSid ? 'AND sid <> :sid' : ''}`,
+    { replacements: { user: String(userId), sid: exceptSid ?? '' } },
+  );
+  return (result as { rowCount?: number })?.rowCount ?? 0;
+}
+
+export async function updateUser(actorId: number, userId: number, change: { role?: Role; active?: boolean }): Promise<AdminUserDto> {
+  const user = await sequelize().transaction(async (transaction) => {
+    const u = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
+    if (!u) throw notFound('User');
+    if (u.id === actorId && (change.active === false || (change.role && change.role !== 'admin'))) {
+      throw conflict('You cannot deactivate yourself or give up your own administrator role; ask another administrator.', 'self_change');
+    }
+    const before = { role: u.role, active: u.active };
+    await u.update(change, { transaction });
+    await recordAudit(transaction, { actorId, action: change.active === false ? 'deactivate' : 'update', entityType: 'user', entityId: String(u.id), before, after: change });
+    return u;
+  });
+  if (change.active === false) await endSessionsOf(user.id);
+  return adminUserDto(user);
+}
+
+export async function listInvitations() {
+  const rows = await Invitation.findAll({ order: [['createdAt', 'DESC']], limit: 200 });
+  const now = Date.now();
+  return rows.map((i) => ({
+    id: i.id,
+    email: i.email,
+    role: i.role,
+    createdAt: i.createdAt.toISOString(),
+    expiresAt: i.expiresAt.toISOString(),
+    state: i.usedAt ? 'accepted' : i.expiresAt.getTime() < now ? 'expired' : 'waiting',
+  }));
+}
+
+/** Invites by e-mail with a one-time link; an address that already has an account is refused. */
+export async function invite(actorId: number, email: string, role: Role): Promise<{ id: number; email: string; role: Role; expiresAt: string }> {
+  const token = newToken();
+  const invitation = await sequelize().transaction(async (transaction) => {
+    if (await User.findOne({ where: { email }, transaction })) {
+      throw conflict('That address already has an account; change its role instead.', 'has_account');
+    }
+    const inv = await Invitation.create(
+      { email, role, tokenHash: tokenHash(token), expiresAt: new Date(Date.now() + INVITATION_HOURS * 3600_000), usedAt: null, invitedById: actorId },
+      { transaction },
+    );
+    await recordAudit(transaction, { actorId, action: 'invite', entityType: 'user', entityId: email, before: null, after: { email, role } });
+    return inv;
+  });
+  await sendMailSafely({
+    to: email,
+    subject: 'You are invited to Isobath',
+    text:
+      `You have been invited to Isobath as ${ROLE_LABELS[role].toLowerCase()}.\n\n` +
+      `Choose your password within ${INVITATION_HOURS} hours: ${link(`/welcome?token=${token}`)}\n\n` +
+      `The link works once. If you did not expect this, ignore this message.\n\n— Isobath`,
+  });
+  return { id: invitation.id, email, role, expiresAt: invitation.expiresAt.toISOString() };
+}
+
+const invalidLink = () => new AppError(400, 'invalid_token', 'This link is invalid, already used or expired. Ask for a new one.', { token: 'invalid, used or expired' });
+
+/** Accepts an invitation: creates the account once; the link cannot be used again. */
+export async function acceptInvitation(token: string, name: string, password: string): Promise<User> {
+  const passwordHash = await hashPassword(password);
+  return sequelize().transaction(async (transaction) => {
+    const inv = await Invitation.findOne({ where: { tokenHash: tokenHash(token) }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!inv || inv.usedAt || inv.expiresAt.getTime() < Date.now()) throw invalidLink();
+    if (await User.findOne({ where: { email: inv.email }, transaction })) throw invalidLink();
+    const user = await User.create({ email: inv.email, name, role: inv.role, passwordHash, lastLoginAt: null }, { transaction });
+    await inv.update({ usedAt: new Date() }, { transaction });
+    await recordAudit(transaction, { actorId: user.id, action: 'accept-invitation', entityType: 'user', entityId: String(user.id), before: null, after: { email: user.email, role: user.role } });
+    return user;
+  });
+}
+
+/**
+ * Starts a password reset. The answer is the same whether or not the address has an account,
+ * so nobody can learn who has one; only active accounts get a message.
+ */
+export async function requestPasswordReset(email: string): Promise<void> {
+  const user = await User.findOne({ where: { email, active: true } });
+  if (!user) return;
+  const token = newToken();
+  await PasswordReset.create({ userId: user.id, tokenHash: tokenHash(token), expiresAt: new Date(Date.now() + RESET_HOURS * 3600_000), usedAt: null });
+  await sendMailSafely({
+    to: user.email,
+    subject: 'Reset your Isobath password',
+    text:
+      `Someone asked to reset the password of your Isobath account.\n\n` +
+      `Choose a new one within ${RESET_HOURS} hour: ${link(`/reset-password?token=${token}`)}\n\n` +
+      `The link works once. If it was not you, ignore this message; your password stays as it is.\n\n— Isobath`,
+  });
+}
+
+export async function resetPassword(token: string, password: string): Promise<void> {
+  const passwordHash = await hashPassword(password);
+  const userId = await sequelize().transaction(async (transaction) => {
+    const reset = await PasswordReset.findOne({ where: { tokenHash: tokenHash(token) }, transaction, lock: transaction.LOCK.UPDATE });
+    if (!reset || reset.usedAt || reset.expiresAt.getTime() < Date.now()) throw invalidLink();
+    const user = await User.findByPk(reset.userId, { transaction });
+    if (!user || !user.active) throw invalidLink();
+    await user.update({ passwordHash }, { transaction });
+    await reset.update({ usedAt: new Date() }, { transaction });
+    // Any other outstanding reset links of this account stop working too.
+    await PasswordReset.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: { [Op.is]: null } }, transaction });
+    await recordAudit(transaction, { actorId: user.id, action: 'reset-password', entityType: 'user', entityId: String(user.id), before: null, after: null });
+    return user.id;
+  });
+  await endSessionsOf(userId);
+}
+
+export async function changePassword(userId: number, currentPassword: string, newPassword: string, keepSid: string): Promise<void> {
+  const user = await User.findByPk(userId);
+  if (!user || !(await verifyPassword(currentPassword, user.passwordHash))) {
+    throw badRequest('The current password is not right.', { currentPassword: 'is not right' });
+  }
+  const passwordHash = await hashPassword(newPassword);
+  await sequelize().transaction(async (transaction) => {
+    await user.update({ passwordHash }, { transaction });
+    await recordAudit(transaction, { actorId: user.id, action: 'change-password', entityType: 'user', entityId: String(user.id), before: null, after: null });
+  });
+  await endSessionsOf(user.id, keepSid);
+}

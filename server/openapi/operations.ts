@@ -1,0 +1,127 @@
+import { z } from 'zod';
+import { loginSchema } from '../../shared/schemas/auth';
+import { propertySetQuerySchema } from '../../shared/schemas/catalogue';
+import { evaluateRequestSchema, pressureQuerySchema } from '../../shared/schemas/evaluate';
+import {
+  auditQuerySchema,
+  caughtMailQuerySchema,
+  draftInputSchema,
+  draftUpdateSchema,
+  libraryQueueQuerySchema,
+  materialCreateSchema,
+  referenceCreateSchema,
+  referenceQuerySchema,
+  referenceUpdateSchema,
+  retireSchema,
+  returnSchema,
+  transitionSchema,
+} from '../../shared/schemas/library';
+import {
+  invitationAcceptSchema,
+  invitationCreateSchema,
+  loadCaseSaveSchema,
+  loadCaseUpdateSchema,
+  memberAddSchema,
+  passwordChangeSchema,
+  passwordResetRequestSchema,
+  passwordResetSchema,
+  projectCreateSchema,
+  projectUpdateSchema,
+  shortlistCreateSchema,
+  shortlistItemAddSchema,
+  shortlistItemUpdateSchema,
+  shortlistReorderSchema,
+  shortlistReturnSchema,
+  shortlistTransitionSchema,
+  userUpdateSchema,
+} from '../../shared/schemas/projects';
+
+/** What the route table cannot know by itself: purpose, request schemas, answers. */
+export interface OperationDoc {
+  summary: string;
+  tag: string;
+  body?: z.ZodType;
+  query?: z.ZodType;
+  /** multipart/form-data with one file field. */
+  upload?: { field: string; description: string };
+  /** Content type of a 200 that is not JSON. */
+  produces?: 'application/pdf' | 'text/csv';
+  responses?: Record<number, string>;
+}
+
+const page = z.object({ limit: z.number().int().min(1).max(5000).optional(), offset: z.number().int().min(0).optional() });
+
+/** One entry per "METHOD /api/path" (Express form). A route without an entry fails the tests. */
+export const OPERATIONS: Record<string, OperationDoc> = {
+  'POST /api/auth/login': { tag: 'Account', summary: 'Sign in; answers with the user and sets the session cookie', body: loginSchema, responses: { 200: 'Signed in', 401: 'E-mail or password is incorrect', 429: 'Too many failed attempts' } },
+  'POST /api/auth/logout': { tag: 'Account', summary: 'Sign out (ends the session)', responses: { 204: 'Signed out' } },
+  'GET /api/auth/me': { tag: 'Account', summary: 'The signed-in user with the permissions of their role', responses: { 200: 'The user', 401: 'Not signed in' } },
+  'POST /api/auth/invitations/accept': { tag: 'Account', summary: 'Accept an invitation: create the account from the one-time link and sign in', body: invitationAcceptSchema, responses: { 201: 'Account created', 400: 'Invalid, used or expired link' } },
+  'POST /api/auth/password-reset/request': { tag: 'Account', summary: 'Ask for a password-reset link (same answer whether or not the address has an account)', body: passwordResetRequestSchema, responses: { 202: 'Accepted' } },
+  'POST /api/auth/password-reset': { tag: 'Account', summary: 'Set a new password with a one-time reset link; ends the account’s sessions', body: passwordResetSchema, responses: { 200: 'Password changed', 400: 'Invalid, used or expired link' } },
+  'POST /api/auth/password': { tag: 'Account', summary: 'Change your own password; ends your other sessions', body: passwordChangeSchema, responses: { 200: 'Password changed', 400: 'Current password wrong or new one too short' } },
+  'GET /api/health': { tag: 'Service', summary: 'Health: one database round trip', responses: { 200: 'Up', 503: 'Database unreachable' } },
+  'GET /api/openapi.json': { tag: 'Service', summary: 'This description of the API (OpenAPI 3.1)', responses: { 200: 'The document' } },
+
+  'GET /api/property-sets': { tag: 'Catalogue', summary: 'Property sets with their material and reference; filters on family, transparency, service temperature and text', query: propertySetQuerySchema.and(page) },
+  'GET /api/property-sets/:id': { tag: 'Catalogue', summary: 'One property set with values (SI), basis, dependence data and reference' },
+  'GET /api/materials': { tag: 'Catalogue', summary: 'All materials, by family then name' },
+  'POST /api/materials': { tag: 'Library desk', summary: 'Create a material', body: materialCreateSchema, responses: { 201: 'Created', 409: 'A material with that name exists' } },
+  'GET /api/materials/:id': { tag: 'Catalogue', summary: 'One material with the property sets the caller may read' },
+  'POST /api/evaluate': { tag: 'Calculation', summary: 'Evaluate candidates (catalogue or inline) for a load case; ranked best first, every mode with its model and source', body: evaluateRequestSchema },
+  'GET /api/pressure': { tag: 'Calculation', summary: 'Gauge pressure at a depth in seawater (UNESCO 1983, inverted) or fresh water', query: pressureQuerySchema },
+
+  'GET /api/library/sets': { tag: 'Library desk', summary: 'Drafts and sets in review (filter by status; mine=true for your own)', query: libraryQueueQuerySchema },
+  'GET /api/library/sets/:id': { tag: 'Library desk', summary: 'A property set in any status, with its lock version and history fields' },
+  'GET /api/library/sets/:id/changes': { tag: 'Library desk', summary: 'Changed values against the version this set supersedes' },
+  'POST /api/library/sets': { tag: 'Library desk', summary: 'Create a draft (with a new material or reference if given)', body: draftInputSchema, responses: { 201: 'Draft created' } },
+  'PUT /api/library/sets/:id': { tag: 'Library desk', summary: 'Save a draft (optimistic lock)', body: draftUpdateSchema, responses: { 200: 'Saved', 409: 'Stale lock version or not a draft' } },
+  'POST /api/library/sets/:id/submit': { tag: 'Library desk', summary: 'Submit a draft for review (mails the other librarians)', body: transitionSchema },
+  'POST /api/library/sets/:id/approve': { tag: 'Library desk', summary: 'Approve and publish (never your own draft); retires the version it supersedes', body: transitionSchema, responses: { 200: 'Published', 403: 'Own work (four-eyes)', 409: 'Stale or wrong status' } },
+  'POST /api/library/sets/:id/return': { tag: 'Library desk', summary: 'Return to the author with a comment', body: returnSchema },
+  'POST /api/library/sets/:id/revise': { tag: 'Library desk', summary: 'Start a new version of a published set', body: transitionSchema, responses: { 201: 'Revision draft created', 409: 'A revision is already open' } },
+  'POST /api/library/sets/:id/retire': { tag: 'Library desk', summary: 'Retire a published set (never deleted)', body: retireSchema },
+  'GET /api/library/import/template.csv': { tag: 'Library desk', summary: 'The CSV import template', produces: 'text/csv' },
+  'POST /api/library/import/preview': { tag: 'Library desk', summary: 'Check a CSV file row by row without writing anything', upload: { field: 'file', description: 'UTF-8 CSV, at most 20 MB and 50,000 rows' } },
+  'POST /api/library/import': { tag: 'Library desk', summary: 'Import a CSV file as drafts, all or nothing', upload: { field: 'file', description: 'UTF-8 CSV, at most 20 MB and 50,000 rows' }, responses: { 201: 'Imported', 400: 'Row errors; nothing written' } },
+
+  'GET /api/references': { tag: 'References', summary: 'References, with document and use counts', query: referenceQuerySchema },
+  'GET /api/references/:id': { tag: 'References', summary: 'One reference' },
+  'POST /api/references': { tag: 'References', summary: 'Create a reference', body: referenceCreateSchema, responses: { 201: 'Created' } },
+  'PUT /api/references/:id': { tag: 'References', summary: 'Edit a reference (optimistic lock)', body: referenceUpdateSchema },
+  'POST /api/references/:id/document': { tag: 'References', summary: 'Upload the source PDF (checked by content, at most 20 MB)', upload: { field: 'file', description: 'A PDF' }, responses: { 200: 'Stored', 400: 'Not a PDF', 413: 'Too large' } },
+  'GET /api/references/:id/document': { tag: 'References', summary: 'Download the source PDF', produces: 'application/pdf' },
+
+  'GET /api/admin/audit': { tag: 'Administration', summary: 'Audit log, newest first', query: auditQuerySchema },
+  'GET /api/admin/mail': { tag: 'Administration', summary: 'Mail caught by the local SMTP catcher (development and test only)', query: caughtMailQuerySchema },
+  'GET /api/admin/mail/:id': { tag: 'Administration', summary: 'One caught message' },
+  'GET /api/admin/users': { tag: 'Administration', summary: 'All accounts' },
+  'PATCH /api/admin/users/:id': { tag: 'Administration', summary: 'Change a role or deactivate an account (its sessions end at once)', body: userUpdateSchema },
+  'GET /api/admin/invitations': { tag: 'Administration', summary: 'Invitations and their state' },
+  'POST /api/admin/invitations': { tag: 'Administration', summary: 'Invite someone by e-mail with a one-time, expiring link', body: invitationCreateSchema, responses: { 201: 'Invited', 409: 'The address has an account' } },
+
+  'GET /api/projects': { tag: 'Projects', summary: 'Your projects (administrators: all)' },
+  'POST /api/projects': { tag: 'Projects', summary: 'Create a project; you become its owner', body: projectCreateSchema, responses: { 201: 'Created' } },
+  'GET /api/projects/:id': { tag: 'Projects', summary: 'A project with its members (404 unless you are a member)' },
+  'PATCH /api/projects/:id': { tag: 'Projects', summary: 'Rename or describe a project (owner or administrator)', body: projectUpdateSchema },
+  'POST /api/projects/:id/members': { tag: 'Projects', summary: 'Add a member (owner or administrator)', body: memberAddSchema },
+  'DELETE /api/projects/:id/members/:userId': { tag: 'Projects', summary: 'Remove a member (owner or administrator)' },
+  'GET /api/projects/:id/load-cases': { tag: 'Projects', summary: 'Saved load cases of a project' },
+  'POST /api/projects/:id/load-cases': { tag: 'Projects', summary: 'Save a load case to a project', body: loadCaseSaveSchema, responses: { 201: 'Saved' } },
+  'GET /api/projects/:id/shortlists': { tag: 'Projects', summary: 'Shortlists of a project' },
+  'POST /api/projects/:id/shortlists': { tag: 'Projects', summary: 'Start a shortlist for a saved load case', body: shortlistCreateSchema, responses: { 201: 'Created' } },
+  'GET /api/projects/:id/records': { tag: 'Projects', summary: 'Design records of a project' },
+  'GET /api/people': { tag: 'Projects', summary: 'Active accounts, to add as project members' },
+  'GET /api/load-cases/:id': { tag: 'Projects', summary: 'A saved load case' },
+  'PUT /api/load-cases/:id': { tag: 'Projects', summary: 'Edit a saved load case (optimistic lock; refused once a checked shortlist uses it)', body: loadCaseUpdateSchema },
+  'GET /api/shortlists/:id': { tag: 'Shortlists', summary: 'A shortlist with its candidates evaluated live against the load case' },
+  'POST /api/shortlists/:id/items': { tag: 'Shortlists', summary: 'Add a published property set with a note', body: shortlistItemAddSchema, responses: { 201: 'Added', 409: 'Already on the shortlist, or the shortlist is no longer open' } },
+  'PATCH /api/shortlists/:id/items/:itemId': { tag: 'Shortlists', summary: 'Edit a candidate’s note', body: shortlistItemUpdateSchema },
+  'DELETE /api/shortlists/:id/items/:itemId': { tag: 'Shortlists', summary: 'Take a candidate off an open shortlist' },
+  'POST /api/shortlists/:id/reorder': { tag: 'Shortlists', summary: 'Put the candidates in a new order', body: shortlistReorderSchema },
+  'POST /api/shortlists/:id/submit': { tag: 'Shortlists', summary: 'Submit for checking (mails the project’s checkers)', body: shortlistTransitionSchema },
+  'POST /api/shortlists/:id/check': { tag: 'Shortlists', summary: 'Check a submitted shortlist (never your own); freezes the design record', body: shortlistTransitionSchema, responses: { 200: 'Checked', 403: 'Own work or not a checker of the project' } },
+  'POST /api/shortlists/:id/return': { tag: 'Shortlists', summary: 'Return a submitted shortlist with a comment', body: shortlistReturnSchema },
+  'GET /api/records/:id': { tag: 'Design records', summary: 'A frozen design record, and whether newer catalogue data exists' },
+  'GET /api/records/:id/pdf': { tag: 'Design records', summary: 'The design record as a PDF', produces: 'application/pdf' },
+};

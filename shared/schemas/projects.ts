@@ -1,0 +1,159 @@
+/**
+ * Contracts of projects, load cases, shortlists, sign-off, design records and team
+ * administration. All values SI.
+ */
+import { z } from 'zod';
+import { loadCaseSchema, evaluateFiltersSchema, type LoadCase } from './evaluate';
+import { roleSchema, type Role } from './auth';
+import type { CandidateResult, EvaluateResult } from '../engine/types';
+import type { PropertySetDto } from './catalogue';
+
+const id = z.number().int().positive().max(2_147_483_647);
+const lockVersion = z.number().int().min(0).max(2_147_483_647);
+const name = (what: string) => z.string().trim().min(1, `Give the ${what} a name`).max(200);
+
+export const projectCreateSchema = z
+  .object({ name: name('project'), description: z.string().trim().max(4000).default('') })
+  .strict();
+export const projectUpdateSchema = z
+  .object({ name: name('project').optional(), description: z.string().trim().max(4000).optional() })
+  .strict();
+export const memberAddSchema = z.object({ userId: id }).strict();
+
+export const loadCaseSaveSchema = z
+  .object({
+    name: name('load case'),
+    loadCase: loadCaseSchema,
+    filters: evaluateFiltersSchema.optional(),
+    notes: z.string().trim().max(4000).default(''),
+  })
+  .strict();
+export const loadCaseUpdateSchema = loadCaseSaveSchema.extend({ lockVersion }).strict();
+
+export const shortlistCreateSchema = z.object({ loadCaseId: id, name: name('shortlist') }).strict();
+export const shortlistItemAddSchema = z
+  .object({ propertySetId: id, note: z.string().trim().max(2000).default('') })
+  .strict();
+export const shortlistItemUpdateSchema = z.object({ note: z.string().trim().max(2000) }).strict();
+export const shortlistReorderSchema = z.object({ lockVersion, itemIds: z.array(id).min(1).max(200) }).strict();
+export const shortlistTransitionSchema = z
+  .object({ lockVersion, comment: z.string().trim().max(4000).optional() })
+  .strict();
+export const shortlistReturnSchema = z
+  .object({ lockVersion, comment: z.string().trim().min(3, 'Say what the author must change').max(4000) })
+  .strict();
+
+export const SHORTLIST_STATUSES = ['open', 'submitted', 'checked', 'returned'] as const;
+export type ShortlistStatus = (typeof SHORTLIST_STATUSES)[number];
+
+// ---- Team administration -------------------------------------------------------------------
+
+const email = z.string().trim().toLowerCase().pipe(z.email('Enter a valid e-mail address')).pipe(z.string().max(254));
+/** Common practice: at least 12 characters; no composition rules (NIST SP 800-63B §5.1.1). */
+export const passwordSchema = z.string().min(12, 'Use at least 12 characters').max(200, 'Use at most 200 characters');
+
+export const invitationCreateSchema = z.object({ email, role: roleSchema }).strict();
+export const invitationAcceptSchema = z
+  .object({ token: z.string().trim().min(20).max(200), name: z.string().trim().min(1, 'Enter your name').max(200), password: passwordSchema })
+  .strict();
+export const userUpdateSchema = z.object({ role: roleSchema.optional(), active: z.boolean().optional() }).strict();
+export const passwordChangeSchema = z
+  .object({ currentPassword: z.string().min(1, 'Enter your current password').max(200), newPassword: passwordSchema })
+  .strict();
+export const passwordResetRequestSchema = z.object({ email }).strict();
+export const passwordResetSchema = z.object({ token: z.string().trim().min(20).max(200), password: passwordSchema }).strict();
+
+// ---- DTOs ------------------------------------------------------------------------------------
+
+export interface UserSummaryDto {
+  id: number;
+  name: string;
+  email: string;
+  role: Role;
+}
+
+export interface ProjectDto {
+  id: number;
+  name: string;
+  description: string;
+  owner: UserSummaryDto;
+  members: UserSummaryDto[];
+  createdAt: string;
+  updatedAt: string;
+  counts: { loadCases: number; shortlists: number; checked: number };
+}
+
+export interface LoadCaseDto {
+  id: number;
+  projectId: number;
+  name: string;
+  loadCase: LoadCase;
+  filters: z.infer<typeof evaluateFiltersSchema> | null;
+  notes: string;
+  createdBy: UserSummaryDto | null;
+  lockVersion: number;
+  updatedAt: string;
+}
+
+export interface ShortlistItemDto {
+  id: number;
+  position: number;
+  note: string;
+  propertySet: PropertySetDto;
+  /** Live evaluation against the shortlist's load case (null once a record is frozen: use the record). */
+  result: CandidateResult | null;
+  /** The catalogue has a newer published version of this set. */
+  newerVersionId: number | null;
+}
+
+export interface ShortlistDto {
+  id: number;
+  projectId: number;
+  name: string;
+  status: ShortlistStatus;
+  loadCase: LoadCaseDto;
+  author: UserSummaryDto;
+  checker: UserSummaryDto | null;
+  submittedAt: string | null;
+  checkedAt: string | null;
+  returnedComment: string | null;
+  checkComment: string | null;
+  lockVersion: number;
+  items: ShortlistItemDto[];
+  /** Pressure etc. of the live evaluation. */
+  evaluation: Omit<EvaluateResult, 'results' | 'total'> | null;
+  designRecordId: number | null;
+}
+
+/** What a design record freezes: everything needed to read and defend it later, unchanged. */
+export interface DesignRecordContent {
+  format: 'isobath-design-record';
+  formatVersion: 1;
+  project: { id: number; name: string };
+  shortlist: { id: number; name: string; submittedAt: string; checkedAt: string; checkComment: string | null };
+  author: UserSummaryDto;
+  checker: UserSummaryDto;
+  loadCase: { name: string; input: LoadCase; notes: string };
+  pressure: number;
+  proofTestPressure: number;
+  pressureMethod: string;
+  candidates: {
+    position: number;
+    note: string;
+    propertySet: PropertySetDto;
+    result: CandidateResult;
+  }[];
+  cautions: string;
+  engine: { models: string[] };
+  frozenAt: string;
+}
+
+export interface DesignRecordDto {
+  id: number;
+  shortlistId: number;
+  projectId: number;
+  content: DesignRecordContent;
+  /** Property sets in the record that have a newer published version today. */
+  newerData: { propertySetId: number; newerVersionId: number; name: string }[];
+  createdAt: string;
+}

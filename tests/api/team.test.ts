@@ -1,0 +1,119 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { startTestApp, signIn, type Agent } from '../helpers/app';
+import { listCaughtMail } from '../../server/services/mail';
+import { Invitation } from '../../server/db/models/projects';
+import { User } from '../../server/db/models';
+import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
+
+let handle: Awaited<ReturnType<typeof startTestApp>>;
+let admin: Agent;
+beforeAll(async () => {
+  handle = await startTestApp();
+  admin = await signIn(handle.app, 'admin');
+});
+afterAll(async () => {
+  await handle.stop();
+});
+
+/** The one-time link's token from the newest message to an address. */
+async function tokenMailedTo(email: string, path: string): Promise<string> {
+  const mail = (await listCaughtMail({ limit: 100 })).find((m) => m.to.includes(email) && m.text.includes(path));
+  expect(mail, `a message to ${email} with ${path}`).toBeTruthy();
+  return mail!.text.match(new RegExp(`${path}\\?token=([A-Za-z0-9_-]+)`))![1];
+}
+
+describe('invitations', () => {
+  it('lets only admins invite; the link creates the account once and signs the person in', async () => {
+    const engineer = await signIn(handle.app, 'engineer');
+    expect((await engineer.post('/api/admin/invitations').send({ email: 'new.hand@harrow.example', role: 'engineer' })).status).toBe(403);
+    const invited = await admin.post('/api/admin/invitations').send({ email: 'New.Hand@harrow.example', role: 'checker' });
+    expect(invited.status).toBe(201);
+    const token = await tokenMailedTo('new.hand@harrow.example', '/welcome');
+
+    const agent = request.agent(handle.app);
+    const accepted = await agent.post('/api/auth/invitations/accept').send({ token, name: 'Oona Ferrie', password: 'a-long-passphrase-1' });
+    expect(accepted.status).toBe(201);
+    expect(accepted.body.user).toMatchObject({ email: 'new.hand@harrow.example', role: 'checker' });
+    expect((await agent.get('/api/auth/me')).body.user.name).toBe('Oona Ferrie');
+
+    const again = await request(handle.app).post('/api/auth/invitations/accept').send({ token, name: 'Someone Else', password: 'a-long-passphrase-2' });
+    expect(again.status).toBe(400);
+    expect(again.body.error.code).toBe('invalid_token');
+  });
+
+  it('refuses an expired invitation and a short password', async () => {
+    await admin.post('/api/admin/invitations').send({ email: 'late.comer@harrow.example', role: 'viewer' }).expect(201);
+    const token = await tokenMailedTo('late.comer@harrow.example', '/welcome');
+    const short = await request(handle.app).post('/api/auth/invitations/accept').send({ token, name: 'Late Comer', password: 'short' });
+    expect(short.status).toBe(400);
+    expect(short.body.error.fields).toHaveProperty('password');
+    await Invitation.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { email: 'late.comer@harrow.example' } });
+    const expired = await request(handle.app).post('/api/auth/invitations/accept').send({ token, name: 'Late Comer', password: 'a-long-passphrase-3' });
+    expect(expired.status).toBe(400);
+    expect(await User.count({ where: { email: 'late.comer@harrow.example' } })).toBe(0);
+  });
+
+  it('refuses to invite an address that already has an account', async () => {
+    const res = await admin.post('/api/admin/invitations').send({ email: 'viewer@harrow.example', role: 'viewer' });
+    expect(res.status).toBe(409);
+  });
+});
+
+describe('roles and deactivation', () => {
+  it('changes a role, taking effect at the next request', async () => {
+    const viewer = await signIn(handle.app, 'viewer');
+    expect((await viewer.post('/api/projects').send({ name: 'x' })).status).toBe(403);
+    const id = (await User.findOne({ where: { email: 'viewer@harrow.example' } }))!.id;
+    expect((await admin.patch(`/api/admin/users/${id}`).send({ role: 'engineer' })).status).toBe(200);
+    expect((await viewer.post('/api/projects').send({ name: 'Promoted' })).status).toBe(201);
+    await admin.patch(`/api/admin/users/${id}`).send({ role: 'viewer' }).expect(200);
+  });
+
+  it("ends a deactivated account's sessions at once and refuses its sign-in", async () => {
+    const checker = await signIn(handle.app, 'checker');
+    const id = (await User.findOne({ where: { email: 'checker@harrow.example' } }))!.id;
+    expect((await admin.patch(`/api/admin/users/${id}`).send({ active: false })).status).toBe(200);
+    expect((await checker.get('/api/auth/me')).status).toBe(401);
+    expect((await request(handle.app).post('/api/auth/login').send({ email: 'checker@harrow.example', password: DEMO_PASSWORD })).status).toBe(401);
+    await admin.patch(`/api/admin/users/${id}`).send({ active: true }).expect(200);
+  });
+
+  it('will not let an admin deactivate themselves', async () => {
+    const id = (await User.findOne({ where: { email: 'admin@harrow.example' } }))!.id;
+    expect((await admin.patch(`/api/admin/users/${id}`).send({ active: false })).status).toBe(409);
+  });
+});
+
+describe('passwords', () => {
+  it('answers a reset request the same way whether or not the address has an account', async () => {
+    const known = await request(handle.app).post('/api/auth/password-reset/request').send({ email: 'librarian@harrow.example' });
+    const unknown = await request(handle.app).post('/api/auth/password-reset/request').send({ email: 'nobody@harrow.example' });
+    expect(known.status).toBe(202);
+    expect(unknown.status).toBe(202);
+    expect(known.body).toEqual(unknown.body);
+    expect((await listCaughtMail({ limit: 100 })).some((m) => m.to.includes('nobody@harrow.example'))).toBe(false);
+  });
+
+  it('resets a password by the mailed link once, ending old sessions', async () => {
+    const old = await signIn(handle.app, 'librarian');
+    await request(handle.app).post('/api/auth/password-reset/request').send({ email: 'librarian@harrow.example' }).expect(202);
+    const token = await tokenMailedTo('librarian@harrow.example', '/reset-password');
+    const reset = await request(handle.app).post('/api/auth/password-reset').send({ token, password: 'tidal-gauge-librarian' });
+    expect(reset.status).toBe(200);
+    expect((await old.get('/api/auth/me')).status).toBe(401);
+    expect((await request(handle.app).post('/api/auth/password-reset').send({ token, password: 'another-long-one-9' })).status).toBe(400);
+    expect((await request(handle.app).post('/api/auth/login').send({ email: 'librarian@harrow.example', password: 'tidal-gauge-librarian' })).status).toBe(200);
+  });
+
+  it('changes the own password after checking the current one', async () => {
+    const engineer = await signIn(handle.app, 'engineer');
+    const wrong = await engineer.post('/api/auth/password').send({ currentPassword: 'not-it', newPassword: 'sounding-line-2026' });
+    expect(wrong.status).toBe(400);
+    expect(wrong.body.error.fields).toHaveProperty('currentPassword');
+    expect((await engineer.post('/api/auth/password').send({ currentPassword: DEMO_PASSWORD, newPassword: 'sounding-line-2026' })).status).toBe(200);
+    expect((await engineer.get('/api/auth/me')).status).toBe(200);
+    expect((await request(handle.app).post('/api/auth/login').send({ email: 'engineer@harrow.example', password: 'sounding-line-2026' })).status).toBe(200);
+    expect((await request(handle.app).post('/api/auth/password').send({ currentPassword: 'x', newPassword: 'y'.repeat(12) })).status).toBe(401);
+  });
+});
