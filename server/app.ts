@@ -71,6 +71,8 @@ export function createApp(): AppHandle {
     tableName: 'session',
     createTableIfMissing: false,
     pruneSessionInterval: config.NODE_ENV === 'test' ? false : 15 * 60,
+    // Sessions last a fixed 12 h from sign-in; without this every request would also UPDATE its row.
+    disableTouch: true,
   });
 
   const api = express.Router();

@@ -22,6 +22,17 @@ export function toSessionUser(user: Express.User): SessionUserDto {
 
 let configured = false;
 
+/**
+ * Signed-in users by id, so a request costs no account query. Only active accounts are cached;
+ * model hooks clear it on every account write in this process (the app runs as one process).
+ */
+const sessionUsers = new Map<number, Express.User>();
+
+/** For raw SQL writes to users (tests, scripts): forget every cached account. */
+export function forgetSessionUsers(): void {
+  sessionUsers.clear();
+}
+
 export function configurePassport(): typeof passport {
   if (configured) return passport;
   passport.use(
@@ -40,14 +51,24 @@ export function configurePassport(): typeof passport {
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser(async (id: number, done) => {
     try {
+      const cached = sessionUsers.get(id);
+      if (cached) return done(null, cached);
       const user = await User.findByPk(id, { attributes: ['id', 'email', 'name', 'role', 'active'] });
       // A deactivated or deleted account's session ends at its next request.
       if (!user || !user.active) return done(null, false);
-      return done(null, { id: user.id, email: user.email, name: user.name, role: user.role });
+      const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role };
+      if (sessionUsers.size >= 10_000) sessionUsers.clear();
+      sessionUsers.set(id, sessionUser);
+      return done(null, sessionUser);
     } catch (err) {
       return done(err);
     }
   });
+  // Any write to an account (role, name, deactivation, password) drops the cache, so a change
+  // takes effect at the account's very next request.
+  for (const hook of ['afterSave', 'afterDestroy', 'afterBulkUpdate', 'afterBulkDestroy', 'afterUpsert'] as const) {
+    User.addHook(hook, 'drop-session-user-cache', () => sessionUsers.clear());
+  }
   configured = true;
   return passport;
 }

@@ -6,6 +6,7 @@ import { seedCatalogue } from './seeders/catalogue';
 import { seedDemoUsers } from './seeders/demo';
 import { seedDemoProject } from './seeders/demo-project';
 import { invalidateCatalogueSnapshot } from '../modules/property-sets/snapshot';
+import { forgetSessionUsers } from '../auth/passport';
 
 export interface SetupResult {
   migrations: string[];
@@ -57,5 +58,6 @@ export async function resetDatabase(options: { demoProject?: boolean } = {}): Pr
   await migrate();
   await sequelize().query(`TRUNCATE ${TABLES.join(', ')} RESTART IDENTITY CASCADE`);
   invalidateCatalogueSnapshot();
+  forgetSessionUsers();
   return setupDatabase({ demo: true, demoProject: options.demoProject ?? false });
 }

@@ -39,11 +39,23 @@ export interface Allowables {
 
 const POW10: number[] = Array.from({ length: 31 }, (_, i) => Number(`1e${i}`));
 
+const FMT_CACHE = new Map<number, string>();
+
 /**
  * Rounded for messages: 4 significant figures in the shortest decimal form, exactly as
- * `String(Number(x.toPrecision(4)))` but several times faster for ordinary magnitudes.
+ * `String(Number(x.toPrecision(4)))`. Memoised: the same load-case numbers are formatted for
+ * every candidate, and formatting dominated the engine's profile.
  */
 export function fmt(x: number): string {
+  const hit = FMT_CACHE.get(x);
+  if (hit !== undefined) return hit;
+  const text = formatNumber(x);
+  if (FMT_CACHE.size >= 4096) FMT_CACHE.clear();
+  FMT_CACHE.set(x, text);
+  return text;
+}
+
+function formatNumber(x: number): string {
   if (x === 0 || !Number.isFinite(x)) return String(x);
   const ax = x < 0 ? -x : x;
   if (ax < 1e-6 || ax >= 1e21) return String(Number(x.toPrecision(4)));

@@ -4,12 +4,25 @@ import { can } from '../../../shared/schemas/auth';
 import { evaluateRequestSchema, pressureQuerySchema } from '../../../shared/schemas/evaluate';
 import { parse } from '../../middleware/validate';
 import { evaluateLoadCase, pressureAt } from './service';
+import { catalogueGeneration } from '../property-sets/snapshot';
+import { jsonResponseCache } from '../../services/response-cache';
 
 export function evaluateRouter(): Router {
   const router = Router();
+  // Engineers re-run the same load case often (reloads, ranking switches, shared links): the
+  // serialized answer is kept per request until the catalogue changes.
+  const cache = jsonResponseCache(128 * 2 ** 20);
   router.post('/', authorize('evaluate'), async (req, res) => {
     const request = parse(evaluateRequestSchema, req.body, 'evaluation request');
-    res.json(await evaluateLoadCase(request, { canDraft: can(req.user?.role, 'catalogue:draft') }));
+    const caller = { canDraft: can(req.user?.role, 'catalogue:draft') };
+    // Drafts named by id resolve only for librarians, so they get their own entries.
+    const key = `${catalogueGeneration()}|${caller.canDraft ? 'd' : 'p'}|${JSON.stringify(request)}`;
+    let body = cache.get(key);
+    if (body === undefined) {
+      body = JSON.stringify(await evaluateLoadCase(request, caller));
+      cache.set(key, body);
+    }
+    res.type('application/json').send(body);
   });
   return router;
 }

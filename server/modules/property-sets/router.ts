@@ -6,11 +6,15 @@ import { propertySetQuerySchema } from '../../../shared/schemas/catalogue';
 import { materialCreateSchema } from '../../../shared/schemas/library';
 import { parse, parseId } from '../../middleware/validate';
 import { createMaterial, getMaterial, getPropertySet, listMaterials, listPropertySets } from './service';
+import { catalogueGeneration, filterPublished } from './snapshot';
+import { jsonResponseCache } from '../../services/response-cache';
 
 const pageSchema = z.object({
   limit: z.coerce.number().int().min(1).max(5000).default(1000),
   offset: z.coerce.number().int().min(0).max(1_000_000).default(0),
 });
+
+const listCache = jsonResponseCache(64 * 2 ** 20);
 
 const callerOf = (req: Express.Request) => ({ canDraft: can(req.user?.role, 'catalogue:draft') });
 
@@ -20,7 +24,20 @@ export function propertySetsRouter(): Router {
     const { limit, offset, ...rest } = req.query as Record<string, unknown>;
     const page = parse(pageSchema, { limit, offset }, 'query');
     const query = parse(propertySetQuerySchema, rest, 'query');
-    res.json(await listPropertySets({ ...query, ...page }, callerOf(req)));
+    if ((query.status ?? 'published') !== 'published') {
+      res.json(await listPropertySets({ ...query, ...page }, callerOf(req)));
+      return;
+    }
+    // The published catalogue comes from the in-memory snapshot; the serialized answer is kept
+    // per query until the catalogue changes.
+    const key = `${catalogueGeneration()}|${JSON.stringify([query, page])}`;
+    let body = listCache.get(key);
+    if (body === undefined) {
+      const all = await filterPublished(query);
+      body = JSON.stringify({ items: all.slice(page.offset, page.offset + page.limit), total: all.length });
+      listCache.set(key, body);
+    }
+    res.type('application/json').send(body);
   });
   router.get('/:id', authorize('catalogue:read'), async (req, res) => {
     res.json(await getPropertySet(parseId(req.params.id), callerOf(req)));

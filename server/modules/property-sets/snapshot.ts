@@ -1,4 +1,4 @@
-import { Material, PropertySet, Reference } from '../../db/models';
+import { Material, PropertySet, Reference, User } from '../../db/models';
 import type { PropertySetDto } from '../../../shared/schemas/catalogue';
 import { candidateFromPropertySet } from '../../../shared/engine';
 import type { CandidateMaterial } from '../../../shared/engine';
@@ -17,6 +17,9 @@ export interface CatalogueEntry {
 let snapshot: Promise<CatalogueEntry[]> | undefined;
 let generation = 0;
 
+/** Changes whenever the published catalogue may have changed; part of every cache key built on it. */
+export const catalogueGeneration = (): number => generation;
+
 export function invalidateCatalogueSnapshot(): void {
   generation++;
   snapshot = undefined;
@@ -30,6 +33,8 @@ export function publishedCatalogue(): Promise<CatalogueEntry[]> {
       include: [
         { model: Material, as: 'material', required: true },
         { model: Reference, as: 'reference' },
+        { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
+        { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
       ],
       order: [['id', 'ASC']],
     }).then((rows) =>
@@ -59,4 +64,43 @@ export function watchPropertySetChanges(): void {
     PropertySet.addHook(hook, 'invalidate-catalogue-snapshot', () => invalidateCatalogueSnapshot());
   }
   hooked = true;
+}
+
+const byText = (a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0);
+
+/**
+ * The published sets matching a catalogue query, from the snapshot: the same filters and order
+ * as the database path (family, material name, condition), without a query.
+ */
+export async function filterPublished(query: {
+  family?: string;
+  transparent?: boolean;
+  tmin?: number;
+  tmax?: number;
+  q?: string;
+  materialId?: number;
+}): Promise<PropertySetDto[]> {
+  const words = (query.q ?? '').toLowerCase().split(/\s+/).filter(Boolean).slice(0, 8);
+  const out: PropertySetDto[] = [];
+  for (const { set } of await publishedCatalogue()) {
+    const m = set.material;
+    if (query.family !== undefined && m.family !== query.family) continue;
+    if (query.transparent !== undefined && m.transparent !== query.transparent) continue;
+    if (query.materialId !== undefined && m.id !== query.materialId) continue;
+    const st = set.serviceTemperature;
+    if (query.tmin !== undefined && (st.min > query.tmin || st.max < query.tmin)) continue;
+    if (query.tmax !== undefined && (st.max < query.tmax || st.min > query.tmax)) continue;
+    if (words.length) {
+      const fields = [set.condition, m.name, m.family, set.reference?.title ?? '', set.reference?.identifier ?? ''].map((f) => f.toLowerCase());
+      if (!words.every((w) => fields.some((f) => f.includes(w)))) continue;
+    }
+    out.push(set);
+  }
+  return out.sort(
+    (a, b) =>
+      byText(a.material.family, b.material.family) ||
+      byText(a.material.name, b.material.name) ||
+      byText(a.condition, b.condition) ||
+      b.version - a.version,
+  );
 }

@@ -1,0 +1,66 @@
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomBytes } from 'node:crypto';
+import { BENCH_USER } from './prepare';
+
+export interface BenchServer {
+  baseUrl: string;
+  cookie: string;
+  pid: number;
+  stop(): Promise<void>;
+}
+
+/** Starts the real server (production mode) on a free loopback port and signs in the bench engineer. */
+export async function startBenchServer(databaseUrl: string): Promise<BenchServer> {
+  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    env: {
+      ...process.env,
+      NODE_ENV: 'production',
+      PORT: '0',
+      HOST: '127.0.0.1',
+      DATABASE_URL: databaseUrl,
+      SESSION_SECRET: randomBytes(32).toString('hex'),
+      COOKIE_SECURE: 'false',
+      LOGIN_RATE_LIMIT: '1000',
+    },
+    stdio: ['ignore', 'pipe', 'inherit'],
+  });
+  const port = await new Promise<number>((resolve, reject) => {
+    let out = '';
+    const timer = setTimeout(() => reject(new Error(`server did not start: ${out}`)), 30_000);
+    child.stdout!.on('data', (chunk: Buffer) => {
+      out += chunk.toString();
+      const m = out.match(/serving on http:\/\/localhost:(\d+)/);
+      if (m) {
+        clearTimeout(timer);
+        resolve(Number(m[1]));
+      }
+    });
+    child.on('exit', (code) => reject(new Error(`server exited with ${code}: ${out}`)));
+  });
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const res = await fetch(`${baseUrl}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'content-type': 'application/json' },
+    body: JSON.stringify({ email: BENCH_USER.email, password: BENCH_USER.password }),
+  });
+  if (!res.ok) throw new Error(`bench sign-in failed: ${res.status} ${await res.text()}`);
+  const cookie = (res.headers.get('set-cookie') ?? '').split(';')[0];
+  return {
+    baseUrl,
+    cookie,
+    pid: child.pid!,
+    stop: () =>
+      new Promise<void>((resolve) => {
+        child.once('exit', () => resolve());
+        child.kill('SIGTERM');
+      }),
+  };
+}
+
+/** Resident memory of a process in bytes (Linux /proc). */
+export async function rssOf(pid: number): Promise<number> {
+  const { readFile } = await import('node:fs/promises');
+  const status = await readFile(`/proc/${pid}/status`, 'utf8');
+  const kb = Number(status.match(/VmRSS:\s+(\d+)\s+kB/)?.[1] ?? 0);
+  return kb * 1024;
+}
