@@ -14,7 +14,7 @@ export default defineConfig({
   server: {
     port: 5173,
     host: '127.0.0.1',
-    proxy: { '/api': 'http://127.0.0.1:3000' },
+    proxy: { '^/api/': 'http://127.0.0.1:3000' },
   },
   build: {
     outDir: 'dist',

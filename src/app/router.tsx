@@ -23,6 +23,10 @@ async function redirectIfSignedIn() {
 
 export const router = createBrowserRouter([
   { path: '/sign-in', element: <SignInPage />, loader: redirectIfSignedIn, errorElement: <RouteError /> },
+  // Reached from e-mail links or the sign-in page, without a session.
+  { path: '/welcome', lazy: () => import('./routes/welcome'), errorElement: <RouteError /> },
+  { path: '/forgot-password', lazy: () => import('./routes/forgot-password'), errorElement: <RouteError /> },
+  { path: '/reset-password', lazy: () => import('./routes/reset-password'), errorElement: <RouteError /> },
   {
     path: '/',
     element: <AppShell />,
@@ -39,7 +43,14 @@ export const router = createBrowserRouter([
       { path: 'library/sets/:id', lazy: () => import('./routes/library-set') },
       { path: 'library/import', lazy: () => import('./routes/library-import') },
       { path: 'library/references', lazy: () => import('./routes/library-references') },
+      { path: 'projects', lazy: () => import('./routes/projects') },
+      { path: 'projects/:id', lazy: () => import('./routes/project') },
+      { path: 'shortlists/:id', lazy: () => import('./routes/shortlist') },
+      { path: 'records/:id', lazy: () => import('./routes/record') },
+      { path: 'account', lazy: () => import('./routes/account') },
+      { path: 'api-docs', lazy: () => import('./routes/api-docs') },
       { path: 'admin', element: <Navigate to="/admin/audit" replace /> },
+      { path: 'admin/users', lazy: () => import('./routes/admin-users') },
       { path: 'admin/audit', lazy: () => import('./routes/admin-audit') },
       { path: 'admin/mail', lazy: () => import('./routes/admin-mail') },
       { path: '*', element: <NotFoundPage /> },

@@ -5,12 +5,17 @@ import { useMe, useSignOut } from '@/features/auth/api/session';
 import { useUnits } from '@/lib/unit-system';
 import { Logo } from './logo';
 
-/** Main sections, each shown only to roles that may use it (the server checks again). */
-export const SECTIONS: { to: string; label: string; permission: Permission }[] = [
+/**
+ * Main sections, each shown only to roles that may use it (the server checks again); a section
+ * without a permission is for every signed-in account.
+ */
+export const SECTIONS: { to: string; label: string; permission?: Permission }[] = [
   { to: '/catalogue', label: 'Catalogue', permission: 'catalogue:read' },
   { to: '/evaluate', label: 'Evaluate', permission: 'evaluate' },
+  { to: '/projects', label: 'Projects', permission: 'project:read' },
   { to: '/library', label: 'Library desk', permission: 'catalogue:draft' },
   { to: '/admin', label: 'Admin', permission: 'audit:read' },
+  { to: '/api-docs', label: 'API' },
 ];
 
 function UnitSwitch() {
@@ -44,13 +49,13 @@ export function AppShell() {
         Skip to content
       </a>
       <header className="no-print bg-trench text-white">
-        <div className="mx-auto flex max-w-7xl items-center gap-6 px-4 py-2">
+        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <NavLink to="/catalogue" className="flex items-center gap-2 font-bold tracking-wide">
             <Logo className="h-7 w-7" />
             Isobath
           </NavLink>
-          <nav aria-label="Sections" className="flex gap-1">
-            {SECTIONS.filter((s) => me?.permissions.includes(s.permission)).map((s) => (
+          <nav aria-label="Sections" className="flex flex-wrap gap-1">
+            {SECTIONS.filter((s) => me && (!s.permission || me.permissions.includes(s.permission))).map((s) => (
               <NavLink
                 key={s.to}
                 to={s.to}
@@ -63,9 +68,14 @@ export function AppShell() {
           <div className="ml-auto flex items-center gap-4">
             <UnitSwitch />
             {me ? (
-              <span className="text-sm text-white/80" data-testid="signed-in-as">
+              <NavLink
+                to="/account"
+                className="text-sm text-white/80 hover:text-white hover:underline"
+                data-testid="signed-in-as"
+                title="Your account: change your password"
+              >
                 {me.name} · {ROLE_LABELS[me.role]}
-              </span>
+              </NavLink>
             ) : null}
             <button
               type="button"

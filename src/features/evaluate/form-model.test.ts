@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkForm, convertForm, DEMO_LOAD_CASE_SI, toRequest } from './form-model';
+import type { LoadCaseInput } from '@shared/schemas/evaluate';
+import { checkForm, convertForm, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, toRequest } from './form-model';
 
 describe('Evaluate form model', () => {
   it('builds the SI request from the demo load case shown in SI units (mm, m, °C)', () => {
@@ -36,5 +37,51 @@ describe('Evaluate form model', () => {
     const check = checkForm(shown, 'SI');
     expect(check.ok).toBe(false);
     if (!check.ok) expect(check.errors.depth).toBeTruthy();
+  });
+});
+
+describe('saved load cases in the Evaluate form', () => {
+  // Harrow Sound's 5 bar treatment chamber: a flat side viewport (invented scenario).
+  const chamberPort: LoadCaseInput = {
+    pressure: { value: 0.5e6 },
+    temperature: { min: 15, max: 40 },
+    sustainedHours: 5000,
+    cycles: 10000,
+    targetSafetyFactor: 6,
+    proofFactor: 1.5,
+    component: { type: 'flat-disc', diameter: 0.25, thickness: 0.04, edge: 'clamped' },
+  };
+
+  it('fills the form from a saved case and builds the same request again, in SI and in US units', () => {
+    const form = formFromLoadCase(chamberPort, { transparent: true });
+    expect(form).toMatchObject({ pressureMode: 'pressure', pressureValue: 0.5e6, componentType: 'flat-disc', edge: 'clamped', useFamilyTargets: false, transparent: 'true', coversTemperature: false });
+    for (const system of ['SI', 'US'] as const) {
+      const shown = convertForm(form, 'SI-raw', system);
+      const check = checkForm(shown, system);
+      expect(check.ok).toBe(true);
+      if (check.ok) {
+        expect(sameLoadCase(check.request.loadCase, chamberPort)).toBe(true);
+        expect(check.request.filters).toEqual({ transparent: true });
+      }
+    }
+    // 250 mm shows as 9.84252 in (NIST SP 811: 1 in = 25.4 mm exactly).
+    expect(convertForm(form, 'SI-raw', 'US').diameter).toBeCloseTo(9.84252, 5);
+  });
+
+  it('keeps the family defaults when the saved case has no target, and reads depth cases', () => {
+    const form = formFromLoadCase({ ...chamberPort, targetSafetyFactor: undefined, pressure: { depth: 4000, latitude: 57, water: 'sea' } }, null);
+    expect(form).toMatchObject({ useFamilyTargets: true, pressureMode: 'depth', depth: 4000, latitude: 57, water: 'sea', transparent: '' });
+  });
+
+  it('tells a changed load case from the saved one', () => {
+    expect(sameLoadCase(chamberPort, { ...chamberPort, component: { ...chamberPort.component, thickness: 0.041 } })).toBe(false);
+    expect(sameLoadCase(chamberPort, { ...chamberPort, targetSafetyFactor: undefined })).toBe(false);
+    expect(sameLoadCase(chamberPort, { ...chamberPort, pressure: { value: 0.5e6 * (1 + 2e-6) } })).toBe(true);
+  });
+
+  it('builds the request for a saved case exactly as saved', () => {
+    const req = requestFromLoadCase(chamberPort, { transparent: true });
+    expect(req.loadCase).toEqual(chamberPort);
+    expect(req.sortBy).toBe('margin');
   });
 });

@@ -1,4 +1,11 @@
-import { evaluateRequestSchema, type ComponentType, type EvaluateRequest, type EvaluateRequestInput } from '@shared/schemas/evaluate';
+import {
+  DEFAULT_PROOF_FACTOR,
+  evaluateRequestSchema,
+  type ComponentType,
+  type EvaluateRequest,
+  type EvaluateRequestInput,
+  type LoadCaseInput,
+} from '@shared/schemas/evaluate';
 import type { Family } from '@shared/schemas/catalogue';
 import { fromDisplay, toDisplay, type QuantityKind, type UnitSystem } from '@/lib/units';
 
@@ -167,4 +174,72 @@ export function checkForm(shown: LoadCaseForm, system: UnitSystem): FormCheck {
     errors[field] ??= issue.message;
   }
   return { ok: false, errors };
+}
+
+// ---- Saved load cases ------------------------------------------------------------------------
+
+type SavedFilters = EvaluateRequestInput['filters'] | null | undefined;
+
+/**
+ * The form (in SI, like DEMO_LOAD_CASE_SI) for a load case saved in a project. Fields the saved
+ * case does not use (another geometry's sizes) keep the demo values, so switching stays sensible.
+ */
+export function formFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): LoadCaseForm {
+  const p = lc.pressure;
+  const pressure: Partial<LoadCaseForm> =
+    'value' in p ? { pressureMode: 'pressure', pressureValue: p.value } : { pressureMode: 'depth', depth: p.depth, latitude: p.latitude, water: p.water };
+  const c = lc.component;
+  const geometry: Partial<LoadCaseForm> =
+    c.type === 'flat-disc'
+      ? { diameter: c.diameter, edge: c.edge }
+      : c.type === 'conical-frustum'
+        ? { minorDiameter: c.minorDiameter, includedAngle: c.includedAngle }
+        : c.type === 'sphere'
+          ? { innerRadius: c.innerRadius }
+          : { innerRadius: c.innerRadius, length: c.length };
+  return {
+    ...DEMO_LOAD_CASE_SI,
+    ...pressure,
+    tmin: lc.temperature.min,
+    tmax: lc.temperature.max,
+    sustainedHours: lc.sustainedHours,
+    cycles: lc.cycles,
+    useFamilyTargets: lc.targetSafetyFactor === undefined,
+    targetSafetyFactor: lc.targetSafetyFactor ?? DEMO_LOAD_CASE_SI.targetSafetyFactor,
+    proofFactor: lc.proofFactor ?? DEFAULT_PROOF_FACTOR,
+    componentType: c.type,
+    thickness: c.thickness,
+    ...geometry,
+    family: filters?.family ?? '',
+    transparent: filters?.transparent === undefined ? '' : filters.transparent ? 'true' : 'false',
+    coversTemperature: filters?.coversTemperature === true,
+  };
+}
+
+/** The evaluation request for a saved load case, exactly as saved (SI). */
+export function requestFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): EvaluateRequest {
+  return evaluateRequestSchema.parse({ loadCase: lc, ...(filters ? { filters } : {}) });
+}
+
+// Shown values are rounded to six significant figures (convertForm), so a case that went
+// through US units and back differs from the saved one by up to 5 parts in a million.
+const RELATIVE_TOLERANCE = 1e-5;
+
+function nearlyEqual(a: unknown, b: unknown): boolean {
+  if (typeof a === 'number' && typeof b === 'number') {
+    return a === b || Math.abs(a - b) <= RELATIVE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b));
+  }
+  if (a && b && typeof a === 'object' && typeof b === 'object') {
+    const ka = Object.keys(a).filter((k) => (a as Record<string, unknown>)[k] !== undefined);
+    const kb = Object.keys(b).filter((k) => (b as Record<string, unknown>)[k] !== undefined);
+    if (ka.length !== kb.length) return false;
+    return ka.every((k) => nearlyEqual((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k]));
+  }
+  return a === b;
+}
+
+/** True when two load cases describe the same design case (unit round trips allowed for). */
+export function sameLoadCase(a: LoadCaseInput, b: LoadCaseInput): boolean {
+  const norm = (lc: LoadCaseInput) => ({ ...lc, proofFactor: lc.proofFactor ?? DEFAULT_PROOF_FACTOR });
+  return nearlyEqual(norm(a), norm(b));
 }

@@ -1,6 +1,6 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { loginSchema, type LoginInput } from '@shared/schemas/auth';
 import { useSignIn } from '../api/session';
 import { TextField } from '@/components/ui/field';
@@ -55,6 +55,11 @@ export function SignInPage() {
             {isSubmitting ? 'Signing in…' : 'Sign in'}
           </Button>
         </form>
+        <p className="mt-4 text-center text-sm">
+          <Link to="/forgot-password" className="text-sounding underline hover:text-sounding-dark">
+            Forgot your password?
+          </Link>
+        </p>
       </div>
     </main>
   );

@@ -1,17 +1,22 @@
-import { lazy, Suspense, useMemo, useState } from 'react';
+import { lazy, Suspense, useEffect, useMemo, useState } from 'react';
+import { Link, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { candidateFromPropertySet, type CandidateResult } from '@shared/engine';
 import type { EvaluateRequest, SORT_KEYS } from '@shared/schemas/evaluate';
+import type { LoadCaseDto, ShortlistDto } from '@shared/schemas/projects';
 import { Cautions } from '@/components/cautions';
 import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
 import { SelectField } from '@/components/ui/field';
 import { useUnits } from '@/lib/unit-system';
 import { candidateSetQueryOptions, useEvaluation } from '../api/evaluate';
-import { checkForm, convertForm, DEMO_LOAD_CASE_SI, type LoadCaseForm } from '../form-model';
+import { useMyProjects, useSavedLoadCase } from '../api/project-links';
+import { checkForm, convertForm, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, type LoadCaseForm } from '../form-model';
 import { LoadCaseFormPanel } from './load-case-form';
 import { ResultsTable, resultKey, ModeTag } from './results-table';
+import { SaveLoadCaseDialog } from './save-load-case-dialog';
+import { ShortlistDialog } from './shortlist-dialog';
 
-const MarginChart = lazy(() => import('./margin-chart').then((m) => ({ default: m.MarginChart })));
+const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
 const ThicknessChart = lazy(() => import('./thickness-chart').then((m) => ({ default: m.ThicknessChart })));
 
 type SortKey = (typeof SORT_KEYS)[number];
@@ -41,15 +46,120 @@ function SelectedCandidate({ request, result }: { request: EvaluateRequest; resu
   );
 }
 
-export function EvaluatePage() {
+/** Navigation state after saving: shortlist this candidate once the saved case is evaluated. */
+interface PendingShortlist {
+  shortlistPropertySetId?: number;
+}
+
+function SavedCaseBanner({ saved, linked, onSave }: { saved: LoadCaseDto; linked: boolean; onSave: (() => void) | null }) {
+  const projects = useMyProjects();
+  const project = projects.data?.find((p) => p.id === saved.projectId);
+  return (
+    <div role="note" className="rounded-plate border-l-4 border-sounding bg-sounding-light/60 px-3 py-2 text-sm" data-testid="saved-load-case">
+      Load case <strong>{saved.name}</strong> of{' '}
+      <Link to={`/projects/${saved.projectId}`} className="font-bold text-sounding underline">
+        {project?.name ?? 'its project'}
+      </Link>
+      .
+      {linked ? (
+        ' Shortlists added from this table belong to it.'
+      ) : (
+        <>
+          {' '}
+          <span className="font-bold text-verdict-watch">The form has changed since it was opened</span>: the table is for the changed case.{' '}
+          {onSave ? (
+            <button type="button" className="font-bold text-sounding underline" onClick={onSave}>
+              Save it
+            </button>
+          ) : null}{' '}
+          to shortlist candidates for it.
+        </>
+      )}
+    </div>
+  );
+}
+
+/**
+ * The Evaluate page. `?loadCase=<id>` opens a load case saved in a project: the form shows it in
+ * the chosen units and candidates can be shortlisted for it.
+ */
+export function EvaluatePage({ canSave = false, meId = 0 }: { canSave?: boolean; meId?: number }) {
+  const [params] = useSearchParams();
+  const raw = params.get('loadCase');
+  const loadCaseId = raw && /^[1-9]\d{0,9}$/.test(raw) ? Number(raw) : null;
+  const saved = useSavedLoadCase(loadCaseId);
+  if (raw !== null) {
+    if (loadCaseId === null || saved.isError) {
+      return (
+        <div className="flex max-w-xl flex-col gap-3">
+          <h1 className="text-2xl font-bold">Evaluate</h1>
+          <ErrorState error={saved.error} onRetry={loadCaseId === null ? undefined : () => void saved.refetch()} />
+          <Link to="/evaluate" className="font-bold text-sounding underline">
+            Start from the example load case instead
+          </Link>
+        </div>
+      );
+    }
+    if (saved.isPending) return <Spinner label="Opening the saved load case…" />;
+    return <EvaluateWorkspace key={`saved-${saved.data.id}`} saved={saved.data} canSave={canSave} meId={meId} />;
+  }
+  return <EvaluateWorkspace key="example" saved={null} canSave={canSave} meId={meId} />;
+}
+
+function EvaluateWorkspace({ saved, canSave, meId }: { saved: LoadCaseDto | null; canSave: boolean; meId: number }) {
   const { format } = useUnits();
-  const [request, setRequest] = useState<EvaluateRequest>(initialRequest);
-  const [formValues, setFormValues] = useState<LoadCaseForm>(DEMO_LOAD_CASE_SI);
+  const navigate = useNavigate();
+  const location = useLocation();
+  const [request, setRequest] = useState<EvaluateRequest>(() => (saved ? requestFromLoadCase(saved.loadCase, saved.filters) : initialRequest()));
+  const [formValues, setFormValues] = useState<LoadCaseForm>(() => (saved ? formFromLoadCase(saved.loadCase, saved.filters) : DEMO_LOAD_CASE_SI));
   const [selected, setSelected] = useState<string | null>(null);
+  // Whether the table is for the saved load case as saved (so shortlists can belong to it).
+  const [linked, setLinked] = useState(saved !== null);
+  const [saving, setSaving] = useState<EvaluateRequest | null>(null);
+  const [shortlisting, setShortlisting] = useState<CandidateResult | null>(null);
+  const [pendingCandidate, setPendingCandidate] = useState<CandidateResult | null>(null);
+  const [notice, setNotice] = useState<{ text: string; shortlistId: number } | null>(null);
   const evaluation = useEvaluation(request);
   const data = evaluation.data;
   const hull = request.loadCase.component.type === 'sphere' || request.loadCase.component.type === 'cylinder';
   const selectedResult = data?.results.find((r) => resultKey(r) === selected) ?? data?.results[0];
+
+  // Arrived here by saving in order to shortlist: open the shortlist dialog for that candidate.
+  const pendingId = (location.state as PendingShortlist | null)?.shortlistPropertySetId;
+  useEffect(() => {
+    if (pendingId === undefined || !data || !saved) return;
+    const result = data.results.find((r) => r.propertySetId === pendingId);
+    if (result) setShortlisting(result);
+    navigate(`${location.pathname}${location.search}`, { replace: true, state: null });
+  }, [pendingId, data, saved, navigate, location.pathname, location.search]);
+
+  const openSave = (req: EvaluateRequest = request) => setSaving(req);
+  const shortlist = (result: CandidateResult) => {
+    setNotice(null);
+    if (saved && linked) return setShortlisting(result);
+    // A shortlist belongs to a saved load case: save this one first, then come back to it.
+    setPendingCandidate(result);
+    openSave();
+  };
+  const onSaved = (lc: LoadCaseDto) => {
+    setSaving(null);
+    const candidate = pendingCandidate;
+    setPendingCandidate(null);
+    if (saved && lc.id === saved.id) {
+      // Changes saved to the opened case (from the form or the table): evaluate it as saved.
+      setRequest({ ...requestFromLoadCase(lc.loadCase, lc.filters), sortBy: request.sortBy });
+      setSelected(null);
+      setLinked(true);
+      if (candidate) setShortlisting(candidate);
+      return;
+    }
+    navigate(`/evaluate?loadCase=${lc.id}`, { state: candidate?.propertySetId !== undefined ? { shortlistPropertySetId: candidate.propertySetId } : null });
+  };
+  const onAdded = (s: ShortlistDto) => {
+    const name = shortlisting?.name ?? 'The candidate';
+    setShortlisting(null);
+    setNotice({ text: `${name} is on the shortlist “${s.name}” (${s.items.length} candidate${s.items.length === 1 ? '' : 's'}).`, shortlistId: s.id });
+  };
 
   return (
     <div className="grid gap-5 lg:grid-cols-[23rem_1fr]">
@@ -62,14 +172,32 @@ export function EvaluatePage() {
             onSubmit={(req, si) => {
               setFormValues(si);
               setSelected(null);
+              if (saved) setLinked(sameLoadCase(req.loadCase, saved.loadCase));
               setRequest({ ...req, sortBy: request.sortBy });
             }}
+            onSave={
+              canSave
+                ? (req) => {
+                    setPendingCandidate(null);
+                    openSave({ ...req, sortBy: request.sortBy });
+                  }
+                : undefined
+            }
           />
         </Panel>
       </div>
 
       <div className="flex min-w-0 flex-col gap-4">
         <Cautions compact />
+        {saved ? <SavedCaseBanner saved={saved} linked={linked} onSave={canSave ? () => openSave() : null} /> : null}
+        {notice ? (
+          <div role="status" className="rounded-plate border-l-4 border-verdict-pass bg-verdict-pass/10 px-3 py-2 text-sm" data-testid="shortlist-notice">
+            {notice.text}{' '}
+            <Link to={`/shortlists/${notice.shortlistId}`} className="font-bold text-sounding underline">
+              Open the shortlist
+            </Link>
+          </div>
+        ) : null}
         {evaluation.isError ? <ErrorState error={evaluation.error} onRetry={() => void evaluation.refetch()} /> : null}
         {evaluation.isPending ? <Spinner label="Evaluating the catalogue…" /> : null}
         {data ? (
@@ -109,7 +237,13 @@ export function EvaluatePage() {
                 ) : null}
               </p>
               {data.results.length ? (
-                <ResultsTable results={data.results} selectedKey={selectedResult ? resultKey(selectedResult) : null} onSelect={setSelected} hull={hull} />
+                <ResultsTable
+                  results={data.results}
+                  selectedKey={selectedResult ? resultKey(selectedResult) : null}
+                  onSelect={setSelected}
+                  hull={hull}
+                  onShortlist={canSave ? shortlist : undefined}
+                />
               ) : (
                 <EmptyState title="No catalogue candidates fit these filters">
                   Choose another family or transparency, or untick “Service range must cover the design temperatures”.
@@ -131,6 +265,26 @@ export function EvaluatePage() {
           </>
         ) : null}
       </div>
+      {canSave ? (
+        <>
+          <SaveLoadCaseDialog
+            open={saving !== null}
+            request={saving}
+            opened={saved}
+            purpose={
+              pendingCandidate
+                ? `A shortlist belongs to a saved load case. Save this one first; then ${pendingCandidate.name} can go on a shortlist for it.`
+                : undefined
+            }
+            onClose={() => {
+              setSaving(null);
+              setPendingCandidate(null);
+            }}
+            onSaved={onSaved}
+          />
+          {saved ? <ShortlistDialog result={shortlisting} loadCase={saved} authorId={meId} onClose={() => setShortlisting(null)} onAdded={onAdded} /> : null}
+        </>
+      ) : null}
     </div>
   );
 }

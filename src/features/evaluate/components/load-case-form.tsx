@@ -29,11 +29,14 @@ function Fieldset({ legend, children }: { legend: string; children: React.ReactN
 export function LoadCaseFormPanel({
   initial,
   onSubmit,
+  onSave,
   busy,
 }: {
   /** Initial values in SI. */
   initial: LoadCaseForm;
   onSubmit: (request: EvaluateRequest, shownSI: LoadCaseForm) => void;
+  /** When given, a "Save to a project" action hands over the checked form (as for onSubmit). */
+  onSave?: (request: EvaluateRequest, shownSI: LoadCaseForm) => void;
   busy: boolean;
 }) {
   const { system, label, format } = useUnits();
@@ -73,6 +76,11 @@ export function LoadCaseFormPanel({
   const submit = handleSubmit((values) => {
     const check = checkForm(values, system);
     if (check.ok) onSubmit(check.request, convertForm(values, system, 'SI-raw'));
+  });
+  // Saving checks the form the same way, so what is saved is what would be evaluated.
+  const save = handleSubmit((values) => {
+    const check = checkForm(values, system);
+    if (check.ok) onSave?.(check.request, convertForm(values, system, 'SI-raw'));
   });
 
   const len = label('length');
@@ -199,6 +207,11 @@ export function LoadCaseFormPanel({
       <Button type="submit" disabled={busy}>
         {busy ? 'Evaluating…' : 'Evaluate candidates'}
       </Button>
+      {onSave ? (
+        <Button tone="quiet" onClick={() => void save()}>
+          Save to a project…
+        </Button>
+      ) : null}
     </form>
   );
 }

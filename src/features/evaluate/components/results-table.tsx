@@ -11,23 +11,13 @@ import {
 import type { CandidateResult } from '@shared/engine';
 import { useUnits } from '@/lib/unit-system';
 import { SortableHeader } from '@/components/ui/sortable-header';
-import { MODE_COLOURS, MODE_LABELS } from '../modes';
+import { MarginCell, ModeTag } from '@/components/failure-modes';
+import { splitCandidateName } from '../candidate-name';
 
 const col = createColumnHelper<CandidateResult & { rank: number }>();
 
-export function ModeTag({ mode }: { mode: CandidateResult['governingMode'] }) {
-  return (
-    <span className="inline-flex items-center gap-1.5 text-sm font-bold" style={{ color: MODE_COLOURS[mode] }}>
-      <span aria-hidden className="inline-block h-2.5 w-2.5 rounded-full" style={{ background: MODE_COLOURS[mode] }} />
-      {MODE_LABELS[mode]}
-    </span>
-  );
-}
-
-export function MarginCell({ margin }: { margin: number }) {
-  const pct = `${margin >= 0 ? '+' : ''}${(margin * 100).toFixed(0)} %`;
-  return <span className={`font-bold ${margin >= 0 ? 'text-verdict-pass' : 'text-verdict-fail'}`}>{pct}</span>;
-}
+// The tags live with the shared failure-mode colours; re-exported for this feature's pages.
+export { ModeTag, MarginCell };
 
 function ModeBreakdown({ result }: { result: CandidateResult }) {
   const { format } = useUnits();
@@ -84,11 +74,14 @@ export function ResultsTable({
   selectedKey,
   onSelect,
   hull,
+  onShortlist,
 }: {
   results: CandidateResult[];
   selectedKey: string | null;
   onSelect: (key: string) => void;
   hull: boolean;
+  /** When given, catalogue candidates get an "Add to shortlist" action (only they can be shortlisted). */
+  onShortlist?: (result: CandidateResult) => void;
 }) {
   const { format, label } = useUnits();
   const [sorting, setSorting] = useState<SortingState>([]);
@@ -104,9 +97,7 @@ export function ResultsTable({
         cell: (c) => {
           // Catalogue names read "Material (condition)": show the condition on its own line.
           const name = c.getValue();
-          const cut = c.row.original.propertySetId ? name.indexOf(' (') : -1;
-          const head = cut > 0 ? name.slice(0, cut) : name;
-          const tail = cut > 0 ? name.slice(cut + 2, -1) : '';
+          const { material: head, condition: tail } = c.row.original.propertySetId ? splitCandidateName(name) : { material: name, condition: '' };
           return (
             <div className="min-w-[15rem] max-w-[22rem]">
               {c.row.original.propertySetId ? (
@@ -177,7 +168,9 @@ export function ResultsTable({
                   {flexRender(h.column.columnDef.header, h.getContext())}
                 </SortableHeader>
               ))}
-              <th className="px-2" />
+              <th className="sticky right-0 bg-chart-raised px-2">
+                <span className="sr-only">Actions</span>
+              </th>
             </tr>
           ))}
         </thead>
@@ -197,7 +190,21 @@ export function ResultsTable({
                       {flexRender(cell.column.columnDef.cell, cell.getContext())}
                     </td>
                   ))}
-                  <td className="px-2">
+                  {/* Kept in view at the right edge while the wide table scrolls sideways. */}
+                  <td className={`sticky right-0 whitespace-nowrap px-2 ${selectedKey === key ? 'bg-sounding-light' : 'bg-chart-raised'}`}>
+                    {onShortlist && row.original.propertySetId !== undefined ? (
+                      <button
+                        type="button"
+                        aria-label={`Add ${row.original.name} to a shortlist`}
+                        onClick={(e) => {
+                          e.stopPropagation();
+                          onShortlist(row.original);
+                        }}
+                        className="mr-1 rounded-plate border border-chart-line px-2 py-0.5 text-xs font-bold text-sounding hover:bg-chart-deep"
+                      >
+                        + Shortlist
+                      </button>
+                    ) : null}
                     <button
                       type="button"
                       aria-expanded={expanded}

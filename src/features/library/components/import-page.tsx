@@ -11,7 +11,7 @@ import { useUnits } from '@/lib/unit-system';
 import { previewImport, TEMPLATE_URL, useImportAll } from '../api/csv-import';
 import { issuesFromImportError, countDataRows } from '../import-model';
 import { formatBytes } from '../labels';
-import { ConfirmDialog } from './confirm-dialog';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { ProgressBar } from './progress';
 
 type Phase =

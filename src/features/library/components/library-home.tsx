@@ -7,7 +7,7 @@ import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/sta
 import { useLibrarySets, usePublishedSets } from '../api/library-sets';
 import { STATUS_LABELS, STATUS_TONE, formatDateTime } from '../labels';
 import { isOwnWork } from './review-panel';
-import { LinkButton } from './link-button';
+import { LinkButton } from '@/components/ui/link-button';
 
 const setLink = (s: { id: number; material: { name: string }; condition: string }) => (
   <Link to={`/library/sets/${s.id}`} className="font-bold text-sounding hover:underline">

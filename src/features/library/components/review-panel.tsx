@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/button';
 import { Panel } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
 import { useSetStep } from '../api/library-sets';
-import { ConfirmDialog } from './confirm-dialog';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 
 /** Nobody publishes their own work: whoever drafted or last edited a set cannot approve or return it. */
 export function isOwnWork(set: LibrarySetDto, me: SessionUserDto): boolean {

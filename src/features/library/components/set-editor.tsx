@@ -25,7 +25,7 @@ import {
 } from '../draft-form';
 import { BASIS_LABELS, REFERENCE_KIND_LABELS } from '../labels';
 import { CellInput, CellSelect } from './cells';
-import { ConfirmDialog } from './confirm-dialog';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { SetHistory } from './set-history';
 
 function nest(errors: DraftErrors): FieldErrors<DraftForm> {

@@ -1,10 +1,11 @@
 import { useEffect, useId, useRef, type ReactNode } from 'react';
-import { Button } from '@/components/ui/button';
+import { Button } from './button';
 
 /**
- * A modal confirmation on the native <dialog>: the browser keeps focus inside it and makes the
- * page behind inert; Escape cancels. Focus goes to the element marked data-autofocus (or the
- * Cancel button) on opening, and back to where it was on closing.
+ * A modal confirmation (or small form) on the native <dialog>: the browser keeps focus inside it
+ * and makes the page behind inert; Escape cancels. Focus goes to the element marked
+ * data-autofocus (or the Cancel button) on opening, and back to where it was on closing.
+ * Shared by the projects, Evaluate and admin pages.
  */
 export function ConfirmDialog({
   open,

@@ -1,7 +1,7 @@
 import { Bar } from 'react-chartjs-2';
-import '@/components/charts/setup';
+import './setup';
 import { FAILURE_MODES, type CandidateResult } from '@shared/engine';
-import { MODE_COLOURS, MODE_LABELS } from '../modes';
+import { MODE_COLOURS, MODE_LABELS } from '@/components/failure-modes';
 
 /**
  * Each candidate's margin in every mode it has (tension, compression, shear, buckling), against

@@ -1,0 +1,3 @@
+import { ForgotPasswordPage } from '@/features/account/components/forgot-password-page';
+
+export const Component = ForgotPasswordPage;

@@ -1,0 +1,3 @@
+import { ResetPasswordPage } from '@/features/account/components/reset-password-page';
+
+export const Component = ResetPasswordPage;

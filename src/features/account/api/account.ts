@@ -1,0 +1,16 @@
+import { useMutation } from '@tanstack/react-query';
+import { api } from '@/lib/api-client';
+import type { SessionUserDto } from '@shared/schemas/auth';
+
+/** Account steps: all answer with a message or the new session's user; none is cached. */
+export const useChangePassword = () =>
+  useMutation({ mutationFn: (input: { currentPassword: string; newPassword: string }) => api.post<{ message: string }>('/auth/password', input) });
+
+export const useAcceptInvitation = () =>
+  useMutation({ mutationFn: (input: { token: string; name: string; password: string }) => api.post<{ user: SessionUserDto }>('/auth/invitations/accept', input) });
+
+export const useRequestPasswordReset = () =>
+  useMutation({ mutationFn: (input: { email: string }) => api.post<{ message: string }>('/auth/password-reset/request', input) });
+
+export const useResetPassword = () =>
+  useMutation({ mutationFn: (input: { token: string; password: string }) => api.post<{ message: string }>('/auth/password-reset', input) });

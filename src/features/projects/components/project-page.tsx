@@ -1,0 +1,321 @@
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { ROLE_LABELS } from '@shared/schemas/auth';
+import type { ProjectDto, UserSummaryDto } from '@shared/schemas/projects';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { SelectField } from '@/components/ui/field';
+import { LinkButton } from '@/components/ui/link-button';
+import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import { ApiError } from '@/lib/api-client';
+import { formatDate, formatDateTime } from '@/lib/dates';
+import { useUnits } from '@/lib/unit-system';
+import {
+  useAddMember,
+  usePeople,
+  useProject,
+  useProjectLoadCases,
+  useProjectRecords,
+  useProjectShortlists,
+  useRemoveMember,
+  useUpdateProject,
+} from '../api/projects';
+import { summarizeLoadCase } from '../load-case-text';
+import type { Viewer } from '../shortlist-model';
+import { Breadcrumb, ShortlistStatusTag } from './bits';
+import { ProjectFormDialog } from './project-form-dialog';
+
+const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
+
+function Members({ project, canManage }: { project: ProjectDto; canManage: boolean }) {
+  const people = usePeople(canManage);
+  const add = useAddMember(project.id);
+  const remove = useRemoveMember(project.id);
+  const [chosen, setChosen] = useState('');
+  const [removing, setRemoving] = useState<UserSummaryDto | null>(null);
+  const memberIds = new Set(project.members.map((m) => m.id));
+  const candidates = (people.data ?? []).filter((p) => !memberIds.has(p.id));
+
+  return (
+    <Panel title={`Members (${project.members.length})`}>
+      <ul className="flex flex-col gap-2" aria-label="Members">
+        {project.members.map((m) => (
+          <li key={m.id} className="flex items-start justify-between gap-2 text-sm">
+            <span>
+              <span className="font-bold">{m.name}</span> {m.id === project.owner.id ? <Tag tone="brass">owner</Tag> : null}
+              <span className="block text-xs text-ink-soft">
+                {ROLE_LABELS[m.role]} · {m.email}
+              </span>
+            </span>
+            {canManage && m.id !== project.owner.id ? (
+              <Button
+                tone="quiet"
+                className="!px-2 !py-0.5 text-xs"
+                aria-label={`Remove ${m.name} from the project`}
+                onClick={() => {
+                  remove.reset();
+                  setRemoving(m);
+                }}
+              >
+                Remove
+              </Button>
+            ) : null}
+          </li>
+        ))}
+      </ul>
+      {canManage ? (
+        <form
+          className="mt-4 flex items-end gap-2 border-t border-chart-line pt-3"
+          onSubmit={(e) => {
+            e.preventDefault();
+            if (!chosen) return;
+            add.mutate(Number(chosen), { onSuccess: () => setChosen('') });
+          }}
+        >
+          <SelectField
+            label="Add a member"
+            wrapperClassName="flex-1"
+            value={chosen}
+            onChange={(e) => setChosen(e.target.value)}
+            disabled={people.isPending || people.isError}
+            error={add.isError ? errorText(add.error) : people.isError ? errorText(people.error) : undefined}
+            hint={people.isPending ? 'Loading people…' : candidates.length === 0 ? 'Everyone with an active account is a member already.' : undefined}
+          >
+            <option value="">Choose a person…</option>
+            {candidates.map((p) => (
+              <option key={p.id} value={p.id}>
+                {p.name} ({ROLE_LABELS[p.role]})
+              </option>
+            ))}
+          </SelectField>
+          <Button type="submit" disabled={!chosen || add.isPending}>
+            {add.isPending ? 'Adding…' : 'Add'}
+          </Button>
+        </form>
+      ) : (
+        <p className="mt-3 text-xs text-ink-soft">The project's owner or an administrator adds and removes members.</p>
+      )}
+      <ConfirmDialog
+        open={removing !== null}
+        title={`Remove ${removing?.name ?? ''} from the project?`}
+        confirmLabel="Remove member"
+        tone="danger"
+        busy={remove.isPending}
+        busyLabel="Removing…"
+        error={remove.isError ? errorText(remove.error) : undefined}
+        onClose={() => setRemoving(null)}
+        onConfirm={() => removing && remove.mutate(removing.id, { onSuccess: () => setRemoving(null) })}
+      >
+        <p>They will no longer see this project's load cases, shortlists and design records. What they wrote stays in the project.</p>
+      </ConfirmDialog>
+    </Panel>
+  );
+}
+
+function LoadCases({ projectId, canEvaluate }: { projectId: number; canEvaluate: boolean }) {
+  const { system } = useUnits();
+  const loadCases = useProjectLoadCases(projectId);
+  if (loadCases.isPending) return <Spinner label="Loading load cases…" />;
+  if (loadCases.isError) return <ErrorState error={loadCases.error} onRetry={() => void loadCases.refetch()} />;
+  if (!loadCases.data.length) {
+    return (
+      <EmptyState title="No load cases yet" action={canEvaluate ? <LinkButton to="/evaluate">Go to Evaluate</LinkButton> : null}>
+        In Evaluate, set up the load case and choose “Save to a project…”; it is kept here for shortlists and sign-off.
+      </EmptyState>
+    );
+  }
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Load cases">
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th scope="col" className="py-1 pr-3">Load case</th>
+            <th scope="col" className="py-1 pr-3">Saved by</th>
+            <th scope="col" className="py-1 pr-3">Updated</th>
+            <th scope="col" className="py-1" />
+          </tr>
+        </thead>
+        <tbody>
+          {loadCases.data.map((lc) => (
+            <tr key={lc.id} className="border-t border-chart-line/60 align-top">
+              <td className="py-2 pr-3">
+                <span className="font-bold">{lc.name}</span>
+                <span className="block text-xs text-ink-soft">{summarizeLoadCase(lc.loadCase, system)}</span>
+                {lc.notes ? <span className="block whitespace-pre-line text-xs text-ink-faint">{lc.notes}</span> : null}
+              </td>
+              <td className="py-2 pr-3">{lc.createdBy?.name ?? '—'}</td>
+              <td className="whitespace-nowrap py-2 pr-3">{formatDate(lc.updatedAt)}</td>
+              <td className="py-2 text-right">
+                {canEvaluate ? (
+                  <LinkButton tone="quiet" to={`/evaluate?loadCase=${lc.id}`} className="!px-2 !py-0.5 text-xs" aria-label={`Open ${lc.name} in Evaluate`}>
+                    Open in Evaluate
+                  </LinkButton>
+                ) : null}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function Shortlists({ projectId }: { projectId: number }) {
+  const shortlists = useProjectShortlists(projectId);
+  const loadCases = useProjectLoadCases(projectId);
+  if (shortlists.isPending) return <Spinner label="Loading shortlists…" />;
+  if (shortlists.isError) return <ErrorState error={shortlists.error} onRetry={() => void shortlists.refetch()} />;
+  if (!shortlists.data.length) {
+    return (
+      <EmptyState title="No shortlists yet">
+        Open one of the load cases in Evaluate and use “+ Shortlist” on a candidate. Submit the shortlist when it is ready; a second engineer checks it.
+      </EmptyState>
+    );
+  }
+  const loadCaseName = (id: number) => loadCases.data?.find((lc) => lc.id === id)?.name ?? `Load case ${id}`;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Shortlists">
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th scope="col" className="py-1 pr-3">Shortlist</th>
+            <th scope="col" className="py-1 pr-3">Status</th>
+            <th scope="col" className="py-1 pr-3">Author</th>
+            <th scope="col" className="py-1 pr-3 text-right">Candidates</th>
+            <th scope="col" className="py-1 pr-3">Updated</th>
+            <th scope="col" className="py-1">Record</th>
+          </tr>
+        </thead>
+        <tbody>
+          {shortlists.data.map((s) => (
+            <tr key={s.id} className="border-t border-chart-line/60 align-top">
+              <td className="py-2 pr-3">
+                <Link to={`/shortlists/${s.id}`} className="font-bold text-sounding hover:underline">
+                  {s.name}
+                </Link>
+                <span className="block text-xs text-ink-soft">for {loadCaseName(s.loadCaseId)}</span>
+              </td>
+              <td className="py-2 pr-3">
+                <ShortlistStatusTag status={s.status} />
+              </td>
+              <td className="py-2 pr-3">{s.author.name}</td>
+              <td className="py-2 pr-3 text-right">{s.itemCount}</td>
+              <td className="whitespace-nowrap py-2 pr-3">{formatDate(s.updatedAt)}</td>
+              <td className="py-2">
+                {s.designRecordId ? (
+                  <Link to={`/records/${s.designRecordId}`} className="text-sounding underline">
+                    Design record
+                  </Link>
+                ) : (
+                  <span className="text-ink-faint">—</span>
+                )}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function Records({ projectId }: { projectId: number }) {
+  const records = useProjectRecords(projectId);
+  if (records.isPending) return <Spinner label="Loading design records…" />;
+  if (records.isError) return <ErrorState error={records.error} onRetry={() => void records.refetch()} />;
+  if (!records.data.length) {
+    return <EmptyState title="No design records yet">A design record is frozen when a checker checks a submitted shortlist. It keeps the inputs, results and data versions as they were.</EmptyState>;
+  }
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Design records">
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th scope="col" className="py-1 pr-3">Record</th>
+            <th scope="col" className="py-1 pr-3">Load case</th>
+            <th scope="col" className="py-1 pr-3">Author</th>
+            <th scope="col" className="py-1 pr-3">Checker</th>
+            <th scope="col" className="py-1">Checked</th>
+          </tr>
+        </thead>
+        <tbody>
+          {records.data.map((r) => (
+            <tr key={r.id} className="border-t border-chart-line/60 align-top">
+              <td className="py-2 pr-3">
+                <Link to={`/records/${r.id}`} className="font-bold text-sounding hover:underline">
+                  {r.name}
+                </Link>
+              </td>
+              <td className="py-2 pr-3">{r.loadCase}</td>
+              <td className="py-2 pr-3">{r.author}</td>
+              <td className="py-2 pr-3">{r.checker}</td>
+              <td className="whitespace-nowrap py-2">{formatDateTime(r.checkedAt)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+export function ProjectPage({ id, me }: { id: number; me: Viewer }) {
+  const project = useProject(id);
+  const update = useUpdateProject(id);
+  const [editing, setEditing] = useState(false);
+
+  if (project.isPending) return <Spinner label="Loading the project…" />;
+  if (project.isError) return <ErrorState error={project.error} onRetry={() => void project.refetch()} />;
+  const p = project.data;
+  const canWrite = me.permissions.includes('project:write');
+  const canManage = canWrite && (me.role === 'admin' || p.owner.id === me.id);
+  const canEvaluate = me.permissions.includes('evaluate');
+
+  return (
+    <div className="flex flex-col gap-4">
+      <Breadcrumb trail={[{ to: '/projects', label: 'Projects' }, { label: p.name }]} />
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h1 className="text-2xl font-bold">{p.name}</h1>
+          <p className="text-sm text-ink-soft">
+            Owned by {p.owner.name} · started {formatDate(p.createdAt)} · {p.counts.loadCases} load case{p.counts.loadCases === 1 ? '' : 's'},{' '}
+            {p.counts.shortlists} shortlist{p.counts.shortlists === 1 ? '' : 's'}, {p.counts.checked} checked
+          </p>
+        </div>
+        {canManage ? (
+          <Button tone="quiet" onClick={() => setEditing(true)}>
+            Edit name and description…
+          </Button>
+        ) : null}
+      </div>
+      {p.description ? <p className="max-w-3xl whitespace-pre-line text-sm">{p.description}</p> : <p className="text-sm text-ink-faint">No description.</p>}
+
+      <div className="grid gap-4 lg:grid-cols-[1fr_20rem]">
+        <div className="flex min-w-0 flex-col gap-4">
+          <Panel title="Load cases">
+            <LoadCases projectId={id} canEvaluate={canEvaluate} />
+          </Panel>
+          <Panel title="Shortlists">
+            <Shortlists projectId={id} />
+          </Panel>
+          <Panel title="Design records">
+            <Records projectId={id} />
+          </Panel>
+        </div>
+        <div>
+          <Members project={p} canManage={canManage} />
+        </div>
+      </div>
+
+      <ProjectFormDialog
+        open={editing}
+        title="Edit the project"
+        confirmLabel="Save"
+        initial={{ name: p.name, description: p.description }}
+        onClose={() => setEditing(false)}
+        onSave={async (values) => {
+          await update.mutateAsync(values);
+          setEditing(false);
+        }}
+      />
+    </div>
+  );
+}

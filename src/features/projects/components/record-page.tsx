@@ -1,0 +1,339 @@
+import { lazy, Suspense } from 'react';
+import { Link } from 'react-router-dom';
+import type { CandidateResult } from '@shared/engine';
+import type { DesignRecordContent, DesignRecordDto } from '@shared/schemas/projects';
+import { FAMILY_LABELS, type ReferenceDto } from '@shared/schemas/catalogue';
+import { MarginCell, ModeTag } from '@/components/failure-modes';
+import { Button } from '@/components/ui/button';
+import { ErrorState, Spinner, Tag } from '@/components/ui/states';
+import { formatDateTime } from '@/lib/dates';
+import { useUnits } from '@/lib/unit-system';
+import { designRecordPdfUrl, useDesignRecord } from '../api/shortlists';
+import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
+import './record-print.css';
+
+const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
+
+const REFERENCE_KINDS: Record<ReferenceDto['kind'], string> = {
+  standard: 'Standard',
+  handbook: 'Handbook',
+  paper: 'Paper',
+  'test-report': 'Test report',
+  'supplier-data-sheet': 'Supplier data sheet',
+};
+
+/** A titled part of the record; short ones are kept on one printed page. */
+function Section({ title, children, className = '', keepTogether = false }: { title: string; children: React.ReactNode; className?: string; keepTogether?: boolean }) {
+  return (
+    <section className={`${keepTogether ? 'record-keep' : ''} rounded-plate bg-chart-raised p-4 shadow-plate print:bg-white print:p-0 print:shadow-none ${className}`}>
+      <h2 className="mb-2 border-b border-chart-line pb-1 text-sm font-bold uppercase tracking-wide text-ink-soft">{title}</h2>
+      {children}
+    </section>
+  );
+}
+
+function SignOff({ content }: { content: DesignRecordContent }) {
+  return (
+    <table className="w-full text-sm" aria-label="Sign-off">
+      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+        <tr>
+          <th scope="col" className="py-1 pr-3" />
+          <th scope="col" className="py-1 pr-3">Name</th>
+          <th scope="col" className="py-1 pr-3">E-mail</th>
+          <th scope="col" className="py-1">Date</th>
+        </tr>
+      </thead>
+      <tbody>
+        <tr className="border-t border-chart-line/60">
+          <th scope="row" className="py-1.5 pr-3 text-left">Prepared and submitted</th>
+          <td className="py-1.5 pr-3" data-testid="record-author">{content.author.name}</td>
+          <td className="py-1.5 pr-3">{content.author.email}</td>
+          <td className="py-1.5">{formatDateTime(content.shortlist.submittedAt)}</td>
+        </tr>
+        <tr className="border-t border-chart-line/60">
+          <th scope="row" className="py-1.5 pr-3 text-left">Checked</th>
+          <td className="py-1.5 pr-3" data-testid="record-checker">{content.checker.name}</td>
+          <td className="py-1.5 pr-3">{content.checker.email}</td>
+          <td className="py-1.5">{formatDateTime(content.shortlist.checkedAt)}</td>
+        </tr>
+        <tr className="border-t border-chart-line/60 align-top">
+          <th scope="row" className="py-1.5 pr-3 text-left">Checker's comment</th>
+          <td colSpan={3} className="whitespace-pre-line py-1.5">
+            {content.shortlist.checkComment || <span className="text-ink-faint">none</span>}
+          </td>
+        </tr>
+      </tbody>
+    </table>
+  );
+}
+
+function RankedTable({ content }: { content: DesignRecordContent }) {
+  const { format, label } = useUnits();
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Shortlisted candidates">
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th scope="col" className="py-1 pr-2 text-right">#</th>
+            <th scope="col" className="py-1 pr-3">Candidate</th>
+            <th scope="col" className="py-1 pr-3">Governed by</th>
+            <th scope="col" className="py-1 pr-3 text-right">Safety factor</th>
+            <th scope="col" className="py-1 pr-3 text-right">Target</th>
+            <th scope="col" className="py-1 pr-3 text-right">Margin</th>
+            <th scope="col" className="py-1 pr-3 text-right">
+              Required t <span className="normal-case">({label('length')})</span>
+            </th>
+            <th scope="col" className="py-1 pr-3 text-right">
+              Mass <span className="normal-case">({label('massPerArea')})</span>
+            </th>
+            <th scope="col" className="py-1 text-right">Warnings</th>
+          </tr>
+        </thead>
+        <tbody>
+          {content.candidates.map((c, i) => (
+            <tr key={c.propertySet.id} className="border-t border-chart-line/60 align-top">
+              <td className="py-1.5 pr-2 text-right">{i + 1}</td>
+              <td className="py-1.5 pr-3">
+                <SetName set={c.propertySet} link={false} />
+              </td>
+              <td className="py-1.5 pr-3">
+                <ModeTag mode={c.result.governingMode} />
+              </td>
+              <td className="py-1.5 pr-3 text-right">{c.result.safetyFactor.toFixed(2)}</td>
+              <td className="py-1.5 pr-3 text-right">{c.result.targetSafetyFactor.toFixed(2)}</td>
+              <td className="py-1.5 pr-3 text-right">
+                <MarginCell margin={c.result.margin} />
+              </td>
+              <td className="py-1.5 pr-3 text-right">
+                {c.result.requiredThickness === null ? 'none suffices' : format('length', c.result.requiredThickness, { unit: false })}
+              </td>
+              <td className="py-1.5 pr-3 text-right">{format('massPerArea', c.result.massPerArea, { unit: false })}</td>
+              <td className="py-1.5 text-right">{c.result.warnings.length || '—'}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function CandidateModes({ index, note, result }: { index: number; note: string; result: CandidateResult }) {
+  const { format } = useUnits();
+  return (
+    <article className="record-candidate border-t border-chart-line pt-3 first:border-t-0 first:pt-0" aria-label={`Candidate ${index + 1}: ${result.name}`}>
+      <h3 className="font-bold">
+        {index + 1}. {result.name}
+      </h3>
+      <p className="mt-1 whitespace-pre-line text-sm">
+        <span className="text-ink-soft">Note: </span>
+        {note || <span className="text-ink-faint">none</span>}
+      </p>
+      <table className="mt-2 w-full text-sm" aria-label={`Modes of ${result.name}`}>
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th scope="col" className="pr-2">Mode</th>
+            <th scope="col" className="pr-2 text-right">Stress</th>
+            <th scope="col" className="pr-2 text-right">Allowable</th>
+            <th scope="col" className="whitespace-nowrap pr-2 text-right">Safety factor</th>
+            <th scope="col" className="whitespace-nowrap pr-2 text-right">Needs t</th>
+            <th scope="col">Model and source</th>
+          </tr>
+        </thead>
+        <tbody>
+          {result.modes.map((m) => (
+            <tr key={m.mode} className="border-t border-chart-line/60 align-top">
+              <td className="py-1 pr-2">
+                <ModeTag mode={m.mode} />
+              </td>
+              <td className="whitespace-nowrap py-1 pr-2 text-right">{format('stress', m.stress)}</td>
+              <td className="whitespace-nowrap py-1 pr-2 text-right">{format('stress', m.allowable)}</td>
+              <td className="whitespace-nowrap py-1 pr-2 text-right">{m.safetyFactor.toFixed(2)}</td>
+              <td className="whitespace-nowrap py-1 pr-2 text-right">{m.requiredThickness === null ? 'none suffices' : format('length', m.requiredThickness)}</td>
+              <td className="py-1 text-xs text-ink-soft">{m.model}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <p className="mt-2 text-xs text-ink-soft">
+        Strength factors applied: temperature {result.factors.temperature.toFixed(2)} (at {format('temperature', result.factors.worstTemperature)}), sustained load{' '}
+        {result.factors.sustainedLoad.toFixed(2)}, cycles {result.factors.cyclic.toFixed(2)}.
+      </p>
+      {result.warnings.length ? (
+        <ul className="mt-1 list-disc pl-5 text-xs text-verdict-watch">
+          {result.warnings.map((w) => (
+            <li key={w}>{w}</li>
+          ))}
+        </ul>
+      ) : (
+        <p className="mt-1 text-xs text-ink-soft">No warnings for this load case.</p>
+      )}
+    </article>
+  );
+}
+
+function Sources({ content }: { content: DesignRecordContent }) {
+  return (
+    <ol className="flex flex-col gap-3 text-sm" aria-label="Data sources">
+      {content.candidates.map((c, i) => {
+        const s = c.propertySet;
+        const r = s.reference;
+        return (
+          <li key={s.id} className="grid gap-1 md:grid-cols-[16rem_1fr] print:grid-cols-[14rem_1fr]">
+            <div>
+              <span className="font-bold">
+                {i + 1}. {s.material.name}
+              </span>
+              <span className="block text-xs text-ink-soft">{s.condition}</span>
+              <span className="block text-xs text-ink-soft" data-testid="record-set-version">
+                Property set #{s.id}, version {s.version} · {FAMILY_LABELS[s.material.family]}
+              </span>
+              <Link to={`/sets/${s.id}`} className="no-print text-xs text-sounding underline">
+                Open in the catalogue
+              </Link>
+            </div>
+            {r ? (
+              <div>
+                <Tag tone="brass">{REFERENCE_KINDS[r.kind]}</Tag> {r.identifier ? <span className="font-mono text-xs">{r.identifier}</span> : null}
+                <p className="font-bold">{r.title}</p>
+                <p className="text-ink-soft">
+                  {[r.authors, r.year].filter(Boolean).join(', ')}
+                  {r.location ? ` — ${r.location}` : ''}
+                </p>
+                {r.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{r.note}</p> : null}
+              </div>
+            ) : (
+              <p className="text-verdict-fail">No reference was recorded for this set.</p>
+            )}
+          </li>
+        );
+      })}
+    </ol>
+  );
+}
+
+function RecordView({ record, canExport }: { record: DesignRecordDto; canExport: boolean }) {
+  const { format, label } = useUnits();
+  const c = record.content;
+  const results = c.candidates.map((x) => x.result);
+  return (
+    <div className="record-page flex flex-col gap-4">
+      <div className="no-print flex flex-wrap items-center justify-between gap-3">
+        <Breadcrumb
+          trail={[
+            { to: '/projects', label: 'Projects' },
+            { to: `/projects/${record.projectId}`, label: c.project.name },
+            { to: `/shortlists/${record.shortlistId}`, label: c.shortlist.name },
+            { label: 'Design record' },
+          ]}
+        />
+        <div className="flex gap-2">
+          <Button tone="quiet" onClick={() => window.print()}>
+            Print
+          </Button>
+          {canExport ? (
+            <a href={designRecordPdfUrl(record.id)} download className="inline-flex items-center rounded-plate bg-sounding px-3 py-1.5 text-sm font-bold text-white hover:bg-sounding-dark">
+              Download PDF
+            </a>
+          ) : null}
+        </div>
+      </div>
+
+      <header className="flex flex-wrap items-end justify-between gap-2 border-b-2 border-ink pb-2 print:flex-nowrap">
+        <div>
+          <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">Isobath design record #{record.id}</p>
+          <h1 className="text-2xl font-bold">{c.shortlist.name}</h1>
+          <p className="text-sm text-ink-soft">
+            Project: {c.project.name} · load case “{c.loadCase.name}”
+          </p>
+        </div>
+        <p className="text-right text-xs text-ink-soft">
+          Frozen {formatDateTime(c.frozenAt)}
+          <br />
+          Pressure in {label('pressure')}, stress in {label('stress')}, length in {label('length')}
+        </p>
+      </header>
+
+      {record.newerData.length ? (
+        <div role="note" className="rounded-plate border-l-4 border-brass bg-brass-light/60 px-4 py-3 text-sm" data-testid="record-newer-data">
+          <strong>Newer data exists.</strong> The catalogue has published newer versions of property sets this record used. The record keeps the versions it was checked
+          with; review whether the change matters.
+          <ul className="mt-1 list-disc pl-5">
+            {record.newerData.map((n) => (
+              <li key={n.propertySetId}>
+                {n.name}: version in the record #{n.propertySetId}, newer{' '}
+                <Link to={`/sets/${n.newerVersionId}`} className="font-bold text-sounding underline">
+                  #{n.newerVersionId}
+                </Link>
+              </li>
+            ))}
+          </ul>
+        </div>
+      ) : null}
+
+      <aside aria-label="Cautions" className="rounded-plate border-l-4 border-brass bg-brass-light/60 px-4 py-3 text-sm print:bg-white">
+        <strong className="mr-1">Caution.</strong>
+        {c.cautions}
+      </aside>
+
+      <Section title="Sign-off" keepTogether>
+        <SignOff content={c} />
+      </Section>
+
+      <Section title="Load case" keepTogether>
+        <p className="mb-2 font-bold">{c.loadCase.name}</p>
+        <LoadCaseFacts
+          loadCase={c.loadCase.input}
+          extra={[
+            { label: 'Design pressure', value: format('pressure', c.pressure) },
+            { label: 'Proof test', value: format('pressure', c.proofTestPressure) },
+            { label: 'Pressure method', value: c.pressureMethod },
+          ]}
+        />
+        {c.loadCase.notes ? <p className="mt-2 whitespace-pre-line text-sm text-ink-soft">{c.loadCase.notes}</p> : null}
+      </Section>
+
+      <Section title="Candidates in the author's order" keepTogether>
+        <RankedTable content={c} />
+      </Section>
+
+      <Section title="Margins by mode" className="record-chart" keepTogether>
+        {/* Drawn at about the printable width of A4, so the printed chart is not scaled down. */}
+        <div className="max-w-[700px]">
+          <Suspense fallback={<Spinner label="Drawing…" />}>
+            <MarginChart results={results} />
+          </Suspense>
+        </div>
+      </Section>
+
+      <Section title="Each candidate's modes, models and warnings">
+        <div className="flex flex-col gap-4">
+          {c.candidates.map((x, i) => (
+            <CandidateModes key={x.propertySet.id} index={i} note={x.note} result={x.result} />
+          ))}
+        </div>
+      </Section>
+
+      <Section title="Data sources">
+        <Sources content={c} />
+      </Section>
+
+      <Section title="Models used">
+        <ul className="list-disc pl-5 text-xs text-ink-soft">
+          {c.engine.models.map((m) => (
+            <li key={m}>{m}</li>
+          ))}
+        </ul>
+        <p className="mt-2 text-xs text-ink-faint">
+          Record format {c.format} v{c.formatVersion}, frozen {formatDateTime(c.frozenAt)} from shortlist #{c.shortlist.id}.
+        </p>
+      </Section>
+    </div>
+  );
+}
+
+export function RecordPage({ id, canExport }: { id: number; canExport: boolean }) {
+  const record = useDesignRecord(id);
+  if (record.isPending) return <Spinner label="Loading the design record…" />;
+  if (record.isError) return <ErrorState error={record.error} onRetry={() => void record.refetch()} />;
+  return <RecordView record={record.data} canExport={canExport} />;
+}
