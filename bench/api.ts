@@ -24,7 +24,8 @@ export async function load(server: BenchServer, path: string, options: { method?
     url: `${server.baseUrl}${path}`,
     method: options.method ?? 'GET',
     body: options.body,
-    headers: { cookie: server.cookie, ...(options.body ? { 'content-type': 'application/json' } : {}) },
+    // As a browser does: answers may come gzipped.
+    headers: { cookie: server.cookie, 'accept-encoding': 'gzip, deflate, br', ...(options.body ? { 'content-type': 'application/json' } : {}) },
     connections: options.connections ?? 20,
     duration: options.seconds ?? 15,
   });

@@ -4,7 +4,8 @@
  */
 import os from 'node:os';
 import { writeFile, mkdir } from 'node:fs/promises';
-import { benchEngine } from './engine';
+import { execFileSync } from 'node:child_process';
+import type { EngineBench } from './engine';
 import { prepareBenchDatabase } from './prepare';
 import { closeDatabase } from '../server/db/sequelize';
 import { startBenchServer, rssOf } from './server';
@@ -28,8 +29,10 @@ async function main() {
   const catalogueSize = await prepareBenchDatabase();
   await closeDatabase();
 
-  console.log('[bench] engine (one core)');
-  const engine = benchEngine(Number(process.env.BENCH_ENGINE_SECONDS ?? 6));
+  console.log('[bench] engine (one core, in a fresh process)');
+  const engine = JSON.parse(
+    execFileSync(process.execPath, ['--import', 'tsx', 'bench/engine-cli.ts', process.env.BENCH_ENGINE_SECONDS ?? '6'], { encoding: 'utf8' }),
+  ) as EngineBench;
 
   console.log(`[bench] starting the server; autocannon, 20 connections, ${seconds} s per endpoint`);
   const server = await startBenchServer(databaseUrl);

@@ -11,7 +11,7 @@ export interface BenchServer {
 
 /** Starts the real server (production mode) on a free loopback port and signs in the bench engineer. */
 export async function startBenchServer(databaseUrl: string): Promise<BenchServer> {
-  const child: ChildProcess = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  const child: ChildProcess = spawn(process.execPath, [...(process.env.BENCH_NODE_FLAGS ?? '').split(' ').filter(Boolean), '--import', 'tsx', 'server/index.ts'], {
     env: {
       ...process.env,
       NODE_ENV: 'production',

@@ -2,6 +2,7 @@ import express, { type Express } from 'express';
 import session from 'express-session';
 import connectPgSimple from 'connect-pg-simple';
 import helmet from 'helmet';
+import compression from 'compression';
 import pg from 'pg';
 import path from 'node:path';
 import { existsSync } from 'node:fs';
@@ -9,6 +10,7 @@ import { env, ROOT_DIR } from './config/env';
 import { initModels } from './db/models';
 import { configurePassport } from './auth/passport';
 import { requireSignIn } from './auth/authorize';
+import { withSessionCache } from './auth/session-cache';
 import { sameOriginOnly } from './middleware/same-origin';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { authRouter } from './modules/auth/router';
@@ -38,6 +40,9 @@ export function createApp(): AppHandle {
 
   const app = express();
   app.disable('x-powered-by');
+  // API answers are not revalidated by ETag (the client caches through its query cache), and
+  // hashing every body cost more than answering; static files keep their own validators.
+  app.set('etag', false);
   app.set('trust proxy', 'loopback');
   app.set('query parser', 'simple');
 
@@ -61,19 +66,25 @@ export function createApp(): AppHandle {
     }),
   );
 
-  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 10, connectionTimeoutMillis: 3_000 });
+  const sessionPool = new pg.Pool({ connectionString: config.DATABASE_URL, max: 10, idleTimeoutMillis: 60_000, connectionTimeoutMillis: 3_000 });
   sessionPool.on('error', () => {
     /* idle client lost (database restarted); the pool reconnects on next use */
   });
   const PgStore = connectPgSimple(session);
-  const store = new PgStore({
+  const store = withSessionCache(new PgStore({
     pool: sessionPool,
     tableName: 'session',
     createTableIfMissing: false,
     pruneSessionInterval: config.NODE_ENV === 'test' ? false : 15 * 60,
     // Sessions last a fixed 12 h from sign-in; without this every request would also UPDATE its row.
     disableTouch: true,
-  });
+  }));
+
+  // Answers are gzipped on the fly, except the two served from the answer caches, which keep a
+  // gzipped copy and skip the compressor altogether.
+  const compress = compression({ threshold: 1024 });
+  const PRECOMPRESSED = new Set(['/api/evaluate', '/api/property-sets']);
+  app.use((req, res, next) => (PRECOMPRESSED.has(req.path) ? next() : compress(req, res, next)));
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb', strict: true }));

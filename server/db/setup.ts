@@ -7,6 +7,7 @@ import { seedDemoUsers } from './seeders/demo';
 import { seedDemoProject } from './seeders/demo-project';
 import { invalidateCatalogueSnapshot } from '../modules/property-sets/snapshot';
 import { forgetSessionUsers } from '../auth/passport';
+import { forgetAllSessions } from '../auth/session-cache';
 
 export interface SetupResult {
   migrations: string[];
@@ -59,5 +60,6 @@ export async function resetDatabase(options: { demoProject?: boolean } = {}): Pr
   await sequelize().query(`TRUNCATE ${TABLES.join(', ')} RESTART IDENTITY CASCADE`);
   invalidateCatalogueSnapshot();
   forgetSessionUsers();
+  forgetAllSessions();
   return setupDatabase({ demo: true, demoProject: options.demoProject ?? false });
 }

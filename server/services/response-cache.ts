@@ -1,9 +1,40 @@
+import { gzipSync } from 'node:zlib';
+import type { Request, Response } from 'express';
 import { LRUCache } from 'lru-cache';
+
+/** A serialized JSON answer, with its gzip form made once on first demand. */
+export class CachedBody {
+  private gz: Buffer | undefined;
+  private raw: Buffer | undefined;
+  constructor(readonly json: string) {}
+  /** The UTF-8 bytes, encoded once. */
+  bytes(): Buffer {
+    this.raw ??= Buffer.from(this.json, 'utf8');
+    return this.raw;
+  }
+  gzip(): Buffer {
+    this.gz ??= gzipSync(this.bytes(), { level: 6 });
+    return this.gz;
+  }
+}
 
 /**
  * A bounded cache of serialized JSON answers (least recently used out first). Callers put the
  * catalogue generation in the key, so a publish, edit or retire makes old answers unreachable.
  */
-export function jsonResponseCache(maxBytes: number): LRUCache<string, string> {
-  return new LRUCache<string, string>({ maxSize: maxBytes, sizeCalculation: (value) => Math.max(1, value.length) });
+export function jsonResponseCache(maxBytes: number): LRUCache<string, CachedBody> {
+  // Size: the string, its bytes and a gzip form (about a tenth) of each answer.
+  return new LRUCache<string, CachedBody>({ maxSize: maxBytes, sizeCalculation: (body) => Math.max(1, Math.ceil(body.json.length * 3.2)) });
+}
+
+/** Sends a cached answer, compressed once and reused when the client accepts gzip. */
+export function sendCached(req: Request, res: Response, body: CachedBody): void {
+  res.type('application/json');
+  res.vary('Accept-Encoding');
+  if (body.json.length > 1024 && req.acceptsEncodings('gzip', 'identity') === 'gzip') {
+    res.setHeader('Content-Encoding', 'gzip');
+    res.send(body.gzip());
+    return;
+  }
+  res.send(body.bytes());
 }

@@ -39,23 +39,11 @@ export interface Allowables {
 
 const POW10: number[] = Array.from({ length: 31 }, (_, i) => Number(`1e${i}`));
 
-const FMT_CACHE = new Map<number, string>();
-
 /**
  * Rounded for messages: 4 significant figures in the shortest decimal form, exactly as
- * `String(Number(x.toPrecision(4)))`. Memoised: the same load-case numbers are formatted for
- * every candidate, and formatting dominated the engine's profile.
+ * `String(Number(x.toPrecision(4)))` but several times faster for ordinary magnitudes.
  */
 export function fmt(x: number): string {
-  const hit = FMT_CACHE.get(x);
-  if (hit !== undefined) return hit;
-  const text = formatNumber(x);
-  if (FMT_CACHE.size >= 4096) FMT_CACHE.clear();
-  FMT_CACHE.set(x, text);
-  return text;
-}
-
-function formatNumber(x: number): string {
   if (x === 0 || !Number.isFinite(x)) return String(x);
   const ax = x < 0 ? -x : x;
   if (ax < 1e-6 || ax >= 1e21) return String(Number(x.toPrecision(4)));
@@ -220,6 +208,17 @@ function familyWord(family: Family | undefined): string {
   }
 }
 
+// Warnings that depend only on the load case and the material's family are the same for every
+// candidate of an evaluation: build each once per load case (the Conditions object) and reuse it.
+const MESSAGES = new WeakMap<Conditions, Map<string, string>>();
+function once(c: Conditions, key: string, build: () => string): string {
+  let byKey = MESSAGES.get(c);
+  if (!byKey) MESSAGES.set(c, (byKey = new Map()));
+  let text = byKey.get(key);
+  if (text === undefined) byKey.set(key, (text = build()));
+  return text;
+}
+
 /**
  * Allowables of `m` under `c`. Warnings about data coverage are appended to `warnings`.
  */
@@ -246,8 +245,10 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
     }
   } else if (polymer || m.family === undefined) {
     warnings.push(
-      `No temperature-dependence data: strengths are taken at the reference condition over ${fmt(tMin)} to ${fmt(tMax)} °C. ` +
-        `${familyWord(m.family)} may be markedly weaker when warm.`,
+      once(c, `noT|${m.family}`, () =>
+        `No temperature-dependence data: strengths are taken at the reference condition over ${fmt(tMin)} to ${fmt(tMax)} °C. ` +
+          `${familyWord(m.family)} may be markedly weaker when warm.`,
+      ),
     );
   }
   const st = m.serviceTemperature;
@@ -273,17 +274,21 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
   } else if (c.sustainedHours > 0) {
     if (polymer) {
       warnings.push(
-        `No sustained-load (creep) data in this property set: strength is NOT reduced for ${fmt(c.sustainedHours)} h of sustained load. ` +
-          `${familyWord(m.family)} loses strength and stiffness under sustained load; obtain creep-rupture data before relying on this result.`,
+        once(c, `noH|${m.family}`, () =>
+          `No sustained-load (creep) data in this property set: strength is NOT reduced for ${fmt(c.sustainedHours)} h of sustained load. ` +
+            `${familyWord(m.family)} loses strength and stiffness under sustained load; obtain creep-rupture data before relying on this result.`,
+        ),
       );
     } else if (brittle) {
       warnings.push(
-        `No sustained-load data in this property set: strength is not reduced for ${fmt(c.sustainedHours)} h of sustained load, ` +
-          'although glass and ceramics lose strength under sustained stress in water (static fatigue).',
+        once(c, 'noH|brittle', () =>
+          `No sustained-load data in this property set: strength is not reduced for ${fmt(c.sustainedHours)} h of sustained load, ` +
+            'although glass and ceramics lose strength under sustained stress in water (static fatigue).',
+        ),
       );
     } else {
       warnings.push(
-        `No sustained-load data in this property set: strength is not reduced for ${fmt(c.sustainedHours)} h of sustained load (factor 1.0 assumed).`,
+        once(c, 'noH|other', () => `No sustained-load data in this property set: strength is not reduced for ${fmt(c.sustainedHours)} h of sustained load (factor 1.0 assumed).`),
       );
     }
   }
@@ -302,8 +307,10 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
     }
   } else if (c.cycles > 1) {
     warnings.push(
-      `No cyclic (fatigue) data in this property set: strength is not reduced for ${fmt(c.cycles)} pressure cycles (factor 1.0 assumed).` +
-        (polymer ? ` ${familyWord(m.family)} windows and parts can crack under repeated pressurisation.` : ''),
+      once(c, `noC|${polymer ? m.family : ''}`, () =>
+        `No cyclic (fatigue) data in this property set: strength is not reduced for ${fmt(c.cycles)} pressure cycles (factor 1.0 assumed).` +
+          (polymer ? ` ${familyWord(m.family)} windows and parts can crack under repeated pressurisation.` : ''),
+      ),
     );
   }
 

@@ -156,8 +156,8 @@ export function thicknessForTarget<C>(
   return null;
 }
 
-/** Brent between two log-thicknesses whose residuals differ in sign; stops at 1e-9 in ln t or ln sf. */
+/** Brent between two log-thicknesses whose residuals differ in sign; stops at 1e-8 in ln t or ln sf (far below display precision). */
 function bracketed<C>(q: LogProblem<C>, ua: number, ga: number, ub: number, gb: number): number {
-  const u = ga < 0 ? brent(logResidual, q, ua, ub, ga, gb, 1e-9, 200, 1e-9) : brent(logResidual, q, ub, ua, gb, ga, 1e-9, 200, 1e-9);
+  const u = ga < 0 ? brent(logResidual, q, ua, ub, ga, gb, 1e-8, 200, 1e-8) : brent(logResidual, q, ub, ua, gb, ga, 1e-8, 200, 1e-8);
   return Math.exp(u);
 }

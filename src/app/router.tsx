@@ -1,7 +1,6 @@
 import { createBrowserRouter, Navigate, redirect, type LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
 import { meQueryOptions } from '@/features/auth/api/session';
-import { SignInPage } from '@/features/auth/components/sign-in-page';
 import { AppShell } from '@/components/app-shell';
 import { RouteError, NotFoundPage } from './route-error';
 
@@ -15,14 +14,9 @@ async function requireSession({ request }: LoaderFunctionArgs) {
   return null;
 }
 
-async function redirectIfSignedIn() {
-  const me = await queryClient.ensureQueryData(meQueryOptions());
-  if (me) throw redirect('/catalogue');
-  return null;
-}
-
 export const router = createBrowserRouter([
-  { path: '/sign-in', element: <SignInPage />, loader: redirectIfSignedIn, errorElement: <RouteError /> },
+  // Lazy like every page: the form library and its schemas stay out of the first chunk.
+  { path: '/sign-in', lazy: () => import('./routes/sign-in'), errorElement: <RouteError /> },
   // Reached from e-mail links or the sign-in page, without a session.
   { path: '/welcome', lazy: () => import('./routes/welcome'), errorElement: <RouteError /> },
   { path: '/forgot-password', lazy: () => import('./routes/forgot-password'), errorElement: <RouteError /> },

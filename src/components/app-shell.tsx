@@ -1,6 +1,6 @@
 import { NavLink, Outlet, useNavigate } from 'react-router-dom';
 import type { Permission } from '@shared/schemas/auth';
-import { ROLE_LABELS } from '@shared/schemas/auth';
+import { ROLE_LABELS } from '@shared/roles';
 import { useMe, useSignOut } from '@/features/auth/api/session';
 import { useUnits } from '@/lib/unit-system';
 import { Logo } from './logo';

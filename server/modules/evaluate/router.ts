@@ -5,7 +5,7 @@ import { evaluateRequestSchema, pressureQuerySchema } from '../../../shared/sche
 import { parse } from '../../middleware/validate';
 import { evaluateLoadCase, pressureAt } from './service';
 import { catalogueGeneration } from '../property-sets/snapshot';
-import { jsonResponseCache } from '../../services/response-cache';
+import { CachedBody, jsonResponseCache, sendCached } from '../../services/response-cache';
 
 export function evaluateRouter(): Router {
   const router = Router();
@@ -19,10 +19,10 @@ export function evaluateRouter(): Router {
     const key = `${catalogueGeneration()}|${caller.canDraft ? 'd' : 'p'}|${JSON.stringify(request)}`;
     let body = cache.get(key);
     if (body === undefined) {
-      body = JSON.stringify(await evaluateLoadCase(request, caller));
+      body = new CachedBody(JSON.stringify(await evaluateLoadCase(request, caller)));
       cache.set(key, body);
     }
-    res.type('application/json').send(body);
+    sendCached(req, res, body);
   });
   return router;
 }

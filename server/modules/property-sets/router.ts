@@ -7,7 +7,7 @@ import { materialCreateSchema } from '../../../shared/schemas/library';
 import { parse, parseId } from '../../middleware/validate';
 import { createMaterial, getMaterial, getPropertySet, listMaterials, listPropertySets } from './service';
 import { catalogueGeneration, filterPublished } from './snapshot';
-import { jsonResponseCache } from '../../services/response-cache';
+import { CachedBody, jsonResponseCache, sendCached } from '../../services/response-cache';
 
 const pageSchema = z.object({
   limit: z.coerce.number().int().min(1).max(5000).default(1000),
@@ -34,10 +34,10 @@ export function propertySetsRouter(): Router {
     let body = listCache.get(key);
     if (body === undefined) {
       const all = await filterPublished(query);
-      body = JSON.stringify({ items: all.slice(page.offset, page.offset + page.limit), total: all.length });
+      body = new CachedBody(JSON.stringify({ items: all.slice(page.offset, page.offset + page.limit), total: all.length }));
       listCache.set(key, body);
     }
-    res.type('application/json').send(body);
+    sendCached(req, res, body);
   });
   router.get('/:id', authorize('catalogue:read'), async (req, res) => {
     res.json(await getPropertySet(parseId(req.params.id), callerOf(req)));

@@ -10,6 +10,7 @@ import { hashPassword, verifyPassword } from '../../auth/passwords';
 import { recordAudit } from '../../services/audit';
 import { sendMailSafely } from '../../services/mail';
 import { env } from '../../config/env';
+import { forgetSessionsOf } from '../../auth/session-cache';
 
 export const INVITATION_HOURS = 72;
 export const RESET_HOURS = 1;
@@ -45,6 +46,7 @@ export async function listUsers(): Promise<AdminUserDto[]> {
 
 /** Ends every stored session of a user at once. */
 export async function endSessionsOf(userId: number, exceptSid?: string): Promise<number> {
+  forgetSessionsOf(userId);
   const [, result] = await sequelize().query(
     `DELETE FROM session WHERE (sess -> 'passport' ->> 'user') = :user ${exceptSid ? 'AND sid <> :sid' : ''}`,
     { replacements: { user: String(userId), sid: exceptSid ?? '' } },

@@ -243,3 +243,10 @@ export function sameLoadCase(a: LoadCaseInput, b: LoadCaseInput): boolean {
   const norm = (lc: LoadCaseInput) => ({ ...lc, proofFactor: lc.proofFactor ?? DEFAULT_PROOF_FACTOR });
   return nearlyEqual(norm(a), norm(b));
 }
+
+/** The request for the example load case the page opens with (SI). */
+export function exampleRequest(): EvaluateRequest {
+  const check = checkForm(convertForm(DEMO_LOAD_CASE_SI, 'SI-raw', 'SI'), 'SI');
+  if (!check.ok) throw new Error('The example load case does not validate');
+  return check.request;
+}

@@ -10,7 +10,7 @@ import { SelectField } from '@/components/ui/field';
 import { useUnits } from '@/lib/unit-system';
 import { candidateSetQueryOptions, useEvaluation } from '../api/evaluate';
 import { useMyProjects, useSavedLoadCase } from '../api/project-links';
-import { checkForm, convertForm, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, type LoadCaseForm } from '../form-model';
+import { exampleRequest, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, type LoadCaseForm } from '../form-model';
 import { LoadCaseFormPanel } from './load-case-form';
 import { ResultsTable, resultKey, ModeTag } from './results-table';
 import { SaveLoadCaseDialog } from './save-load-case-dialog';
@@ -26,12 +26,6 @@ const SORT_LABELS: Record<SortKey, string> = {
   massPerArea: 'Mass per unit area (lightest first)',
   weightToDisplacement: 'Weight to displacement (hulls)',
 };
-
-function initialRequest(): EvaluateRequest {
-  const check = checkForm(convertForm(DEMO_LOAD_CASE_SI, 'SI-raw', 'SI'), 'SI');
-  if (!check.ok) throw new Error('The demo load case does not validate');
-  return check.request;
-}
 
 function SelectedCandidate({ request, result }: { request: EvaluateRequest; result: CandidateResult }) {
   const set = useQuery({ ...candidateSetQueryOptions(result.propertySetId ?? 0), enabled: result.propertySetId !== undefined });
@@ -110,7 +104,7 @@ function EvaluateWorkspace({ saved, canSave, meId }: { saved: LoadCaseDto | null
   const { format } = useUnits();
   const navigate = useNavigate();
   const location = useLocation();
-  const [request, setRequest] = useState<EvaluateRequest>(() => (saved ? requestFromLoadCase(saved.loadCase, saved.filters) : initialRequest()));
+  const [request, setRequest] = useState<EvaluateRequest>(() => (saved ? requestFromLoadCase(saved.loadCase, saved.filters) : exampleRequest()));
   const [formValues, setFormValues] = useState<LoadCaseForm>(() => (saved ? formFromLoadCase(saved.loadCase, saved.filters) : DEMO_LOAD_CASE_SI));
   const [selected, setSelected] = useState<string | null>(null);
   // Whether the table is for the saved load case as saved (so shortlists can belong to it).

@@ -1,4 +1,4 @@
-import { Fragment, useMemo, useState } from 'react';
+import { Fragment, startTransition, useEffect, useMemo, useState } from 'react';
 import { Link } from 'react-router-dom';
 import {
   createColumnHelper,
@@ -13,6 +13,9 @@ import { useUnits } from '@/lib/unit-system';
 import { SortableHeader } from '@/components/ui/sortable-header';
 import { MarginCell, ModeTag } from '@/components/failure-modes';
 import { splitCandidateName } from '../candidate-name';
+
+/** Rows in the first paint of the ranking; the rest render right after. */
+const FIRST_ROWS = 20;
 
 const col = createColumnHelper<CandidateResult & { rank: number }>();
 
@@ -149,6 +152,14 @@ export function ResultsTable({
   );
 
   const table = useReactTable({ data, columns, state: { sorting }, onSortingChange: setSorting, getCoreRowModel: getCoreRowModel(), getSortedRowModel: getSortedRowModel() });
+  // The best rows paint first; the rest follow in a transition right after, so a long ranking
+  // does not hold back the first view of the table.
+  const [painted, setPainted] = useState(FIRST_ROWS);
+  useEffect(() => {
+    setPainted(FIRST_ROWS);
+    const id = setTimeout(() => startTransition(() => setPainted(Number.POSITIVE_INFINITY)), 0);
+    return () => clearTimeout(id);
+  }, [results]);
   const toggle = (key: string) =>
     setOpen((prev) => {
       const next = new Set(prev);
@@ -175,7 +186,7 @@ export function ResultsTable({
           ))}
         </thead>
         <tbody>
-          {table.getRowModel().rows.map((row) => {
+          {table.getRowModel().rows.slice(0, painted).map((row) => {
             const key = keyOf(row.original);
             const expanded = open.has(key);
             return (
