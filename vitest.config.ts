@@ -7,7 +7,8 @@ const alias = {
 };
 
 // Three projects: pure unit tests run in parallel; API and browser tests share one
-// PostgreSQL test database, so their files run one at a time.
+// PostgreSQL test database, so their files run one at a time, and the browser group starts only
+// after the unit and API group has finished (sequence.groupOrder).
 export default defineConfig({
   resolve: { alias },
   test: {
@@ -38,6 +39,7 @@ export default defineConfig({
           name: 'e2e',
           include: ['tests/e2e/**/*.test.ts'],
           fileParallelism: false,
+          sequence: { groupOrder: 1 },
           testTimeout: 60_000,
           hookTimeout: 120_000,
           setupFiles: ['tests/setup-env.ts'],

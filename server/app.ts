@@ -12,6 +12,7 @@ import { configurePassport } from './auth/passport';
 import { requireSignIn } from './auth/authorize';
 import { withSessionCache } from './auth/session-cache';
 import { sameOriginOnly } from './middleware/same-origin';
+import { rejectNulCharacters } from './middleware/no-nul';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { authRouter } from './modules/auth/router';
 import { healthRouter } from './modules/health/router';
@@ -88,6 +89,7 @@ export function createApp(): AppHandle {
 
   const api = express.Router();
   api.use(express.json({ limit: '1mb', strict: true }));
+  api.use(rejectNulCharacters);
   api.use(sameOriginOnly);
   api.use(
     session({

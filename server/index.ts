@@ -8,11 +8,22 @@ const { app, close } = createApp();
 const server = createServer(app);
 server.keepAliveTimeout = 65_000;
 
+// Requests still being handled; shutdown waits for them before closing the database.
+let inFlight = 0;
+server.on('request', (_req, res) => {
+  inFlight++;
+  res.once('close', () => inFlight--);
+});
+
 server.listen(config.PORT, config.HOST, () => {
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
   console.log(`[isobath] serving on http://localhost:${port} (${config.NODE_ENV})`);
 });
+
+const settle = async (deadline: number) => {
+  while (inFlight > 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 25));
+};
 
 // Graceful shutdown: stop accepting, let in-flight requests finish, then close pools.
 let stopping = false;
@@ -23,6 +34,7 @@ async function shutdown(signal: string) {
   const force = setTimeout(() => process.exit(1), 10_000);
   force.unref();
   server.close(async () => {
+    await settle(Date.now() + 5_000);
     await close();
     await closeDatabase();
     process.exit(0);

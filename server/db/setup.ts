@@ -8,6 +8,7 @@ import { seedDemoProject } from './seeders/demo-project';
 import { invalidateCatalogueSnapshot } from '../modules/property-sets/snapshot';
 import { forgetSessionUsers } from '../auth/passport';
 import { forgetAllSessions } from '../auth/session-cache';
+import { resetLockouts } from '../auth/lockout';
 
 export interface SetupResult {
   migrations: string[];
@@ -61,5 +62,6 @@ export async function resetDatabase(options: { demoProject?: boolean } = {}): Pr
   invalidateCatalogueSnapshot();
   forgetSessionUsers();
   forgetAllSessions();
+  resetLockouts();
   return setupDatabase({ demo: true, demoProject: options.demoProject ?? false });
 }

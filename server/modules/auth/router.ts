@@ -6,6 +6,7 @@ import { parse } from '../../middleware/validate';
 import { AppError, unauthorized } from '../../errors';
 import { toSessionUser } from '../../auth/passport';
 import { open } from '../../auth/authorize';
+import { lockRemaining, recordFailure, recordSuccess } from '../../auth/lockout';
 import { env } from '../../config/env';
 import { User } from '../../db/models';
 
@@ -27,9 +28,18 @@ export function authRouter(): Router {
   router.post('/login', open, loginLimiter, (req, res, next) => {
     const credentials = parse(loginSchema, req.body ?? {}, 'sign-in');
     req.body = credentials;
+    const wait = lockRemaining(credentials.email);
+    if (wait > 0) {
+      res.setHeader('Retry-After', String(Math.ceil(wait / 1000)));
+      return next(new AppError(429, 'too_many_attempts', `Too many failed sign-ins for this account. Try again in ${Math.ceil(wait / 1000)} s.`));
+    }
     passport.authenticate('local', { session: true }, (err: unknown, user: Express.User | false) => {
       if (err) return next(err);
-      if (!user) return next(new AppError(401, 'invalid_credentials', 'E-mail or password is incorrect.'));
+      if (!user) {
+        recordFailure(credentials.email);
+        return next(new AppError(401, 'invalid_credentials', 'E-mail or password is incorrect.'));
+      }
+      recordSuccess(credentials.email);
       // req.logIn regenerates the session id (passport ≥ 0.6), so a planted id is useless.
       req.logIn(user, (loginErr) => {
         if (loginErr) return next(loginErr);

@@ -1,0 +1,106 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import request from 'supertest';
+import { createServer } from 'node:http';
+import type { AddressInfo } from 'node:net';
+import { startTestApp } from '../helpers/app';
+import { createApp } from '../../server/app';
+import { resetEnvCache } from '../../server/config/env';
+import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
+import { FREE_FAILURES } from '../../server/auth/lockout';
+
+let handle: Awaited<ReturnType<typeof startTestApp>>;
+let writes: { method: 'post' | 'put' | 'patch' | 'delete'; path: string }[] = [];
+beforeAll(async () => {
+  handle = await startTestApp();
+  const doc = (await request(handle.app).get('/api/openapi.json')).body as { paths: Record<string, Record<string, unknown>> };
+  writes = Object.entries(doc.paths).flatMap(([path, ops]) =>
+    Object.keys(ops)
+      .filter((m) => m !== 'get')
+      .map((method) => ({ method: method as 'post', path: path.replace(/\{[A-Za-z]+\}/g, '1') })),
+  );
+});
+afterAll(async () => {
+  await handle.stop();
+});
+
+const signInCookie = async (email: string) => {
+  const res = await request(handle.app).post('/api/auth/login').send({ email, password: DEMO_PASSWORD });
+  expect(res.status).toBe(200);
+  return String(res.headers['set-cookie']).split(';')[0];
+};
+
+describe('cross-site request forgery', () => {
+  it('refuses every state-changing operation sent from another origin, even with a valid session', async () => {
+    const cookie = await signInCookie('admin@harrow.example');
+    expect(writes.length).toBeGreaterThan(30);
+    for (const w of writes) {
+      const byOrigin = await request(handle.app)[w.method](w.path).set('Cookie', cookie).set('Origin', 'https://elsewhere.example').send({});
+      expect(byOrigin.status, `${w.method} ${w.path}`).toBe(403);
+      expect(byOrigin.body.error.code).toBe('cross_origin');
+      const bySite = await request(handle.app)[w.method](w.path).set('Cookie', cookie).set('Sec-Fetch-Site', 'cross-site').send({});
+      expect(bySite.status, `${w.method} ${w.path}`).toBe(403);
+    }
+  });
+
+  it('refuses form-encoded and plain-text bodies, which a cross-site form could send', async () => {
+    const cookie = await signInCookie('engineer@harrow.example');
+    expect((await request(handle.app).post('/api/projects').set('Cookie', cookie).type('form').send({ name: 'x' })).status).toBe(415);
+    expect((await request(handle.app).post('/api/projects').set('Cookie', cookie).set('Content-Type', 'text/plain').send('{"name":"x"}')).status).toBe(415);
+  });
+
+  it('lets a same-origin page and a script without Origin write with a JSON body', async () => {
+    const cookie = await signInCookie('engineer@harrow.example');
+    const server = createServer(handle.app);
+    await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+    const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
+    try {
+      const same = await request(base).post('/api/projects').set('Cookie', cookie).set('Origin', base).set('Sec-Fetch-Site', 'same-origin').send({ name: 'HS-2 sonar dome' });
+      expect(same.status).toBe(201);
+    } finally {
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+    }
+    const script = await request(handle.app).post('/api/projects').set('Cookie', cookie).send({ name: 'HS-2 ballast sphere' });
+    expect(script.status).toBe(201);
+  });
+});
+
+describe('sign-in back-off', () => {
+  it(`locks an account name after ${FREE_FAILURES} failures, whether or not the account exists, and says when to retry`, async () => {
+    const attempt = (email: string, password: string) => request(handle.app).post('/api/auth/login').send({ email, password });
+    for (const email of ['checker@harrow.example', 'no.such.person@harrow.example']) {
+      for (let i = 0; i < FREE_FAILURES; i++) expect((await attempt(email, 'wrong-password')).status).toBe(401);
+      const locked = await attempt(email, DEMO_PASSWORD);
+      expect(locked.status).toBe(429);
+      expect(Number(locked.headers['retry-after'])).toBeGreaterThan(0);
+      expect(locked.body.error.code).toBe('too_many_attempts');
+    }
+    // Another account is unaffected.
+    expect((await attempt('viewer@harrow.example', DEMO_PASSWORD)).status).toBe(200);
+  });
+});
+
+describe('production settings', () => {
+  const saved = { ...process.env };
+  afterAll(() => {
+    process.env = saved;
+    resetEnvCache();
+  });
+
+  it('sends Secure, HttpOnly, SameSite cookies and HSTS behind HTTPS', async () => {
+    process.env.NODE_ENV = 'production';
+    process.env.SESSION_SECRET = 'a-production-secret-of-more-than-32-characters';
+    resetEnvCache();
+    const prod = createApp();
+    try {
+      const res = await request(prod.app).post('/api/auth/login').set('X-Forwarded-Proto', 'https').send({ email: 'viewer@harrow.example', password: DEMO_PASSWORD });
+      expect(res.status).toBe(200);
+      const cookie = String(res.headers['set-cookie']);
+      expect(cookie).toMatch(/; Secure/i);
+      expect(cookie).toMatch(/HttpOnly/i);
+      expect(cookie).toMatch(/SameSite=Lax/i);
+      expect(res.headers['strict-transport-security']).toMatch(/max-age=\d+/);
+    } finally {
+      await prod.close();
+    }
+  });
+});
