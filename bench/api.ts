@@ -36,3 +36,34 @@ export async function load(server: BenchServer, path: string, options: { method?
     errors: result.errors + result.timeouts + result.non2xx,
   };
 }
+
+/**
+ * Every request a different thickness, so no answer comes from the cache: the cost of really
+ * evaluating the whole catalogue per request (reported for comparison; not a budget).
+ */
+export async function loadUncachedEvaluate(server: BenchServer, seconds: number): Promise<LoadResult> {
+  const base = JSON.parse(EVALUATE_BODY);
+  let n = 0;
+  const result = await autocannon({
+    url: `${server.baseUrl}/api/evaluate`,
+    connections: 20,
+    duration: seconds,
+    headers: { cookie: server.cookie, 'accept-encoding': 'gzip, deflate, br', 'content-type': 'application/json' },
+    requests: [
+      {
+        method: 'POST',
+        setupRequest: (req) => {
+          n++;
+          const thickness = 0.05 + n * 1e-7;
+          return { ...req, body: JSON.stringify({ ...base, loadCase: { ...base.loadCase, component: { ...base.loadCase.component, thickness } } }) };
+        },
+      },
+    ],
+  });
+  return {
+    p50Ms: result.latency.p50,
+    p99Ms: result.latency.p99,
+    requestsPerSecond: Math.round(result.requests.average),
+    errors: result.errors + result.timeouts + result.non2xx,
+  };
+}

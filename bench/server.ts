@@ -1,6 +1,12 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomBytes } from 'node:crypto';
+import { readFileSync } from 'node:fs';
 import { BENCH_USER } from './prepare';
+
+function serverNodeFlags(): string {
+  const pkg = JSON.parse(readFileSync('package.json', 'utf8')) as { config?: { serverNodeFlags?: string } };
+  return pkg.config?.serverNodeFlags ?? '';
+}
 
 export interface BenchServer {
   baseUrl: string;
@@ -11,7 +17,9 @@ export interface BenchServer {
 
 /** Starts the real server (production mode) on a free loopback port and signs in the bench engineer. */
 export async function startBenchServer(databaseUrl: string): Promise<BenchServer> {
-  const child: ChildProcess = spawn(process.execPath, [...(process.env.BENCH_NODE_FLAGS ?? '').split(' ').filter(Boolean), '--import', 'tsx', 'server/index.ts'], {
+  // Started as npm start starts it: the same Node flags (package.json config.serverNodeFlags).
+  const flags = serverNodeFlags().split(' ').filter(Boolean);
+  const child: ChildProcess = spawn(process.execPath, [...flags, '--import', 'tsx', 'server/index.ts'], {
     env: {
       ...process.env,
       NODE_ENV: 'production',

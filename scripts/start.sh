@@ -20,7 +20,11 @@ fi
 node_modules/.bin/tsx server/db/cli.ts setup
 ensure_client_build
 
-node_modules/.bin/tsx server/index.ts &
+# Node flags for the server live in package.json (config.serverNodeFlags): a small young
+# generation keeps garbage-collection pauses short under load (see the README's Performance).
+NODE_FLAGS=$(node -p "require('./package.json').config.serverNodeFlags")
+# shellcheck disable=SC2086
+node $NODE_FLAGS --import tsx server/index.ts &
 APP_PID=$!
 trap 'kill -TERM "$APP_PID" 2>/dev/null' INT TERM
 wait "$APP_PID" || true

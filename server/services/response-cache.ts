@@ -1,10 +1,13 @@
-import { gzipSync } from 'node:zlib';
+import { gzip } from 'node:zlib';
+import { promisify } from 'node:util';
 import type { Request, Response } from 'express';
 import { LRUCache } from 'lru-cache';
 
 /** A serialized JSON answer, with its gzip form made once on first demand. */
+const gzipAsync = promisify(gzip);
+
 export class CachedBody {
-  private gz: Buffer | undefined;
+  private gz: Promise<Buffer> | undefined;
   private raw: Buffer | undefined;
   constructor(readonly json: string) {}
   /** The UTF-8 bytes, encoded once. */
@@ -12,8 +15,9 @@ export class CachedBody {
     this.raw ??= Buffer.from(this.json, 'utf8');
     return this.raw;
   }
-  gzip(): Buffer {
-    this.gz ??= gzipSync(this.bytes(), { level: 6 });
+  /** The gzip form, made once, off the event loop (zlib's thread pool). */
+  gzip(): Promise<Buffer> {
+    this.gz ??= gzipAsync(this.bytes(), { level: 6 });
     return this.gz;
   }
 }
@@ -28,12 +32,13 @@ export function jsonResponseCache(maxBytes: number): LRUCache<string, CachedBody
 }
 
 /** Sends a cached answer, compressed once and reused when the client accepts gzip. */
-export function sendCached(req: Request, res: Response, body: CachedBody): void {
+export async function sendCached(req: Request, res: Response, body: CachedBody): Promise<void> {
   res.type('application/json');
   res.vary('Accept-Encoding');
   if (body.json.length > 1024 && req.acceptsEncodings('gzip', 'identity') === 'gzip') {
+    const gz = await body.gzip();
     res.setHeader('Content-Encoding', 'gzip');
-    res.send(body.gzip());
+    res.send(gz);
     return;
   }
   res.send(body.bytes());

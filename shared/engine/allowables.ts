@@ -210,12 +210,14 @@ function familyWord(family: Family | undefined): string {
 
 // Warnings that depend only on the load case and the material's family are the same for every
 // candidate of an evaluation: build each once per load case (the Conditions object) and reuse it.
-const MESSAGES = new WeakMap<Conditions, Map<string, string>>();
-function once(c: Conditions, key: string, build: () => string): string {
-  let byKey = MESSAGES.get(c);
-  if (!byKey) MESSAGES.set(c, (byKey = new Map()));
-  let text = byKey.get(key);
-  if (text === undefined) byKey.set(key, (text = build()));
+type MessageKind = 'noTemperature' | 'noSustained' | 'noCyclic';
+const MESSAGES = new WeakMap<Conditions, Record<MessageKind, Map<string | undefined, string>>>();
+function once(c: Conditions, kind: MessageKind, variant: string | undefined, build: () => string): string {
+  let byKind = MESSAGES.get(c);
+  if (!byKind) MESSAGES.set(c, (byKind = { noTemperature: new Map(), noSustained: new Map(), noCyclic: new Map() }));
+  const byVariant = byKind[kind];
+  let text = byVariant.get(variant);
+  if (text === undefined) byVariant.set(variant, (text = build()));
   return text;
 }
 
@@ -245,7 +247,7 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
     }
   } else if (polymer || m.family === undefined) {
     warnings.push(
-      once(c, `noT|${m.family}`, () =>
+      once(c, 'noTemperature', m.family, () =>
         `No temperature-dependence data: strengths are taken at the reference condition over ${fmt(tMin)} to ${fmt(tMax)} °C. ` +
           `${familyWord(m.family)} may be markedly weaker when warm.`,
       ),
@@ -274,21 +276,21 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
   } else if (c.sustainedHours > 0) {
     if (polymer) {
       warnings.push(
-        once(c, `noH|${m.family}`, () =>
+        once(c, 'noSustained', m.family, () =>
           `No sustained-load (creep) data in this property set: strength is NOT reduced for ${fmt(c.sustainedHours)} h of sustained load. ` +
             `${familyWord(m.family)} loses strength and stiffness under sustained load; obtain creep-rupture data before relying on this result.`,
         ),
       );
     } else if (brittle) {
       warnings.push(
-        once(c, 'noH|brittle', () =>
+        once(c, 'noSustained', 'brittle', () =>
           `No sustained-load data in this property set: strength is not reduced for ${fmt(c.sustainedHours)} h of sustained load, ` +
             'although glass and ceramics lose strength under sustained stress in water (static fatigue).',
         ),
       );
     } else {
       warnings.push(
-        once(c, 'noH|other', () => `No sustained-load data in this property set: strength is not reduced for ${fmt(c.sustainedHours)} h of sustained load (factor 1.0 assumed).`),
+        once(c, 'noSustained', 'other', () => `No sustained-load data in this property set: strength is not reduced for ${fmt(c.sustainedHours)} h of sustained load (factor 1.0 assumed).`),
       );
     }
   }
@@ -307,7 +309,7 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
     }
   } else if (c.cycles > 1) {
     warnings.push(
-      once(c, `noC|${polymer ? m.family : ''}`, () =>
+      once(c, 'noCyclic', polymer ? m.family : undefined, () =>
         `No cyclic (fatigue) data in this property set: strength is not reduced for ${fmt(c.cycles)} pressure cycles (factor 1.0 assumed).` +
           (polymer ? ` ${familyWord(m.family)} windows and parts can crack under repeated pressurisation.` : ''),
       ),

@@ -417,4 +417,20 @@ describe('ranking and limit', () => {
     }
     expect(evaluate({ loadCase: hullBay, candidates: many }).results).toHaveLength(100); // default limit
   });
+
+  it('ranking by margin builds full results only for the kept candidates, identical to ranking them all', () => {
+    const many: CandidateMaterial[] = Array.from({ length: 200 }, (_, i) => ({
+      ...[acrylic, titanium, aluminium][i % 3],
+      name: `Harrow lot ${String(i).padStart(3, '0')}`,
+      propertySetId: i + 1,
+      youngsModulus: [acrylic, titanium, aluminium][i % 3].youngsModulus * (0.9 + (i % 20) / 100),
+      shearStrength: [acrylic, titanium, aluminium][i % 3].shearStrength * (0.9 + (i % 13) / 60),
+    }));
+    for (const loadCase of [chamberViewport, cameraCone, hullSphere, hullBay]) {
+      const fast = evaluate({ loadCase, candidates: many, limit: 25 });
+      const reference = evaluate({ loadCase, candidates: many, limit: 1000 }).results.slice(0, 25);
+      expect(fast.total).toBe(200);
+      expect(fast.results).toEqual(reference);
+    }
+  });
 });

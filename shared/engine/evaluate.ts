@@ -9,7 +9,7 @@ import type { ComponentModel, ModeMaterial } from './components/common';
 import { modelFor } from './components/index';
 import { defaultTargetSafetyFactor, WATER_DENSITY } from './defaults';
 import { pressureFromDepth } from './pressure';
-import { topResults } from './rank';
+import { sortResults, topResults } from './rank';
 import type { CandidateMaterial, CandidateResult, EvaluateResult, ModeResult, SortBy } from './types';
 
 /** A load case with its design pressure worked out once, for evaluating many candidates. */
@@ -129,6 +129,25 @@ export function targetFor(prepared: PreparedLoadCase, candidate: CandidateMateri
   return prepared.targetSafetyFactor ?? defaultTargetSafetyFactor(candidate.family);
 }
 
+const SCRATCH_WARNINGS: string[] = [];
+
+/**
+ * The governing margin of one candidate (lowest safety factor over the modes ÷ target − 1),
+ * computed exactly as evaluateCandidate does, without building its result.
+ */
+export function governingMargin(prepared: PreparedLoadCase, candidate: CandidateMaterial): number {
+  SCRATCH_WARNINGS.length = 0;
+  const mm = toModeMaterial(candidate, computeAllowables(candidate, prepared.conditions, SCRATCH_WARNINGS));
+  const { model, component, pressure: p } = prepared;
+  model.fill(component, model.thickness(component), p, mm, STRESS, ALLOWABLE);
+  let govSf = Infinity;
+  for (let i = 0; i < model.modes.length; i++) {
+    const sf = ALLOWABLE[i] / STRESS[i];
+    if (sf < govSf) govSf = sf;
+  }
+  return govSf / targetFor(prepared, candidate) - 1;
+}
+
 /** Evaluates one candidate at the load case's own thickness. */
 export function evaluateCandidate(prepared: PreparedLoadCase, candidate: CandidateMaterial): CandidateResult {
   const warnings: string[] = [];
@@ -216,14 +235,31 @@ export interface EvaluateInput {
  */
 export function evaluate(input: EvaluateInput): EvaluateResult {
   const prepared = prepareLoadCase(input.loadCase);
-  const all: CandidateResult[] = new Array(input.candidates.length);
-  for (let i = 0; i < input.candidates.length; i++) all[i] = evaluateCandidate(prepared, input.candidates[i]);
+  const candidates = input.candidates;
+  const n = candidates.length;
   const limit = Math.max(0, Math.floor(input.limit ?? 100));
+  const sortBy = input.sortBy ?? 'margin';
+  let results: CandidateResult[];
+  if (sortBy === 'margin' && limit < n && n > 64) {
+    // Ranking by margin needs only each candidate's governing safety factor. Every candidate is
+    // checked in every mode; the full result (required thicknesses, warnings, model texts) is
+    // built only for those that make the cut, in the same order topResults would give.
+    const keys = new Float64Array(n);
+    for (let i = 0; i < n; i++) keys[i] = -governingMargin(prepared, candidates[i]);
+    const cut = keys.slice().sort()[limit - 1];
+    const kept: CandidateResult[] = [];
+    for (let i = 0; i < n; i++) if (keys[i] <= cut) kept.push(evaluateCandidate(prepared, candidates[i]));
+    results = sortResults(kept, 'margin').slice(0, limit);
+  } else {
+    const all: CandidateResult[] = new Array(n);
+    for (let i = 0; i < n; i++) all[i] = evaluateCandidate(prepared, candidates[i]);
+    results = topResults(all, sortBy, limit);
+  }
   return {
     pressure: prepared.pressure,
     proofTestPressure: prepared.proofTestPressure,
     pressureMethod: prepared.pressureMethod,
-    results: topResults(all, input.sortBy ?? 'margin', limit),
-    total: all.length,
+    results,
+    total: n,
   };
 }

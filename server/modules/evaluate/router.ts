@@ -22,7 +22,7 @@ export function evaluateRouter(): Router {
       body = new CachedBody(JSON.stringify(await evaluateLoadCase(request, caller)));
       cache.set(key, body);
     }
-    sendCached(req, res, body);
+    await sendCached(req, res, body);
   });
   return router;
 }

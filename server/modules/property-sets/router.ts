@@ -37,7 +37,7 @@ export function propertySetsRouter(): Router {
       body = new CachedBody(JSON.stringify({ items: all.slice(page.offset, page.offset + page.limit), total: all.length }));
       listCache.set(key, body);
     }
-    sendCached(req, res, body);
+    await sendCached(req, res, body);
   });
   router.get('/:id', authorize('catalogue:read'), async (req, res) => {
     res.json(await getPropertySet(parseId(req.params.id), callerOf(req)));
