@@ -10,23 +10,31 @@ type Sess = SessionData & { passport?: { user?: number } };
  * cache; sessions ended outside the store (deactivation, password reset) are dropped with
  * `forgetSessionsOf`. Entries live at most a minute, and an expired session is never served.
  */
-const cache = new LRUCache<string, Sess>({ max: 20_000, ttl: 60_000 });
+interface Entry {
+  /** The session as PostgreSQL stores it (JSON through Cookie.toJSON); parsed afresh per read. */
+  json: string;
+  userId: number | undefined;
+  expires: number;
+}
+const cache = new LRUCache<string, Entry>({ max: 20_000, ttl: 60_000 });
 
 export function forgetSessionsOf(userId: number): void {
-  for (const [sid, sess] of cache.entries()) if (sess.passport?.user === userId) cache.delete(sid);
+  for (const [sid, entry] of cache.entries()) if (entry.userId === userId) cache.delete(sid);
 }
 
 export function forgetAllSessions(): void {
   cache.clear();
 }
 
-/** The shape PostgreSQL would hand back (JSON, through Cookie.toJSON), and never a shared object. */
-const copy = (sess: SessionData): Sess => JSON.parse(JSON.stringify(sess)) as Sess;
-
-const expired = (sess: Sess) => {
-  const expires = sess.cookie?.expires;
-  return expires !== undefined && expires !== null && new Date(expires).getTime() <= Date.now();
-};
+function entryOf(sess: SessionData): Entry {
+  const s = sess as Sess;
+  const expires = s.cookie?.expires;
+  return {
+    json: JSON.stringify(sess),
+    userId: s.passport?.user,
+    expires: expires === undefined || expires === null ? Number.POSITIVE_INFINITY : new Date(expires).getTime(),
+  };
+}
 
 export function withSessionCache<S extends Store>(store: S): S {
   const get = store.get.bind(store);
@@ -34,17 +42,17 @@ export function withSessionCache<S extends Store>(store: S): S {
   const destroy = store.destroy.bind(store);
   store.get = (sid: string, fn: Callback<SessionData>) => {
     const hit = cache.get(sid);
-    // Each request gets its own copy: express-session mutates what the store hands it.
-    if (hit && !expired(hit)) return fn(null, copy(hit));
+    // Each request gets its own object: express-session mutates what the store hands it.
+    if (hit && hit.expires > Date.now()) return fn(null, JSON.parse(hit.json) as SessionData);
     get(sid, (err: unknown, sess?: SessionData | null) => {
-      if (!err && sess) cache.set(sid, copy(sess));
+      if (!err && sess) cache.set(sid, entryOf(sess));
       fn(err, sess);
     });
   };
   store.set = (sid: string, sess: SessionData, fn?: (err?: unknown) => void) => {
     cache.delete(sid);
     set(sid, sess, (err?: unknown) => {
-      if (!err) cache.set(sid, copy(sess));
+      if (!err) cache.set(sid, entryOf(sess));
       fn?.(err);
     });
   };
