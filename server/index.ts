@@ -1,7 +1,7 @@
 import { createServer } from 'node:http';
 import { env } from './config/env';
 import { createApp } from './app';
-import { closeDatabase } from './db/sequelize';
+import { closeDatabase, databaseBusy } from './db/sequelize';
 
 const config = env();
 const { app, close } = createApp();
@@ -21,8 +21,10 @@ server.listen(config.PORT, config.HOST, () => {
   console.log(`[isobath] serving on http://localhost:${port} (${config.NODE_ENV})`);
 });
 
+// A handler whose client has gone may still be working: wait for open responses and for
+// database work to end (at most until the deadline) before closing the pools.
 const settle = async (deadline: number) => {
-  while (inFlight > 0 && Date.now() < deadline) await new Promise((r) => setTimeout(r, 25));
+  while ((inFlight > 0 || databaseBusy() > 0) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 25));
 };
 
 // Graceful shutdown: stop accepting, let in-flight requests finish, then close pools.

@@ -25,3 +25,9 @@ export async function closeDatabase(): Promise<void> {
     instance = undefined;
   }
 }
+
+/** Connections in use or awaited right now (0 when no query is running), for a clean shutdown. */
+export function databaseBusy(): number {
+  const pool = (instance?.connectionManager as unknown as { pool?: { using?: number; waiting?: number } } | undefined)?.pool;
+  return pool ? (pool.using ?? 0) + (pool.waiting ?? 0) : 0;
+}

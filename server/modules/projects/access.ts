@@ -15,7 +15,9 @@ export const isAdmin = (actor: Actor) => actor.role === 'admin';
  * they are a member of. Anything else is "not found", so a project's existence is not revealed.
  */
 export async function visibleProject(actor: Actor, projectId: number, transaction?: Transaction): Promise<Project> {
-  const project = await Project.findByPk(projectId, { transaction, ...(transaction ? { lock: transaction.LOCK.UPDATE } : {}) });
+  // A read, not a lock: edits lock the row they change (shortlist, load case), so edits in one
+  // project do not queue behind each other.
+  const project = await Project.findByPk(projectId, { transaction });
   if (!project) throw notFound('Project');
   if (isAdmin(actor)) return project;
   const member = await ProjectMember.findOne({ where: { projectId, userId: actor.id }, transaction });
