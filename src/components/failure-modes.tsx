@@ -1,5 +1,6 @@
 import type { CandidateResult, FailureMode } from '@shared/engine';
 import tokens from '../../tailwind.config';
+import { useUnits } from '@/lib/unit-system';
 
 export const MODE_LABELS: Record<FailureMode, string> = {
   tension: 'Tension',
@@ -27,4 +28,37 @@ export function formatMargin(margin: number): string {
 
 export function MarginCell({ margin }: { margin: number }) {
   return <span className={`font-bold ${margin >= 0 ? 'text-verdict-pass' : 'text-verdict-fail'}`}>{formatMargin(margin)}</span>;
+}
+
+/** Every mode of one result: stress, allowable, safety factor, thickness needed, model and source. */
+export function ModesTable({ result, className = '' }: { result: CandidateResult; className?: string }) {
+  const { format } = useUnits();
+  return (
+    <table className={`w-full text-sm ${className}`} aria-label={`Modes of ${result.name}`}>
+      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+        <tr>
+          <th scope="col" className="pr-2">Mode</th>
+          <th scope="col" className="pr-2 text-right">Stress</th>
+          <th scope="col" className="pr-2 text-right">Allowable</th>
+          <th scope="col" className="whitespace-nowrap pr-2 text-right">Safety factor</th>
+          <th scope="col" className="whitespace-nowrap pr-2 text-right">Needs t</th>
+          <th scope="col">Model and source</th>
+        </tr>
+      </thead>
+      <tbody>
+        {result.modes.map((m) => (
+          <tr key={m.mode} className="border-t border-chart-line/60 align-top">
+            <td className="py-1 pr-2">
+              <ModeTag mode={m.mode} />
+            </td>
+            <td className="whitespace-nowrap py-1 pr-2 text-right">{format('stress', m.stress)}</td>
+            <td className="whitespace-nowrap py-1 pr-2 text-right">{format('stress', m.allowable)}</td>
+            <td className="whitespace-nowrap py-1 pr-2 text-right">{m.safetyFactor.toFixed(2)}</td>
+            <td className="whitespace-nowrap py-1 pr-2 text-right">{m.requiredThickness === null ? 'none suffices' : format('length', m.requiredThickness)}</td>
+            <td className="py-1 text-xs text-ink-soft">{m.model}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
 }

@@ -1,12 +1,6 @@
-import type { ReferenceKind, ValueBasis, PropertySetStatus } from '@shared/schemas/catalogue';
+import type { ValueBasis, PropertySetStatus } from '@shared/schemas/catalogue';
 
-export const REFERENCE_KIND_LABELS: Record<ReferenceKind, string> = {
-  standard: 'Standard',
-  handbook: 'Handbook',
-  paper: 'Paper',
-  'test-report': 'Test report',
-  'supplier-data-sheet': 'Supplier data sheet',
-};
+export { REFERENCE_KIND_LABELS } from '@shared/schemas/catalogue';
 
 export const BASIS_LABELS: Record<ValueBasis, string> = {
   minimum: 'Minimum',

@@ -1,16 +1,9 @@
-import { useMemo, useState } from 'react';
+import { useMemo } from 'react';
 import { Link } from 'react-router-dom';
-import {
-  createColumnHelper,
-  flexRender,
-  getCoreRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type SortingState,
-} from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { FAMILY_LABELS, type PropertySetDto, type ReferenceDto } from '@shared/schemas/catalogue';
 import { useUnits } from '@/lib/unit-system';
-import { SortableHeader } from '@/components/ui/sortable-header';
+import { TableView, useSortableTable } from '@/components/ui/table-view';
 
 const col = createColumnHelper<PropertySetDto>();
 
@@ -24,7 +17,6 @@ export function shortCitation(ref: ReferenceDto | null): string {
 
 export function CatalogueTable({ items }: { items: PropertySetDto[] }) {
   const { format, label } = useUnits();
-  const [sorting, setSorting] = useState<SortingState>([]);
 
   const columns = useMemo(
     () => [
@@ -65,41 +57,11 @@ export function CatalogueTable({ items }: { items: PropertySetDto[] }) {
     [format, label],
   );
 
-  const table = useReactTable({
-    data: items,
-    columns,
-    state: { sorting },
-    onSortingChange: setSorting,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-  });
+  const table = useSortableTable(items, columns);
 
   return (
     <div className="overflow-x-auto rounded-plate bg-chart-raised shadow-plate">
-      <table className="w-full text-sm" aria-label="Property sets">
-        <thead className="border-b border-chart-line text-left">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => (
-                <SortableHeader key={h.id} header={h} numeric={!!(h.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric}>
-                  {flexRender(h.column.columnDef.header, h.getContext())}
-                </SortableHeader>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-chart-line/60 last:border-0 hover:bg-chart-deep/40">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className={`px-3 py-2 align-top ${(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? 'text-right' : ''}`}>
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <TableView table={table} label="Property sets" rowClassName="hover:bg-chart-deep/40" />
     </div>
   );
 }

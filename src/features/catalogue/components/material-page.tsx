@@ -2,7 +2,7 @@ import { lazy, Suspense } from 'react';
 import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { FAMILY_LABELS, QUANTITIES, QUANTITY_LABELS, type PropertySetDto, type Quantity } from '@shared/schemas/catalogue';
 import { useMaterial } from '../api/property-sets';
-import { ReferenceCard } from './reference-card';
+import { ReferenceCard } from '@/components/reference-card';
 import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
 import { toDisplay, type QuantityKind } from '@/lib/units';

@@ -11,7 +11,7 @@ import {
 import type { CandidateResult } from '@shared/engine';
 import { useUnits } from '@/lib/unit-system';
 import { SortableHeader } from '@/components/ui/sortable-header';
-import { MarginCell, ModeTag } from '@/components/failure-modes';
+import { MarginCell, ModeTag, ModesTable } from '@/components/failure-modes';
 import { splitCandidateName } from '../candidate-name';
 
 /** Rows in the first paint of the ranking; the rest render right after. */
@@ -26,32 +26,7 @@ function ModeBreakdown({ result }: { result: CandidateResult }) {
   const { format } = useUnits();
   return (
     <div className="grid gap-3 bg-chart px-4 py-3 text-sm md:grid-cols-[2fr_1fr]">
-      <table className="w-full" aria-label={`Modes of ${result.name}`}>
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th className="pr-2">Mode</th>
-            <th className="pr-2 text-right">Stress</th>
-            <th className="pr-2 text-right">Allowable</th>
-            <th className="pr-2 text-right">Safety factor</th>
-            <th className="pr-2 text-right">Needs t</th>
-            <th>Model</th>
-          </tr>
-        </thead>
-        <tbody>
-          {result.modes.map((m) => (
-            <tr key={m.mode} className="border-t border-chart-line/60 align-top">
-              <td className="py-1 pr-2">
-                <ModeTag mode={m.mode} />
-              </td>
-              <td className="py-1 pr-2 text-right">{format('stress', m.stress)}</td>
-              <td className="py-1 pr-2 text-right">{format('stress', m.allowable)}</td>
-              <td className="py-1 pr-2 text-right">{m.safetyFactor.toFixed(2)}</td>
-              <td className="py-1 pr-2 text-right">{m.requiredThickness === null ? 'none suffices' : format('length', m.requiredThickness)}</td>
-              <td className="py-1 text-xs text-ink-soft">{m.model}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <ModesTable result={result} />
       <div>
         <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">Warnings</p>
         {result.warnings.length ? (

@@ -1,10 +1,10 @@
 import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { createColumnHelper, flexRender, getCoreRowModel, getPaginationRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper, getPaginationRowModel } from '@tanstack/react-table';
 import { FAMILY_LABELS, type Family } from '@shared/schemas/catalogue';
 import { IMPORT_COLUMNS, IMPORT_MAX_BYTES, IMPORT_MAX_ROWS, type ImportIssueDto, type ImportPreviewDto, type ImportResultDto } from '@shared/schemas/library';
 import { Button } from '@/components/ui/button';
-import { SortableHeader } from '@/components/ui/sortable-header';
+import { TableView, useSortableTable } from '@/components/ui/table-view';
 import { Panel, Tag } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
 import { useUnits } from '@/lib/unit-system';
@@ -59,14 +59,7 @@ const ISSUE_COLUMNS = [
 
 /** The row-level problems, 25 to a page. */
 export function IssuesTable({ issues, total }: { issues: ImportIssueDto[]; total: number }) {
-  const [sorting, setSorting] = useState<SortingState>([]);
-  const table = useReactTable({
-    data: issues,
-    columns: ISSUE_COLUMNS,
-    state: { sorting },
-    onSortingChange: setSorting,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
+  const table = useSortableTable(issues, ISSUE_COLUMNS, {
     getPaginationRowModel: getPaginationRowModel(),
     initialState: { pagination: { pageSize: 25 } },
   });
@@ -75,30 +68,7 @@ export function IssuesTable({ issues, total }: { issues: ImportIssueDto[]; total
   const last = Math.min(issues.length, first + pageSize - 1);
   return (
     <div className="flex flex-col gap-2">
-      <table className="w-full text-sm" aria-label="Row issues">
-        <thead className="border-b border-chart-line text-left">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => (
-                <SortableHeader key={h.id} header={h} numeric={!!(h.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric}>
-                  {flexRender(h.column.columnDef.header, h.getContext())}
-                </SortableHeader>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((r) => (
-            <tr key={r.id} className="border-b border-chart-line/60 last:border-0">
-              {r.getVisibleCells().map((c) => (
-                <td key={c.id} className={`px-3 py-1 align-top ${(c.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? 'text-right tabular-nums' : ''}`}>
-                  {flexRender(c.column.columnDef.cell, c.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <TableView table={table} label="Row issues" dense />
       <div className="flex flex-wrap items-center justify-between gap-2 text-sm">
         <span className="text-ink-soft" aria-live="polite">
           Issues {first}–{last} of {issues.length}

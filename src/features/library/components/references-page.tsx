@@ -1,12 +1,12 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { useForm, type Resolver } from 'react-hook-form';
-import { createColumnHelper, flexRender, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
+import { createColumnHelper } from '@tanstack/react-table';
 import { REFERENCE_KINDS } from '@shared/schemas/catalogue';
 import { DOCUMENT_MAX_BYTES, type ReferenceDetailDto } from '@shared/schemas/library';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { SortableHeader } from '@/components/ui/sortable-header';
+import { TableView, useSortableTable } from '@/components/ui/table-view';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
 import { documentUrl, useCreateReference, useReference, useReferences, useUpdateReference, useUploadDocument } from '../api/references';
@@ -26,7 +26,6 @@ function useDebounced<T>(value: T, ms: number): T {
 const col = createColumnHelper<ReferenceDetailDto>();
 
 function ReferencesTable({ items, canDraft, onEdit }: { items: ReferenceDetailDto[]; canDraft: boolean; onEdit: (id: number) => void }) {
-  const [sorting, setSorting] = useState<SortingState>([]);
   const columns = useMemo(
     () => [
       col.accessor('title', {
@@ -72,40 +71,10 @@ function ReferencesTable({ items, canDraft, onEdit }: { items: ReferenceDetailDt
     ],
     [canDraft, onEdit],
   );
-  const table = useReactTable({
-    data: items,
-    columns,
-    state: { sorting },
-    onSortingChange: setSorting,
-    getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-  });
+  const table = useSortableTable(items, columns);
   return (
     <div className="overflow-x-auto rounded-plate bg-chart-raised shadow-plate">
-      <table className="w-full text-sm" aria-label="References">
-        <thead className="border-b border-chart-line text-left">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => (
-                <SortableHeader key={h.id} header={h} numeric={!!(h.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric}>
-                  {flexRender(h.column.columnDef.header, h.getContext())}
-                </SortableHeader>
-              ))}
-            </tr>
-          ))}
-        </thead>
-        <tbody>
-          {table.getRowModel().rows.map((row) => (
-            <tr key={row.id} className="border-b border-chart-line/60 last:border-0">
-              {row.getVisibleCells().map((cell) => (
-                <td key={cell.id} className={`px-3 py-2 align-top ${(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? 'text-right' : ''}`}>
-                  {flexRender(cell.column.columnDef.cell, cell.getContext())}
-                </td>
-              ))}
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <TableView table={table} label="References" />
     </div>
   );
 }

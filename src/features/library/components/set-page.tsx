@@ -1,15 +1,15 @@
 import { useState } from 'react';
 import { Link, useParams } from 'react-router-dom';
-import { FAMILY_LABELS, type ReferenceDto } from '@shared/schemas/catalogue';
+import { FAMILY_LABELS } from '@shared/schemas/catalogue';
 import type { LibrarySetDto } from '@shared/schemas/library';
 import type { SessionUserDto } from '@shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
 import { useLibrarySet, useSetChanges } from '../api/library-sets';
-import { documentUrl } from '../api/references';
 import { describeChanges, formatChangeValue } from '../changes';
-import { REFERENCE_KIND_LABELS, STATUS_LABELS, STATUS_TONE } from '../labels';
+import { STATUS_LABELS, STATUS_TONE } from '../labels';
+import { ReferenceCard } from '@/components/reference-card';
 import { PublishedActions, ReviewPanel } from './review-panel';
 import { SetEditor } from './set-editor';
 import { SetHistory } from './set-history';
@@ -26,28 +26,6 @@ function Breadcrumb({ here }: { here: string }) {
   );
 }
 
-function SourceDetail({ reference }: { reference: ReferenceDto | null }) {
-  if (!reference) return <p className="text-sm font-bold text-verdict-fail">No reference yet: this set cannot be approved without one.</p>;
-  return (
-    <div className="flex flex-col gap-1 text-sm" data-testid="set-reference">
-      <div className="flex items-center gap-2">
-        <Tag tone="brass">{REFERENCE_KIND_LABELS[reference.kind]}</Tag>
-        {reference.identifier ? <span className="font-mono text-xs">{reference.identifier}</span> : null}
-      </div>
-      <p className="font-bold">{reference.title}</p>
-      <p className="text-ink-soft">
-        {[reference.authors, reference.year].filter(Boolean).join(', ')}
-        {reference.location ? ` — ${reference.location}` : ''}
-      </p>
-      {reference.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{reference.note}</p> : null}
-      {reference.hasDocument ? (
-        <a href={documentUrl(reference.id)} className="no-print font-bold text-sounding underline">
-          Download source PDF
-        </a>
-      ) : null}
-    </div>
-  );
-}
 
 function DependenceList({ set }: { set: LibrarySetDto }) {
   const { system } = useUnits();
@@ -136,7 +114,7 @@ function SetView({ set, me, onReload }: { set: LibrarySetDto; me: SessionUserDto
             <DependenceList set={set} />
           </Panel>
           <Panel title="Source">
-            <SourceDetail reference={set.reference} />
+            <ReferenceCard testId="set-reference" missing="No reference yet: this set cannot be approved without one." reference={set.reference} />
           </Panel>
         </div>
         <aside className="flex flex-col gap-4" aria-label="Review and history">

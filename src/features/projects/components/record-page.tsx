@@ -3,7 +3,7 @@ import { Link } from 'react-router-dom';
 import type { CandidateResult } from '@shared/engine';
 import type { DesignRecordContent, DesignRecordDto } from '@shared/schemas/projects';
 import { FAMILY_LABELS, type ReferenceDto } from '@shared/schemas/catalogue';
-import { MarginCell, ModeTag } from '@/components/failure-modes';
+import { MarginCell, ModeTag, ModesTable } from '@/components/failure-modes';
 import { Button } from '@/components/ui/button';
 import { ErrorState, Spinner, Tag } from '@/components/ui/states';
 import { formatDateTime } from '@/lib/dates';
@@ -128,32 +128,7 @@ function CandidateModes({ index, note, result }: { index: number; note: string; 
         <span className="text-ink-soft">Note: </span>
         {note || <span className="text-ink-faint">none</span>}
       </p>
-      <table className="mt-2 w-full text-sm" aria-label={`Modes of ${result.name}`}>
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th scope="col" className="pr-2">Mode</th>
-            <th scope="col" className="pr-2 text-right">Stress</th>
-            <th scope="col" className="pr-2 text-right">Allowable</th>
-            <th scope="col" className="whitespace-nowrap pr-2 text-right">Safety factor</th>
-            <th scope="col" className="whitespace-nowrap pr-2 text-right">Needs t</th>
-            <th scope="col">Model and source</th>
-          </tr>
-        </thead>
-        <tbody>
-          {result.modes.map((m) => (
-            <tr key={m.mode} className="border-t border-chart-line/60 align-top">
-              <td className="py-1 pr-2">
-                <ModeTag mode={m.mode} />
-              </td>
-              <td className="whitespace-nowrap py-1 pr-2 text-right">{format('stress', m.stress)}</td>
-              <td className="whitespace-nowrap py-1 pr-2 text-right">{format('stress', m.allowable)}</td>
-              <td className="whitespace-nowrap py-1 pr-2 text-right">{m.safetyFactor.toFixed(2)}</td>
-              <td className="whitespace-nowrap py-1 pr-2 text-right">{m.requiredThickness === null ? 'none suffices' : format('length', m.requiredThickness)}</td>
-              <td className="py-1 text-xs text-ink-soft">{m.model}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
+      <ModesTable result={result} className="mt-2" />
       <p className="mt-2 text-xs text-ink-soft">
         Strength factors applied: temperature {result.factors.temperature.toFixed(2)} (at {format('temperature', result.factors.worstTemperature)}), sustained load{' '}
         {result.factors.sustainedLoad.toFixed(2)}, cycles {result.factors.cyclic.toFixed(2)}.

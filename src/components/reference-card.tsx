@@ -1,20 +1,21 @@
-import type { ReferenceDto } from '@shared/schemas/catalogue';
+import { REFERENCE_KIND_LABELS, type ReferenceDto } from '@shared/schemas/catalogue';
 import { Tag } from '@/components/ui/states';
 
-const KIND_LABELS: Record<ReferenceDto['kind'], string> = {
-  standard: 'Standard',
-  handbook: 'Handbook',
-  paper: 'Paper',
-  'test-report': 'Test report',
-  'supplier-data-sheet': 'Supplier data sheet',
-};
-
-export function ReferenceCard({ reference }: { reference: ReferenceDto | null }) {
-  if (!reference) return <p className="text-sm text-verdict-fail">No reference yet: this set cannot be published without one.</p>;
+/** The full citation of a property set's source, with its PDF when one is stored. */
+export function ReferenceCard({
+  reference,
+  missing = 'No reference yet: this set cannot be published without one.',
+  testId = 'reference',
+}: {
+  reference: ReferenceDto | null;
+  missing?: string;
+  testId?: string;
+}) {
+  if (!reference) return <p className="text-sm font-bold text-verdict-fail">{missing}</p>;
   return (
-    <div className="flex flex-col gap-1 text-sm" data-testid="reference">
+    <div className="flex flex-col gap-1 text-sm" data-testid={testId}>
       <div className="flex items-center gap-2">
-        <Tag tone="brass">{KIND_LABELS[reference.kind]}</Tag>
+        <Tag tone="brass">{REFERENCE_KIND_LABELS[reference.kind]}</Tag>
         {reference.identifier ? <span className="font-mono text-xs">{reference.identifier}</span> : null}
       </div>
       <p className="font-bold">{reference.title}</p>
