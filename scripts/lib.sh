@@ -4,7 +4,7 @@ set -euo pipefail
 
 ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 export ROOT
-export ISOBATH_PG_PORT="${ISOBATH_PG_PORT:-54329}"
+# ISOBATH_PG_PORT, when set, fixes the PostgreSQL port; otherwise scripts/db.sh keeps the one it chose.
 
 log() { printf '\033[36m[isobath]\033[0m %s\n' "$*" >&2; }
 
