@@ -49,7 +49,7 @@ export function AppShell() {
         Skip to content
       </a>
       <header className="no-print bg-trench text-white">
-        <div className="mx-auto flex max-w-7xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
+        <div className="mx-auto flex max-w-screen-2xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-2">
           <NavLink to="/catalogue" className="flex items-center gap-2 font-bold tracking-wide">
             <Logo className="h-7 w-7" />
             Isobath
@@ -87,7 +87,7 @@ export function AppShell() {
           </div>
         </div>
       </header>
-      <main id="main" className="print-full mx-auto w-full max-w-7xl flex-1 px-4 py-6">
+      <main id="main" className="print-full mx-auto w-full max-w-screen-2xl flex-1 px-4 py-6">
         <Outlet />
       </main>
       <footer className="no-print border-t border-chart-line py-3 text-center text-xs text-ink-faint">

@@ -80,7 +80,7 @@ export function ComponentSketch({ type, labels }: SketchProps) {
           <text x={4} y={71} fontSize={11} fill={DIM} fontWeight={700}>
             t
           </text>
-          <text x={238} y={30} fontSize={11} fill={DIM} fontWeight={700} textAnchor="end">
+          <text x={250} y={12} fontSize={11} fill={DIM} fontWeight={700} textAnchor="end">
             t {labels.thickness} · α {labels.includedAngle}
           </text>
           <line x1={130} y1={140} x2={130} y2={20} stroke={DIM} strokeDasharray="3 3" strokeWidth={0.8} />

@@ -156,7 +156,7 @@ function EvaluateWorkspace({ saved, canSave, meId }: { saved: LoadCaseDto | null
   };
 
   return (
-    <div className="grid gap-5 lg:grid-cols-[23rem_1fr]">
+    <div className="grid gap-5 lg:grid-cols-[21rem_1fr]">
       <div className="flex flex-col gap-3">
         <h1 className="text-2xl font-bold">Evaluate</h1>
         <Panel>

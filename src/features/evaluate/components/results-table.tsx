@@ -77,7 +77,7 @@ export function ResultsTable({
           const name = c.getValue();
           const { material: head, condition: tail } = c.row.original.propertySetId ? splitCandidateName(name) : { material: name, condition: '' };
           return (
-            <div className="min-w-[15rem] max-w-[22rem]">
+            <div className="min-w-[13rem] max-w-[20rem]">
               {c.row.original.propertySetId ? (
                 <Link to={`/sets/${c.row.original.propertySetId}`} className="font-bold text-sounding hover:underline" onClick={(e) => e.stopPropagation()}>
                   {head}
@@ -91,8 +91,16 @@ export function ResultsTable({
         },
       }),
       col.accessor('governingMode', { header: 'Governed by', cell: (c) => <ModeTag mode={c.getValue()} /> }),
-      col.accessor('safetyFactor', { header: 'Safety factor', cell: (c) => c.getValue().toFixed(2), meta: { numeric: true } }),
-      col.accessor('targetSafetyFactor', { header: 'Target', cell: (c) => c.getValue().toFixed(2), meta: { numeric: true } }),
+      col.accessor('safetyFactor', {
+        header: 'Safety factor / target',
+        // The target beside the factor, so the row reads "47.55 of 4" without a column of its own.
+        cell: (c) => (
+          <span className="whitespace-nowrap">
+            {c.getValue().toFixed(2)} <span className="text-xs text-ink-faint">/ {c.row.original.targetSafetyFactor}</span>
+          </span>
+        ),
+        meta: { numeric: true },
+      }),
       col.accessor('margin', { header: 'Margin', cell: (c) => <MarginCell margin={c.getValue()} />, meta: { numeric: true } }),
       col.accessor((r) => r.requiredThickness ?? Number.POSITIVE_INFINITY, {
         id: 'requiredThickness',
