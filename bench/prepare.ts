@@ -4,21 +4,16 @@
  * account. Synthetic sets are derived from the seed (values scaled a few percent) and exist only
  * in this database.
  */
-import { setupDatabase } from '../server/db/setup';
+import { emptyDatabase, setupDatabase } from '../server/db/setup';
 import { sequelize, closeDatabase } from '../server/db/sequelize';
-import { initModels, PropertySet, User } from '../server/db/models';
-import { migrate } from '../server/db/migrate';
+import { PropertySet, User } from '../server/db/models';
 import { hashPassword } from '../server/auth/passwords';
 
 export const CATALOGUE_SIZE = 2000;
 export const BENCH_USER = { email: 'bench.engineer@harrow.example', password: 'harrow-bench-2026', name: 'Bench Engineer' };
 
-const TABLES = 'audit_log, session, password_resets, invitations, design_records, shortlist_items, shortlists, load_cases, project_members, projects, property_sets, data_references, materials, users';
-
 export async function prepareBenchDatabase(): Promise<number> {
-  initModels();
-  await migrate();
-  await sequelize().query(`TRUNCATE ${TABLES} RESTART IDENTITY CASCADE`);
+  await emptyDatabase();
   await setupDatabase({ demo: false });
   const seeds = await PropertySet.findAll({ where: { status: 'published' } });
   const rows = [];

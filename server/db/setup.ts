@@ -36,7 +36,8 @@ export async function setupDatabase(options: { demo?: boolean; demoProject?: boo
   return { ...seeded, demoProject };
 }
 
-const TABLES = [
+/** Every application table, in an order TRUNCATE … CASCADE accepts. */
+export const TABLES = [
   'audit_log',
   'session',
   'password_resets',
@@ -53,9 +54,8 @@ const TABLES = [
   'users',
 ];
 
-/** Tests only: empty every table, then seed the catalogue and demo accounts (and, when asked, the demo project). */
-export async function resetDatabase(options: { demoProject?: boolean } = {}): Promise<SetupResult> {
-  if (env().NODE_ENV !== 'test') throw new Error('resetDatabase is for tests only');
+/** Migrates, empties every table and forgets what this process holds in memory about them. */
+export async function emptyDatabase(): Promise<void> {
   initModels();
   await migrate();
   await sequelize().query(`TRUNCATE ${TABLES.join(', ')} RESTART IDENTITY CASCADE`);
@@ -63,5 +63,11 @@ export async function resetDatabase(options: { demoProject?: boolean } = {}): Pr
   forgetSessionUsers();
   forgetAllSessions();
   resetLockouts();
+}
+
+/** Tests only: empty every table, then seed the catalogue and demo accounts (and, when asked, the demo project). */
+export async function resetDatabase(options: { demoProject?: boolean } = {}): Promise<SetupResult> {
+  if (env().NODE_ENV !== 'test') throw new Error('resetDatabase is for tests only');
+  await emptyDatabase();
   return setupDatabase({ demo: true, demoProject: options.demoProject ?? false });
 }

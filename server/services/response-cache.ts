@@ -31,6 +31,16 @@ export function jsonResponseCache(maxBytes: number): LRUCache<string, CachedBody
   return new LRUCache<string, CachedBody>({ maxSize: maxBytes, sizeCalculation: (body) => Math.max(1, Math.ceil(body.json.length * 3.2)) });
 }
 
+/** The cached answer under `key`, or a new one built by `build` and kept. */
+export async function cachedJson(cache: LRUCache<string, CachedBody>, key: string, build: () => unknown | Promise<unknown>): Promise<CachedBody> {
+  let body = cache.get(key);
+  if (body === undefined) {
+    body = new CachedBody(JSON.stringify(await build()));
+    cache.set(key, body);
+  }
+  return body;
+}
+
 /** Sends a cached answer, compressed once and reused when the client accepts gzip. */
 export async function sendCached(req: Request, res: Response, body: CachedBody): Promise<void> {
   res.type('application/json');

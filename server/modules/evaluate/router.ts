@@ -5,7 +5,7 @@ import { evaluateRequestSchema, pressureQuerySchema } from '../../../shared/sche
 import { parse } from '../../middleware/validate';
 import { evaluateLoadCase, pressureAt } from './service';
 import { catalogueGeneration } from '../property-sets/snapshot';
-import { CachedBody, jsonResponseCache, sendCached } from '../../services/response-cache';
+import { cachedJson, jsonResponseCache, sendCached } from '../../services/response-cache';
 
 export function evaluateRouter(): Router {
   const router = Router();
@@ -17,12 +17,7 @@ export function evaluateRouter(): Router {
     const caller = { canDraft: can(req.user?.role, 'catalogue:draft') };
     // Drafts named by id resolve only for librarians, so they get their own entries.
     const key = `${catalogueGeneration()}|${caller.canDraft ? 'd' : 'p'}|${JSON.stringify(request)}`;
-    let body = cache.get(key);
-    if (body === undefined) {
-      body = new CachedBody(JSON.stringify(await evaluateLoadCase(request, caller)));
-      cache.set(key, body);
-    }
-    await sendCached(req, res, body);
+    await sendCached(req, res, await cachedJson(cache, key, () => evaluateLoadCase(request, caller)));
   });
   return router;
 }

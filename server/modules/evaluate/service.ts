@@ -1,9 +1,8 @@
 import { evaluate, candidateFromPropertySet, pressureFromDepth, type CandidateMaterial, type EvaluateResult } from '../../../shared/engine';
 import type { EvaluateRequest, PressureQuery } from '../../../shared/schemas/evaluate';
-import { badRequest, type FieldErrors } from '../../errors';
+import { AppError, badRequest, type FieldErrors } from '../../errors';
 import { publishedCatalogue, type CatalogueEntry } from '../property-sets/snapshot';
 import { getPropertySet, type Caller } from '../property-sets/service';
-import { AppError } from '../../errors';
 
 function matchesFilters(entry: CatalogueEntry, req: EvaluateRequest): boolean {
   const f = req.filters;

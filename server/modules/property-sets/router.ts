@@ -7,7 +7,7 @@ import { materialCreateSchema } from '../../../shared/schemas/library';
 import { parse, parseId } from '../../middleware/validate';
 import { createMaterial, getMaterial, getPropertySet, listMaterials, listPropertySets } from './service';
 import { catalogueGeneration, filterPublished } from './snapshot';
-import { CachedBody, jsonResponseCache, sendCached } from '../../services/response-cache';
+import { cachedJson, jsonResponseCache, sendCached } from '../../services/response-cache';
 
 const pageSchema = z.object({
   limit: z.coerce.number().int().min(1).max(5000).default(1000),
@@ -31,12 +31,10 @@ export function propertySetsRouter(): Router {
     // The published catalogue comes from the in-memory snapshot; the serialized answer is kept
     // per query until the catalogue changes.
     const key = `${catalogueGeneration()}|${JSON.stringify([query, page])}`;
-    let body = listCache.get(key);
-    if (body === undefined) {
+    const body = await cachedJson(listCache, key, async () => {
       const all = await filterPublished(query);
-      body = new CachedBody(JSON.stringify({ items: all.slice(page.offset, page.offset + page.limit), total: all.length }));
-      listCache.set(key, body);
-    }
+      return { items: all.slice(page.offset, page.offset + page.limit), total: all.length };
+    });
     await sendCached(req, res, body);
   });
   router.get('/:id', authorize('catalogue:read'), async (req, res) => {

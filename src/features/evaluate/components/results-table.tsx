@@ -65,7 +65,6 @@ export function ResultsTable({
   const [sorting, setSorting] = useState<SortingState>([]);
   const [open, setOpen] = useState<Set<string>>(new Set());
   const data = useMemo(() => results.map((r, i) => ({ ...r, rank: i + 1 })), [results]);
-  const keyOf = (r: CandidateResult) => `${r.propertySetId ?? 'inline'}:${r.name}`;
 
   const columns = useMemo(
     () => [
@@ -170,7 +169,7 @@ export function ResultsTable({
         </thead>
         <tbody>
           {table.getRowModel().rows.slice(0, painted).map((row) => {
-            const key = keyOf(row.original);
+            const key = resultKey(row.original);
             const expanded = open.has(key);
             return (
               <Fragment key={key}>
