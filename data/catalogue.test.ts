@@ -13,6 +13,10 @@ import {
   referenceInputSchema,
   type Family,
 } from '../shared/schemas/catalogue';
+import { ratingTableContentSchema } from '../shared/schemas/rating-tables';
+
+// Loose shape for reading the file; the full rules are checked with ratingTableContentSchema below.
+const ratingTableBaseShape = { name: z.string(), geometry: z.string(), data: z.unknown() };
 
 const keySchema = z.string().regex(/^[a-z0-9]+(-[a-z0-9]+)*$/, 'keys are lower-case slugs');
 
@@ -34,6 +38,16 @@ const catalogueFileSchema = z.strictObject({
 });
 
 const raw: unknown = JSON.parse(readFileSync(fileURLToPath(new URL('./catalogue.json', import.meta.url)), 'utf8'));
+// The seeded rating tables (data/rating-tables.json) cite references and materials of this file.
+const ratingTablesFileSchema = z.strictObject({
+  ratingTables: z.array(
+    z.intersection(
+      z.looseObject({ key: keySchema, reference: keySchema, material: keySchema, covers: z.array(z.string().min(1)) }),
+      z.looseObject(ratingTableBaseShape),
+    ),
+  ),
+});
+const ratingTables = ratingTablesFileSchema.parse(JSON.parse(readFileSync(fileURLToPath(new URL('./rating-tables.json', import.meta.url)), 'utf8'))).ratingTables;
 const parsed = catalogueFileSchema.safeParse(raw);
 if (!parsed.success) throw new Error(`catalogue.json does not match its format:\n${z.prettifyError(parsed.error)}`);
 const catalogue = parsed.data;
@@ -86,11 +100,21 @@ describe('catalogue.json format', () => {
     }
   });
 
-  it('uses every reference and every material at least once', () => {
-    const usedReferences = new Set(catalogue.propertySets.map((s) => s.reference));
+  it('uses every reference and every material at least once (by a property set or a rating table)', () => {
+    const usedReferences = new Set([...catalogue.propertySets.map((s) => s.reference), ...ratingTables.map((t) => t.reference)]);
     const usedMaterials = new Set(catalogue.propertySets.map((s) => s.material));
     expect(catalogue.references.filter((r) => !usedReferences.has(r.key)).map((r) => r.key)).toEqual([]);
     expect(catalogue.materials.filter((m) => !usedMaterials.has(m.key)).map((m) => m.key)).toEqual([]);
+  });
+
+  it('every rating table cites a known reference and material, covers existing sets of it, and passes the shared schema', () => {
+    for (const t of ratingTables) {
+      expect(referenceByKey.has(t.reference), t.key).toBe(true);
+      expect(materialByKey.has(t.material), t.key).toBe(true);
+      for (const condition of t.covers) expect(catalogue.propertySets.some((s) => s.material === t.material && s.condition === condition), `${t.key}: ${condition}`).toBe(true);
+      const { key: _k, reference: _r, material: _m, covers: _c, ...content } = t;
+      expect(ratingTableContentSchema.safeParse(content).success, t.key).toBe(true);
+    }
   });
 
   it('has no two sets for the same material in the same condition', () => {

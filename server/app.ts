@@ -21,6 +21,7 @@ import { watchPropertySetChanges } from './modules/property-sets/snapshot';
 import { evaluateRouter, pressureRouter } from './modules/evaluate/router';
 import { libraryRouter } from './modules/library/router';
 import { referencesRouter } from './modules/references/router';
+import { ratingTablesRouter } from './modules/rating-tables/router';
 import { adminRouter } from './modules/admin/router';
 import { loadCasesRouter, peopleRouter, projectsRouter, recordsRouter, shortlistsRouter } from './modules/projects/router';
 import { accountRouter, adminUsersRouter } from './modules/users/router';
@@ -118,6 +119,7 @@ export function createApp(): AppHandle {
   mount('/pressure', pressureRouter());
   mount('/library', libraryRouter());
   mount('/references', referencesRouter());
+  mount('/rating-tables', ratingTablesRouter());
   mount('/admin', adminRouter());
   mount('/admin', adminUsersRouter());
   mount('/projects', projectsRouter());

@@ -4,12 +4,14 @@ import { sequelize } from './sequelize';
 import * as m0001 from './migrations/0001-initial';
 import * as m0002 from './migrations/0002-library-desk';
 import * as m0003 from './migrations/0003-projects';
+import * as m0004 from './migrations/0004-rating-tables';
 
 // Listed explicitly: vitest cannot glob-load .ts migrations. Add new ones at the end.
 const MIGRATIONS = [
   { name: '0001-initial', ...m0001 },
   { name: '0002-library-desk', ...m0002 },
   { name: '0003-projects', ...m0003 },
+  { name: '0004-rating-tables', ...m0004 },
 ];
 
 export function migrator() {

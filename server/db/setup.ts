@@ -2,7 +2,7 @@ import { env } from '../config/env';
 import { initModels } from './models';
 import { migrate } from './migrate';
 import { sequelize } from './sequelize';
-import { seedCatalogue } from './seeders/catalogue';
+import { seedCatalogue, seedRatingTables } from './seeders/catalogue';
 import { seedDemoUsers } from './seeders/demo';
 import { seedDemoProject } from './seeders/demo-project';
 import { invalidateCatalogueSnapshot } from '../modules/property-sets/snapshot';
@@ -27,6 +27,7 @@ export async function setupDatabase(options: { demo?: boolean; demoProject?: boo
   const demo = options.demo ?? (env().NODE_ENV !== 'production' && process.env.ISOBATH_DEMO !== 'false');
   const seeded = await sequelize().transaction(async (transaction) => {
     const propertySets = await seedCatalogue(transaction);
+    await seedRatingTables(transaction);
     const demoUsers = demo ? await seedDemoUsers(transaction) : 0;
     return { migrations, propertySets, demoUsers };
   });
@@ -48,6 +49,7 @@ export const TABLES = [
   'load_cases',
   'project_members',
   'projects',
+  'rating_tables',
   'property_sets',
   'data_references',
   'materials',

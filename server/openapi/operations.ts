@@ -3,6 +3,13 @@ import { loginSchema } from '../../shared/schemas/auth';
 import { propertySetQuerySchema } from '../../shared/schemas/catalogue';
 import { evaluateRequestSchema, pressureQuerySchema } from '../../shared/schemas/evaluate';
 import {
+  ratingTableCsvQuerySchema,
+  ratingTableDraftSchema,
+  ratingTableQuerySchema,
+  ratingTableStepSchema,
+  ratingTableUpdateSchema,
+} from '../../shared/schemas/rating-tables';
+import {
   auditQuerySchema,
   caughtMailQuerySchema,
   draftInputSchema,
@@ -53,6 +60,13 @@ const page = z.object({ limit: z.number().int().min(1).max(5000).optional(), off
 
 /** One entry per "METHOD /api/path" (Express form). A route without an entry fails the tests. */
 export const OPERATIONS: Record<string, OperationDoc> = {
+  'GET /api/rating-tables': { tag: 'Rating tables', summary: 'Rating tables (published; librarians also drafts, reviews and retired), optionally of one material', query: ratingTableQuerySchema, responses: { 200: 'The tables' } },
+  'GET /api/rating-tables/:id': { tag: 'Rating tables', summary: 'One rating table with its grid, citation and the property sets it covers', responses: { 200: 'The table', 404: 'No such table you can read' } },
+  'POST /api/rating-tables': { tag: 'Rating tables', summary: 'Draft a new rating table', body: ratingTableDraftSchema, responses: { 201: 'Draft created', 400: 'Invalid draft' } },
+  'PUT /api/rating-tables/:id': { tag: 'Rating tables', summary: 'Save a rating-table draft again (with the lock version read)', body: ratingTableUpdateSchema, responses: { 200: 'Saved', 409: 'Someone saved it since, or it is no longer a draft' } },
+  'POST /api/rating-tables/:id/steps': { tag: 'Rating tables', summary: 'Take a review step: submit, approve, return (with comment), revise, retire (with reason); four-eyes for approve and return', body: ratingTableStepSchema, responses: { 200: 'Step taken', 201: 'Revision drafted', 403: 'Not your role, or your own work', 409: 'Stale, or not possible in this status' } },
+  'POST /api/rating-tables/csv': { tag: 'Rating tables', summary: "Read a rating table's grid from CSV for the editor (writes nothing); row-level problems as fields", query: ratingTableCsvQuerySchema, upload: { field: 'file', description: 'CSV, UTF-8, at most 1 MB' }, responses: { 200: 'The grid, in SI', 400: 'Problems by row and column' } },
+  'GET /api/rating-tables/csv-template': { tag: 'Rating tables', summary: 'The CSV header for a rating-table grid', query: ratingTableCsvQuerySchema, produces: 'text/csv', responses: { 200: 'CSV' } },
   'POST /api/auth/login': { tag: 'Account', summary: 'Sign in; answers with the user and sets the session cookie', body: loginSchema, responses: { 200: 'Signed in', 401: 'E-mail or password is incorrect', 429: 'Too many failed attempts' } },
   'POST /api/auth/logout': { tag: 'Account', summary: 'Sign out (ends the session)', responses: { 204: 'Signed out' } },
   'GET /api/auth/me': { tag: 'Account', summary: 'The signed-in user with the permissions of their role', responses: { 200: 'The user', 401: 'Not signed in' } },

@@ -104,15 +104,45 @@ describe('computeAllowables', () => {
     expect(w).toEqual([]);
   });
 
-  it('multiplies temperature (worst in range), sustained-load and cyclic factors', () => {
+  it('applies the worst temperature factor and ONE life factor, the lower of sustained-load and cyclic (never their product)', () => {
     const c: Conditions = { temperature: { min: 0, max: 32 }, sustainedHours: 1000, cycles: 100 };
     const a = computeAllowables(base, c, []);
     // worst over 0..32 °C is at 32 °C (0.85); 1000 h → 0.6; 100 cycles → halfway in log10 between 1 and 0.7
     expect(a.factors.temperature).toBeCloseTo(0.85, 12);
     expect(a.factors.worstTemperature).toBe(32);
+    expect(a.factors.temperatureSource).toBe('set');
     expect(a.factors.sustainedLoad).toBeCloseTo(0.6, 12);
     expect(a.factors.cyclic).toBeCloseTo(0.85, 12);
-    expect(a.tension).toBeCloseTo(62e6 * 0.85 * 0.6 * 0.85, 0);
+    expect(a.factors.life).toBeCloseTo(0.6, 12);
+    expect(a.factors.lifeBasis).toBe('sustained-load');
+    expect(a.tension).toBeCloseTo(62e6 * 0.85 * 0.6, 0);
+    expect(a.shortTerm.tension).toBeCloseTo(62e6 * 0.85, 0);
+    // many cycles and few hours: the cyclic factor governs instead
+    const b = computeAllowables(base, { temperature: { min: 21, max: 21 }, sustainedHours: 1, cycles: 10000 }, []);
+    expect(b.factors.lifeBasis).toBe('cyclic');
+    expect(b.factors.life).toBeCloseTo(0.7, 12);
+    expect(b.shear).toBeCloseTo(55e6 * 0.7, 0);
+    // no time at load: no life factor
+    expect(computeAllowables(base, room, []).factors).toMatchObject({ life: 1, lifeBasis: 'none' });
+  });
+
+  it('uses the acrylic family temperature curve when the set has none, and says so (NCEL R-773; classification-rule flat-window table)', () => {
+    const bare: CandidateMaterial = { ...base, temperatureFactors: [] };
+    const w: string[] = [];
+    // 66 °C: 0.38, from the ratio of rated pressures between the 24 °C and 66 °C columns of the flat-window table [calc]
+    const hot = computeAllowables(bare, { ...room, temperature: { min: 10, max: 66 } }, w);
+    expect(hot.factors.temperature).toBeCloseTo(0.38, 12);
+    expect(hot.factors.temperatureSource).toBe('family');
+    expect(w.some((s) => /acrylic family default/.test(s))).toBe(true);
+    // 32 °C: 0.80, the larger loss R-773 measured at 90 °F (10–20 % below 70 °F) [pub, abstract]
+    expect(computeAllowables(bare, { ...room, temperature: { min: 32, max: 32 } }, []).factors.temperature).toBeCloseTo(0.8, 12);
+    // 0 °C: 1.15, the smaller gain R-773 measured at 32 °F (15–25 % above) [pub, abstract]
+    expect(computeAllowables(bare, { ...room, temperature: { min: 0, max: 0 } }, []).factors.temperature).toBeCloseTo(1.15, 12);
+    // other families have no default: glass stays at 1 without data
+    expect(computeAllowables({ ...bare, family: 'glass' }, { ...room, temperature: { min: 60, max: 60 } }, []).factors).toMatchObject({
+      temperature: 1,
+      temperatureSource: 'none',
+    });
   });
 
   it('clamps outside the temperature data and says so', () => {
@@ -124,13 +154,16 @@ describe('computeAllowables', () => {
   });
 
   it('warns, and does not reduce silently, when sustained-load, cyclic or temperature data are missing', () => {
-    const bare: CandidateMaterial = { ...base, temperatureFactors: [], sustainedLoadFactors: null, cyclicFactors: undefined };
+    const bare: CandidateMaterial = { ...base, family: 'polycarbonate', temperatureFactors: [], sustainedLoadFactors: null, cyclicFactors: undefined };
     const w: string[] = [];
-    const a = computeAllowables(bare, { temperature: { min: 5, max: 30 }, sustainedHours: 10000, cycles: 500 }, w);
-    expect(a.factors).toMatchObject({ temperature: 1, sustainedLoad: 1, cyclic: 1 });
+    const a = computeAllowables({ ...bare, family: 'acrylic' }, { temperature: { min: 5, max: 30 }, sustainedHours: 10000, cycles: 500 }, w);
+    expect(a.factors).toMatchObject({ sustainedLoad: 1, cyclic: 1, life: 1, temperatureSource: 'family' });
+    const pc: string[] = [];
+    expect(computeAllowables(bare, { temperature: { min: 5, max: 30 }, sustainedHours: 0, cycles: 0 }, pc).factors.temperature).toBe(1);
+    expect(pc.some((s) => /No temperature-dependence data/.test(s))).toBe(true);
     expect(w.find((s) => /No sustained-load \(creep\) data/.test(s))).toMatch(/Acrylic loses strength/);
     expect(w.some((s) => /No cyclic \(fatigue\) data/.test(s))).toBe(true);
-    expect(w.some((s) => /No temperature-dependence data/.test(s))).toBe(true);
+    expect(w.some((s) => /No temperature-dependence data/.test(s))).toBe(false);
   });
 
   it.each([

@@ -2,18 +2,24 @@
  * Allowable stresses per failure mode for one candidate under one load case.
  *
  * Base strengths: tension = tensileYield ?? tensileStrength; compression = compressiveYield ??
- * compressiveStrength; shear = shearStrength. Each is multiplied by the property set's own
- * strength factors:
- *  - temperature: the WORST (lowest) factor over the design range, piecewise-linear in °C,
- *    found at the range ends and at every data point inside the range; clamped to the end
- *    value outside the data (with a warning);
- *  - sustained load: at the load case's hours, linear in log10(hours);
- *  - cyclic: at the load case's cycles, linear in log10(cycles).
+ * compressiveStrength; shear = shearStrength. Each is multiplied by
+ *  - the temperature factor: the WORST (lowest) factor over the design range, piecewise-linear
+ *    in °C, found at the range ends and at every data point inside the range; clamped to the end
+ *    value outside the data (with a warning). The set's own curve, else its family's default
+ *    curve (`FAMILY_TEMPERATURE_FACTORS`, cited there), else none (with a warning for polymers);
+ *  - ONE life factor: the lower of the sustained-load factor (at the load case's hours, linear in
+ *    log10(hours)) and the cyclic factor (at its cycles, linear in log10(cycles)). Static and
+ *    cyclic fatigue are measured on separate tests, each of which already spends load time on
+ *    the other effect; multiplying the two counts the same damage twice. Taking the governing one
+ *    is the rule stated here (common practice; the pressure-window standard likewise folds both
+ *    into a single conversion factor).
+ * Short-term allowables (base × temperature, no life factor) serve the proof-test check.
  * Missing data never passes silently: a warning says what was not accounted for.
  * Buckling uses Young's modulus (not reduced here; see the creep warning for polymers).
  */
 import type { Family } from '../schemas/catalogue';
-import type { AppliedFactors, CandidateMaterial } from './types';
+import { FAMILY_TEMPERATURE_FACTORS } from './defaults';
+import type { AppliedFactors, CandidateMaterial, LifeBasis } from './types';
 
 /** The load-case conditions that affect allowables. */
 export interface Conditions {
@@ -34,6 +40,8 @@ export interface Allowables {
   tensionOnYield: boolean;
   /** true when compression is based on compressiveYield rather than compressiveStrength. */
   compressionOnYield: boolean;
+  /** Short-term allowables (base strength × temperature factor, no life factor), Pa: for the proof test. */
+  shortTerm: { tension: number; compression: number; shear: number };
   factors: AppliedFactors;
 }
 
@@ -210,11 +218,11 @@ function familyWord(family: Family | undefined): string {
 
 // Warnings that depend only on the load case and the material's family are the same for every
 // candidate of an evaluation: build each once per load case (the Conditions object) and reuse it.
-type MessageKind = 'noTemperature' | 'noSustained' | 'noCyclic';
+type MessageKind = 'noTemperature' | 'familyTemperature' | 'noSustained' | 'noCyclic';
 const MESSAGES = new WeakMap<Conditions, Record<MessageKind, Map<string | undefined, string>>>();
 function once(c: Conditions, kind: MessageKind, variant: string | undefined, build: () => string): string {
   let byKind = MESSAGES.get(c);
-  if (!byKind) MESSAGES.set(c, (byKind = { noTemperature: new Map(), noSustained: new Map(), noCyclic: new Map() }));
+  if (!byKind) MESSAGES.set(c, (byKind = { noTemperature: new Map(), familyTemperature: new Map(), noSustained: new Map(), noCyclic: new Map() }));
   const byVariant = byKind[kind];
   let text = byVariant.get(variant);
   if (text === undefined) byVariant.set(variant, (text = build()));
@@ -230,13 +238,18 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
   const tMin = c.temperature.min;
   const tMax = c.temperature.max;
 
-  // Temperature
+  // Temperature: the set's own curve, else the family's default curve, else none
   let temperature = 1;
   let worstTemperature = tMin;
-  const tPts = sortedT(m.temperatureFactors);
+  let temperatureSource: AppliedFactors['temperatureSource'] = 'none';
+  const own = sortedT(m.temperatureFactors);
+  const familyCurve = own || m.family === undefined ? undefined : FAMILY_TEMPERATURE_FACTORS[m.family];
+  const tPts = own ?? (familyCurve ? familyCurve.points : null);
   if (tPts) {
     temperature = worstOverRange(tPts, tMin, tMax);
     worstTemperature = worstAt;
+    temperatureSource = own ? 'set' : 'family';
+    if (familyCurve) warnings.push(once(c, 'familyTemperature', m.family, () => familyCurve.warning));
     const lo = tPts[0].temperature;
     const hi = tPts[tPts.length - 1].temperature;
     if (tMin < lo || tMax > hi) {
@@ -316,15 +329,21 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
     );
   }
 
-  const f = temperature * sustainedLoad * cyclic;
+  // One life factor: the governing (lower) of the two, never their product.
+  const life = sustainedLoad < cyclic ? sustainedLoad : cyclic;
+  const lifeBasis: LifeBasis = life >= 1 ? 'none' : sustainedLoad <= cyclic ? 'sustained-load' : 'cyclic';
   const tensionOnYield = m.tensileYield != null;
   const compressionOnYield = m.compressiveYield != null;
+  const tension = (tensionOnYield ? (m.tensileYield as number) : m.tensileStrength) * temperature;
+  const compression = (compressionOnYield ? (m.compressiveYield as number) : m.compressiveStrength) * temperature;
+  const shear = m.shearStrength * temperature;
   return {
-    tension: (tensionOnYield ? (m.tensileYield as number) : m.tensileStrength) * f,
-    compression: (compressionOnYield ? (m.compressiveYield as number) : m.compressiveStrength) * f,
-    shear: m.shearStrength * f,
+    tension: tension * life,
+    compression: compression * life,
+    shear: shear * life,
     tensionOnYield,
     compressionOnYield,
-    factors: { temperature, worstTemperature, sustainedLoad, cyclic },
+    shortTerm: { tension, compression, shear },
+    factors: { temperature, worstTemperature, temperatureSource, sustainedLoad, cyclic, life, lifeBasis },
   };
 }

@@ -3,12 +3,13 @@
  */
 import type { PropertySetDto } from '../schemas/catalogue';
 import type { InlineMaterial } from '../schemas/evaluate';
-import type { CandidateMaterial } from './types';
+import type { CandidateMaterial, RatingTable } from './types';
 
 /** A catalogue property set as a candidate; the name is the material's, with the condition when given. */
-export function candidateFromPropertySet(ps: PropertySetDto): CandidateMaterial {
+export function candidateFromPropertySet(ps: PropertySetDto, ratingTables?: readonly RatingTable[]): CandidateMaterial {
   const condition = ps.condition?.trim();
   return {
+    ...(ratingTables && ratingTables.length ? { ratingTables } : {}),
     name: condition ? `${ps.material.name} (${condition})` : ps.material.name,
     propertySetId: ps.id,
     family: ps.material.family,

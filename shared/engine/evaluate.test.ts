@@ -228,11 +228,17 @@ describe('required thickness', () => {
     });
   });
 
-  it('acrylic cone at 4,000 m: seat bearing cannot reach a target of 4 (allowable/4 < p), so null with a warning', () => {
+  it('acrylic cone at 4,000 m: the seat no longer caps the pressure, a thickness is found (Stachiw: 20,000 psi cones are built)', () => {
     const r = evaluate({ loadCase: cameraCone, candidates: [acrylic] }).results[0];
-    const compression = r.modes.find((m) => m.mode === 'compression')!;
-    expect(compression.requiredThickness).toBeNull();
+    expect(r.requiredThickness).not.toBeNull();
+    expect(r.sizedBy).toEqual({ kind: 'mode', mode: r.modes.reduce((a, b) => ((b.requiredThickness ?? 0) > (a.requiredThickness ?? 0) ? b : a)).mode });
+  });
+
+  it('a sphere whose allowable cannot reach 1.5·p at the target has no thickness: null with a warning', () => {
+    const weak = { ...aluminium, name: 'Weak alloy', compressiveYield: 10e6, compressiveStrength: 10e6 };
+    const r = evaluate({ loadCase: hullSphere, candidates: [weak] }).results[0];
     expect(r.requiredThickness).toBeNull();
+    expect(r.sizedBy).toBeNull();
     expect(r.massPerArea).toBeNull();
   });
 });
@@ -254,6 +260,10 @@ const componentArb: fc.Arbitrary<Component> = fc.oneof(
     thickness: dbl(0.0005, 2),
     includedAngle: dbl(30, 180),
   }),
+  fc.record({ type: fc.constant('spherical-sector' as const), innerRadius: dbl(0.01, 2), thickness: dbl(0.0005, 1), includedAngle: dbl(30, 180) }),
+  fc
+    .record({ minorDiameter: dbl(0.005, 2), thickness: dbl(0.0005, 2), seat: dbl(1.01, 3) })
+    .map(({ minorDiameter, thickness, seat }) => ({ type: 'conical-frustum' as const, minorDiameter, thickness, includedAngle: 180, seatOuterDiameter: minorDiameter * seat })),
   fc.record({ type: fc.constant('sphere' as const), innerRadius: dbl(0.02, 10), thickness: dbl(0.0002, 2) }),
   fc.record({ type: fc.constant('cylinder' as const), innerRadius: dbl(0.02, 10), thickness: dbl(0.0002, 2), length: dbl(0.02, 50) }),
 );
@@ -379,7 +389,8 @@ describe('ranking and limit', () => {
   });
 
   it('nulls sort last for ascending keys; flat discs have no weight-to-displacement', () => {
-    const out = evaluate({ loadCase: cameraCone, candidates: demo, sortBy: 'requiredThickness' });
+    const weak = { ...aluminium, name: 'Weak alloy', compressiveYield: 10e6, compressiveStrength: 10e6 };
+    const out = evaluate({ loadCase: hullSphere, candidates: [...demo, weak], sortBy: 'requiredThickness' });
     const firstNull = out.results.findIndex((r) => r.requiredThickness === null);
     expect(firstNull).toBeGreaterThan(-1);
     expect(out.results.slice(firstNull).every((r) => r.requiredThickness === null)).toBe(true);
@@ -432,5 +443,48 @@ describe('ranking and limit', () => {
       expect(fast.total).toBe(200);
       expect(fast.results).toEqual(reference);
     }
+  });
+});
+
+describe('life factors combined once, and the proof test', () => {
+  it('the allowable carries the lower of the sustained-load and cyclic factors, not their product', () => {
+    // acrylic demo curves: 1000 h → 0.6 (sustained), 2000 cycles → between 1 and 0.75 in log10 (cyclic)
+    const lc: LoadCaseInput = { ...chamberViewport, temperature: { min: 21, max: 21 }, sustainedHours: 1000, cycles: 2000 };
+    const r = evaluate({ loadCase: lc, candidates: [acrylic] }).results[0];
+    expect(r.factors.life).toBeCloseTo(Math.min(r.factors.sustainedLoad, r.factors.cyclic), 12);
+    expect(r.factors.lifeBasis).toBe('sustained-load');
+    expect(r.modes[0].allowable).toBeCloseTo(62e6 * r.factors.temperature * r.factors.life, 0);
+    expect(r.modes[0].allowable).toBeGreaterThan(62e6 * r.factors.temperature * r.factors.sustainedLoad * r.factors.cyclic);
+    expect(r.modes[0].model).toMatch(/lower of the sustained-load and cyclic factors, not their product/);
+  });
+
+  it('every mode is reported at the proof-test pressure against short-term strength (no life factor)', () => {
+    for (const lc of Object.values(loadCases)) {
+      const out = evaluate({ loadCase: lc, candidates: [acrylic, titanium] });
+      for (const r of out.results) {
+        for (const m of r.modes) {
+          expect(m.proof.safetyFactor).toBeCloseTo(m.proof.allowable / m.proof.stress, 12);
+          expect(m.proof.allowable).toBeGreaterThanOrEqual(m.allowable * (1 - 1e-12));
+        }
+        expect(r.proofSafetyFactor).toBe(Math.min(...r.modes.map((m) => m.proof.safetyFactor)));
+      }
+    }
+    // linear models: proof stress = design stress × proof factor
+    const r = evaluate({ loadCase: { ...chamberViewport, proofFactor: 1.5 }, candidates: [titanium] }).results[0];
+    r.modes.forEach((m) => expect(m.proof.stress).toBeCloseTo(1.5 * m.stress, 3));
+  });
+
+  it('warns when the proof test itself would fail the part', () => {
+    const thin = evaluate({ loadCase: withThickness(chamberViewport, 0.003), candidates: [acrylic] }).results[0];
+    expect(thin.proofSafetyFactor).toBeLessThan(1);
+    expect(thin.warnings.some((w) => /proof-test pressure/.test(w) && /below 1/.test(w))).toBe(true);
+    const fine = evaluate({ loadCase: chamberViewport, candidates: [titanium] }).results[0];
+    expect(fine.warnings.some((w) => /proof-test pressure/.test(w))).toBe(false);
+  });
+
+  it('says what sets the thickness: the mode with the largest required thickness', () => {
+    const r = evaluate({ loadCase: hullBay, candidates: [aluminium] }).results[0];
+    const largest = r.modes.reduce((a, b) => (b.requiredThickness! > a.requiredThickness! ? b : a));
+    expect(r.sizedBy).toEqual({ kind: 'mode', mode: largest.mode });
   });
 });

@@ -4,13 +4,14 @@
  */
 import type { Component, LoadCaseInput } from '../schemas/evaluate';
 import { DEFAULT_PROOF_FACTOR } from '../schemas/evaluate';
-import { computeAllowables, fmt, isPolymer, type Allowables, type Conditions } from './allowables';
+import { computeAllowables, fmt, isBrittle, isPolymer, type Allowables, type Conditions } from './allowables';
 import type { ComponentModel, ModeMaterial } from './components/common';
 import { modelFor } from './components/index';
 import { defaultTargetSafetyFactor, WATER_DENSITY } from './defaults';
 import { pressureFromDepth } from './pressure';
 import { sortResults, topResults } from './rank';
-import type { CandidateMaterial, CandidateResult, EvaluateResult, ModeResult, SortBy } from './types';
+import { isWindowComponent, rateWithTable, ratingMargin, tableCovers } from './rating-tables';
+import type { CandidateMaterial, CandidateResult, EvaluateResult, ModeResult, RatingResult, SizedBy, SortBy, WindowCoverage } from './types';
 
 /** A load case with its design pressure worked out once, for evaluating many candidates. */
 export interface PreparedLoadCase {
@@ -27,6 +28,8 @@ export interface PreparedLoadCase {
   targetSafetyFactor: number | undefined;
   component: Component;
   model: ComponentModel<Component>;
+  /** For human occupancy (window candidates no rule covers then warn and may rank lower). */
+  humanOccupancy: boolean;
   /** Warnings that concern the load case itself; repeated on every result. */
   warnings: string[];
 }
@@ -61,6 +64,7 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
   checkPositive('thickness', c.thickness);
   if (c.type === 'flat-disc') checkPositive('diameter', c.diameter);
   else if (c.type === 'conical-frustum') checkPositive('minor diameter', c.minorDiameter);
+  else if (c.type === 'spherical-sector') checkPositive('inner radius', c.innerRadius);
   else {
     checkPositive('inner radius', c.innerRadius);
     if (c.type === 'cylinder') checkPositive('length', c.length);
@@ -89,6 +93,7 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
     targetSafetyFactor: target,
     component: c,
     model: modelFor(c),
+    humanOccupancy: loadCase.humanOccupancy === true,
     warnings,
   };
 }
@@ -96,6 +101,8 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
 // Scratch arrays for one candidate's modes (at most 4); evaluation is synchronous.
 const STRESS = new Float64Array(4);
 const ALLOWABLE = new Float64Array(4);
+const PROOF_STRESS = new Float64Array(4);
+const PROOF_ALLOWABLE = new Float64Array(4);
 
 const CREEP_MODULUS_WARNING =
   "Buckling and deflection use the short-term Young's modulus; creep under sustained load lowers the effective modulus of " +
@@ -103,6 +110,11 @@ const CREEP_MODULUS_WARNING =
 
 const FALLBACK_TARGET_WARNING =
   'No family given and no target safety factor in the load case: the most cautious family default was used as the target (common practice).';
+
+const BRITTLE_WINDOW_WARNING =
+  'Brittle window material in a bearing seat: glass and ceramics fail by contact fracture where the window bears on its seat (edge chipping ' +
+  'and cracks from local contact stresses, which these models do not compute) and lose strength under sustained stress in water (static ' +
+  'fatigue). Seat fit, gaskets and proof testing decide them; defer to the applicable standard and to tests.';
 
 const finiteOrNull = (x: number | null): number | null => (x !== null && Number.isFinite(x) ? x : null);
 
@@ -119,6 +131,11 @@ function toModeMaterial(candidate: CandidateMaterial, a: Allowables): ModeMateri
   };
 }
 
+/** The same with short-term allowables (no life factor), for the proof test. */
+function toShortTermMaterial(mm: ModeMaterial, a: Allowables): ModeMaterial {
+  return { ...mm, tension: a.shortTerm.tension, compression: a.shortTerm.compression, shear: a.shortTerm.shear };
+}
+
 /** Material values for the component models, with allowables for the prepared load case. */
 export function modeMaterial(candidate: CandidateMaterial, prepared: PreparedLoadCase, warnings: string[]): ModeMaterial {
   return toModeMaterial(candidate, computeAllowables(candidate, prepared.conditions, warnings));
@@ -129,23 +146,59 @@ export function targetFor(prepared: PreparedLoadCase, candidate: CandidateMateri
   return prepared.targetSafetyFactor ?? defaultTargetSafetyFactor(candidate.family);
 }
 
+/**
+ * The rating-table route of a window candidate: among the published tables that cover its grade
+ * and this geometry, the one that asks for the most thickness (conservative); when none gives a
+ * number, the first one's reason. Null when no table covers the candidate or the component is no window.
+ */
+function ratingRoute(prepared: PreparedLoadCase, candidate: CandidateMaterial): RatingResult | null {
+  const tables = candidate.ratingTables;
+  const c = prepared.component;
+  if (!tables || tables.length === 0 || !isWindowComponent(c)) return null;
+  let best: RatingResult | null = null;
+  for (let i = 0; i < tables.length; i++) {
+    if (!tableCovers(tables[i], c)) continue;
+    const r = rateWithTable(tables[i], c, prepared.pressure, prepared.conditions);
+    if (best === null) best = r;
+    else if (r.requiredThickness !== null && (best.requiredThickness === null || r.requiredThickness > best.requiredThickness)) best = r;
+  }
+  return best;
+}
+
+/** Lowest safety factor over the modes at thickness t (analytical cross-check of a table's thickness). */
+function lowestSafetyFactorAt(prepared: PreparedLoadCase, mm: ModeMaterial, t: number): number {
+  const { model, component, pressure } = prepared;
+  model.fill(component, t, pressure, mm, PROOF_STRESS, PROOF_ALLOWABLE);
+  let sf = Infinity;
+  for (let i = 0; i < model.modes.length; i++) {
+    const s = PROOF_ALLOWABLE[i] / PROOF_STRESS[i];
+    if (s < sf) sf = s;
+  }
+  return sf;
+}
+
 const SCRATCH_WARNINGS: string[] = [];
 
 /**
- * The governing margin of one candidate (lowest safety factor over the modes ÷ target − 1),
- * computed exactly as evaluateCandidate does, without building its result.
+ * The ranking inputs of one candidate (its sizing margin and coverage group), computed exactly as
+ * evaluateCandidate does, without building its result.
  */
-export function governingMargin(prepared: PreparedLoadCase, candidate: CandidateMaterial): number {
+export function rankingMargin(prepared: PreparedLoadCase, candidate: CandidateMaterial): { margin: number; group: number } {
   SCRATCH_WARNINGS.length = 0;
   const mm = toModeMaterial(candidate, computeAllowables(candidate, prepared.conditions, SCRATCH_WARNINGS));
   const { model, component, pressure: p } = prepared;
-  model.fill(component, model.thickness(component), p, mm, STRESS, ALLOWABLE);
+  const t = model.thickness(component);
+  const rating = ratingRoute(prepared, candidate);
+  const tableMargin = rating ? ratingMargin(rating, p, t) : null;
+  const group = prepared.humanOccupancy && isWindowComponent(component) && tableMargin === null ? 1 : 0;
+  if (tableMargin !== null) return { margin: tableMargin, group };
+  model.fill(component, t, p, mm, STRESS, ALLOWABLE);
   let govSf = Infinity;
   for (let i = 0; i < model.modes.length; i++) {
     const sf = ALLOWABLE[i] / STRESS[i];
     if (sf < govSf) govSf = sf;
   }
-  return govSf / targetFor(prepared, candidate) - 1;
+  return { margin: govSf / targetFor(prepared, candidate) - 1, group };
 }
 
 /** Evaluates one candidate at the load case's own thickness. */
@@ -159,16 +212,21 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
   const { model, component, pressure: p } = prepared;
   const t = model.thickness(component);
   model.fill(component, t, p, mm, STRESS, ALLOWABLE);
+  model.fill(component, t, prepared.proofTestPressure, toShortTermMaterial(mm, allowables), PROOF_STRESS, PROOF_ALLOWABLE);
 
   const n = model.modes.length;
   const modes: ModeResult[] = new Array(n);
   let gov = 0;
   let govSf = Infinity;
+  let proofSf = Infinity;
   let required: number | null = 0;
+  let sizing = 0;
   for (let i = 0; i < n; i++) {
     const stress = STRESS[i];
     const allowable = ALLOWABLE[i];
     const sf = allowable / stress;
+    const proof = { stress: PROOF_STRESS[i], allowable: PROOF_ALLOWABLE[i], safetyFactor: PROOF_ALLOWABLE[i] / PROOF_STRESS[i] };
+    if (proof.safetyFactor < proofSf) proofSf = proof.safetyFactor;
     const req = finiteOrNull(model.required(component, p, mm, target, i, t, stress, allowable));
     modes[i] = {
       mode: model.modes[i],
@@ -178,6 +236,7 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
       margin: sf / target - 1,
       requiredThickness: req,
       model: model.model(component, i, mm),
+      proof,
     };
     if (sf < govSf) {
       govSf = sf;
@@ -189,11 +248,54 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
         `No thickness of this material meets the target safety factor ${fmt(target)} in ${model.modes[i]} at ${fmt(p / 1e6)} MPa: ` +
           'thickening cannot bring the stress below allowable ÷ target.',
       );
-    } else if (required !== null && req > required) required = req;
+    } else if (required !== null && req > required) {
+      required = req;
+      sizing = i;
+    }
+  }
+  if (proofSf < 1) {
+    warnings.push(
+      `At the proof-test pressure (${fmt(prepared.proofTestPressure / 1e6)} MPa, ${fmt(prepared.proofFactor)} × design) the lowest safety factor ` +
+        `against short-term strength is ${fmt(proofSf)}, below 1: the proof test itself would fail this part at the evaluated thickness.`,
+    );
   }
 
   const deflection = model.check(component, p, mm, STRESS, ALLOWABLE, warnings);
   if (model.usesModulus && prepared.conditions.sustainedHours > 0 && isPolymer(candidate.family)) warnings.push(CREEP_MODULUS_WARNING);
+
+  // Sizing: a rating table that covers the candidate, else the analytical modes.
+  let margin = modes[gov].margin;
+  let sizedBy: SizedBy | null = required === null ? null : { kind: 'mode', mode: model.modes[sizing] };
+  const rating = ratingRoute(prepared, candidate);
+  const window = isWindowComponent(component);
+  if (rating) {
+    const tableMargin = ratingMargin(rating, p, t);
+    if (tableMargin === null || rating.requiredThickness === null) {
+      required = null;
+      sizedBy = null;
+      warnings.push(`${rating.outside} No thickness is given; the analytical modes below are cross-checks, not a substitute for the table.`);
+    } else {
+      margin = tableMargin;
+      required = rating.requiredThickness;
+      sizedBy = rating.ratingTableId === undefined ? { kind: 'rating-table', name: rating.name } : { kind: 'rating-table', ratingTableId: rating.ratingTableId, name: rating.name };
+      const cross = lowestSafetyFactorAt(prepared, mm, required);
+      rating.crossCheckSafetyFactor = cross;
+      if (cross < 1) {
+        warnings.push(
+          `At the rating table's thickness the analytical cross-check gives a safety factor of ${fmt(cross)}, below 1: the table and the ` +
+            "analytical model disagree; confirm that the table applies to this grade, seat and service.",
+        );
+      }
+    }
+  } else if (window && candidate.family === 'acrylic') {
+    warnings.push(ACRYLIC_UNRATED_WARNING);
+  }
+  if (window && isBrittle(candidate.family)) warnings.push(BRITTLE_WINDOW_WARNING);
+  let coverage: WindowCoverage | undefined;
+  if (prepared.humanOccupancy && window) {
+    coverage = sizedBy !== null && sizedBy.kind === 'rating-table' ? 'covered' : 'not-covered';
+    if (coverage === 'not-covered') warnings.unshift(uncoveredWarning(candidate.family, rating !== null));
+  }
   for (let i = 0; i < prepared.warnings.length; i++) warnings.push(prepared.warnings[i]);
 
   const g = modes[gov];
@@ -201,8 +303,10 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
     name: candidate.name,
     governingMode: g.mode,
     safetyFactor: g.safetyFactor,
-    margin: g.margin,
+    margin,
     requiredThickness: required,
+    sizedBy,
+    proofSafetyFactor: proofSf,
     massPerArea: required === null ? null : candidate.density * required,
     weightToDisplacement:
       required === null || !model.weightToDisplacement
@@ -213,10 +317,28 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
     modes,
     warnings,
   };
+  if (rating) result.rating = rating;
+  if (coverage) result.coverage = coverage;
   if (candidate.propertySetId !== undefined) result.propertySetId = candidate.propertySetId;
   if (candidate.family !== undefined) result.family = candidate.family;
   if (deflection !== undefined) result.deflection = deflection;
   return result;
+}
+
+const ACRYLIC_UNRATED_WARNING =
+  'No published rating table covers this acrylic set for this window geometry: it is sized by the analytical modes alone. Window rules ' +
+  "can ask for more: at low pressure the flat-window table of the classification rules needs up to about 20 % more thickness than a " +
+  'safety factor of 4 on short-term strength gives. Enter your standard\'s tables as rating tables.';
+
+function uncoveredWarning(family: CandidateMaterial['family'], outsideTable: boolean): string {
+  const base = outsideTable
+    ? 'HUMAN OCCUPANCY: this load case is outside the rating table that covers this window, so no window rule covers it here'
+    : 'HUMAN OCCUPANCY: no window rule in the catalogue covers this material and geometry';
+  const tail =
+    family && family !== 'acrylic'
+      ? `; the pressure-window standards' tables are written for acrylic, and ${family.replace('-', ' ')} windows for crewed service need a qualification of their own.`
+      : '.';
+  return `${base}${tail} It ranks below covered candidates; do not use it for crewed service without the approval of the applicable rules.`;
 }
 
 /** Input of `evaluate`: a load case and candidates already resolved to material values. */
@@ -227,6 +349,13 @@ export interface EvaluateInput {
   limit?: number;
   /** Ranking (default 'margin'). */
   sortBy?: SortBy;
+  /** Human occupancy, windows: rank covered candidates above uncovered ones (default true). */
+  coveredFirst?: boolean;
+}
+
+/** The `limit`-th smallest key of `keys` (the cut-off of the best `limit`). */
+function cutOff(keys: Float64Array, limit: number): number {
+  return keys.slice().sort()[limit - 1];
 }
 
 /**
@@ -239,21 +368,38 @@ export function evaluate(input: EvaluateInput): EvaluateResult {
   const n = candidates.length;
   const limit = Math.max(0, Math.floor(input.limit ?? 100));
   const sortBy = input.sortBy ?? 'margin';
+  const coveredFirst = input.coveredFirst ?? true;
   let results: CandidateResult[];
-  if (sortBy === 'margin' && limit < n && n > 64) {
-    // Ranking by margin needs only each candidate's governing safety factor. Every candidate is
-    // checked in every mode; the full result (required thicknesses, warnings, model texts) is
+  if (sortBy === 'margin' && limit > 0 && limit < n && n > 64) {
+    // Ranking by margin needs only each candidate's sizing margin (and coverage group). Every
+    // candidate is checked; the full result (required thicknesses, warnings, model texts) is
     // built only for those that make the cut, in the same order topResults would give.
     const keys = new Float64Array(n);
-    for (let i = 0; i < n; i++) keys[i] = -governingMargin(prepared, candidates[i]);
-    const cut = keys.slice().sort()[limit - 1];
+    const groups = new Uint8Array(n);
+    let uncovered = 0;
+    for (let i = 0; i < n; i++) {
+      const r = rankingMargin(prepared, candidates[i]);
+      keys[i] = -r.margin;
+      if (coveredFirst && r.group === 1) {
+        groups[i] = 1;
+        uncovered++;
+      }
+    }
     const kept: CandidateResult[] = [];
-    for (let i = 0; i < n; i++) if (keys[i] <= cut) kept.push(evaluateCandidate(prepared, candidates[i]));
-    results = sortResults(kept, 'margin').slice(0, limit);
+    const covered = n - uncovered;
+    if (uncovered === 0 || limit <= covered) {
+      const pool = uncovered === 0 ? keys : keys.filter((_, i) => groups[i] === 0);
+      const cut = cutOff(pool, limit);
+      for (let i = 0; i < n; i++) if (groups[i] === 0 && keys[i] <= cut) kept.push(evaluateCandidate(prepared, candidates[i]));
+    } else {
+      const cut = cutOff(keys.filter((_, i) => groups[i] === 1), limit - covered);
+      for (let i = 0; i < n; i++) if (groups[i] === 0 || keys[i] <= cut) kept.push(evaluateCandidate(prepared, candidates[i]));
+    }
+    results = sortResults(kept, 'margin', coveredFirst).slice(0, limit);
   } else {
     const all: CandidateResult[] = new Array(n);
     for (let i = 0; i < n; i++) all[i] = evaluateCandidate(prepared, candidates[i]);
-    results = topResults(all, sortBy, limit);
+    results = topResults(all, sortBy, limit, coveredFirst);
   }
   return {
     pressure: prepared.pressure,

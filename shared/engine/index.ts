@@ -49,7 +49,8 @@ export { DEFAULT_PROOF_FACTOR } from '../schemas/evaluate';
 
 // Raw published formulas (for tests, charts and explanations)
 export { flatDiscBendingStress, flatDiscDeflection, edgeShearStress, flatDiscBendingCoefficient } from './components/flat-disc';
-export { majorDiameter, seatBearingStress, CONICAL_FRUSTUM_WARNING } from './components/conical-frustum';
+export { majorDiameter, seatBearingStress, confinedSeatStress, bearingOuterDiameter, coneFlexureCoefficient, CONICAL_FRUSTUM_WARNING } from './components/conical-frustum';
+export { sectorSeatStress, SPHERICAL_SECTOR_WARNING } from './components/spherical-sector';
 export {
   sphereLameStress,
   sphereMembraneStress,
@@ -85,5 +86,16 @@ export type {
   TemperatureFactorPoint,
   HoursFactorPoint,
   CyclesFactorPoint,
+  RatingTable,
+  RatingResult,
+  RatingGeometry,
+  SizedBy,
+  WindowCoverage,
+  ProofCheck,
+  LifeBasis,
+  MinimumRatioData,
+  CriticalPressureData,
 } from './types';
+export { minimumRatioAt, ratedPressureAt, rateWithTable, tableCovers, ratioBase, isWindowComponent, INTERPOLATION_RULE } from './rating-tables';
+export { coverageGroup } from './rank';
 export { FAILURE_MODES } from './types';

@@ -30,9 +30,21 @@ export function rankKey(r: CandidateResult, sortBy: SortBy): number {
   }
 }
 
-/** Comparator for a ranking: negative when `a` ranks before `b`. */
-export function compareResults(sortBy: SortBy): (a: CandidateResult, b: CandidateResult) => number {
+/** Human occupancy: 1 for a window no rule covers, else 0 (covered candidates rank first). */
+export function coverageGroup(r: Pick<CandidateResult, 'coverage'>): number {
+  return r.coverage === 'not-covered' ? 1 : 0;
+}
+
+/**
+ * Comparator for a ranking: negative when `a` ranks before `b`. With `coveredFirst`, windows no
+ * rule covers for human occupancy come after the covered ones whatever their key.
+ */
+export function compareResults(sortBy: SortBy, coveredFirst = false): (a: CandidateResult, b: CandidateResult) => number {
   return (a, b) => {
+    if (coveredFirst) {
+      const g = coverageGroup(a) - coverageGroup(b);
+      if (g !== 0) return g;
+    }
     const ka = rankKey(a, sortBy);
     const kb = rankKey(b, sortBy);
     return ka < kb ? -1 : ka > kb ? 1 : byName(a, b);
@@ -43,8 +55,8 @@ export function compareResults(sortBy: SortBy): (a: CandidateResult, b: Candidat
  * Sorts results in place, best first: 'margin' descending; 'requiredThickness', 'massPerArea'
  * and 'weightToDisplacement' ascending with nulls last. Ties: by name, then property set id.
  */
-export function sortResults(results: CandidateResult[], sortBy: SortBy): CandidateResult[] {
-  return results.sort(compareResults(sortBy));
+export function sortResults(results: CandidateResult[], sortBy: SortBy, coveredFirst = false): CandidateResult[] {
+  return results.sort(compareResults(sortBy, coveredFirst));
 }
 
 /**
@@ -52,10 +64,12 @@ export function sortResults(results: CandidateResult[], sortBy: SortBy): Candida
  * without sorting everything: the keys are sorted natively to find the cut-off, then only the
  * results at or better than it are sorted with the tie-break.
  */
-export function topResults(results: CandidateResult[], sortBy: SortBy, limit: number): CandidateResult[] {
+export function topResults(results: CandidateResult[], sortBy: SortBy, limit: number, coveredFirst = false): CandidateResult[] {
   const n = results.length;
   if (limit <= 0) return [];
-  if (limit >= n || n <= 64) return sortResults(results.slice(), sortBy).slice(0, limit);
+  if (limit >= n || n <= 64 || (coveredFirst && results.some((r) => coverageGroup(r) === 1))) {
+    return sortResults(results.slice(), sortBy, coveredFirst).slice(0, limit);
+  }
   const keys = new Float64Array(n);
   for (let i = 0; i < n; i++) keys[i] = rankKey(results[i], sortBy);
   const sorted = keys.slice().sort();

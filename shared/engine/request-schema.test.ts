@@ -173,7 +173,7 @@ describe('evaluate request schema', () => {
       { numRuns: 500 },
     );
     fc.assert(
-      fc.property(fc.string({ minLength: 1 }).filter((k) => !['pressure', 'temperature', 'sustainedHours', 'cycles', 'targetSafetyFactor', 'proofFactor', 'component'].includes(k)), (key) => {
+      fc.property(fc.string({ minLength: 1 }).filter((k) => !['pressure', 'temperature', 'sustainedHours', 'cycles', 'targetSafetyFactor', 'proofFactor', 'humanOccupancy', 'component'].includes(k)), (key) => {
         expect(loadCaseSchema.safeParse({ ...valid.loadCase, [key]: 1 }).success).toBe(false);
       }),
     );
@@ -181,7 +181,7 @@ describe('evaluate request schema', () => {
 
   it('can be published as JSON Schema (for the OpenAPI document)', () => {
     const schema = z.toJSONSchema(evaluateRequestSchema, { io: 'input' }) as { properties: Record<string, unknown> };
-    expect(Object.keys(schema.properties)).toEqual(['loadCase', 'candidates', 'limit', 'sortBy', 'filters']);
+    expect(Object.keys(schema.properties)).toEqual(['loadCase', 'candidates', 'limit', 'sortBy', 'coveredFirst', 'filters']);
   });
 });
 

@@ -52,6 +52,12 @@ export interface CandidateMaterial {
   temperatureFactors?: readonly TemperatureFactorPoint[] | null;
   sustainedLoadFactors?: readonly HoursFactorPoint[] | null;
   cyclicFactors?: readonly CyclesFactorPoint[] | null;
+  /**
+   * Published rating tables that cover this candidate's material grade (attached by the server
+   * from the catalogue). For a window component one of them, when it covers the geometry, sizes
+   * the candidate; the analytical modes become cross-checks.
+   */
+  ratingTables?: readonly RatingTable[] | null;
 }
 
 /** One failure mode's check at the evaluated thickness. */
@@ -69,17 +75,48 @@ export interface ModeResult {
   requiredThickness: number | null;
   /** The model used and its published source. */
   model: string;
+  /** The same mode at the proof-test pressure against short-term strength (no life factors). */
+  proof: ProofCheck;
 }
 
-/** The strength factors that were applied (product gives allowable / base strength). */
+/** One mode at the proof-test pressure. */
+export interface ProofCheck {
+  /** Pa */
+  stress: number;
+  /** Pa: base strength × temperature factor only (a proof test is short). */
+  allowable: number;
+  /** allowable / stress; below 1 the proof test itself would fail the part. */
+  safetyFactor: number;
+}
+
+/** Which life factor governed: the lower of the two is applied, never their product. */
+export type LifeBasis = 'sustained-load' | 'cyclic' | 'none';
+
+/** The strength factors that were applied: allowable = base strength × temperature × life. */
 export interface AppliedFactors {
   /** Worst (lowest) temperature factor over the design range. */
   temperature: number;
   /** Temperature (°C) at which the worst factor occurs. */
   worstTemperature: number;
+  /** Where the temperature factor came from: the set's own curve, the family default, or none. */
+  temperatureSource: 'set' | 'family' | 'none';
+  /** Sustained-load factor at the load case's hours (1 without data). */
   sustainedLoad: number;
+  /** Cyclic factor at the load case's cycles (1 without data). */
   cyclic: number;
+  /** The life factor applied: min(sustainedLoad, cyclic). */
+  life: number;
+  /** Which of the two set the life factor ('none' when both are 1). */
+  lifeBasis: LifeBasis;
 }
+
+/** What set a candidate's required thickness. */
+export type SizedBy =
+  | { kind: 'mode'; mode: FailureMode }
+  | { kind: 'rating-table'; ratingTableId?: number; name: string };
+
+/** Whether a window rule covers the candidate for human occupancy (window components only). */
+export type WindowCoverage = 'covered' | 'not-covered';
 
 /** One candidate's evaluation. */
 export interface CandidateResult {
@@ -87,12 +124,27 @@ export interface CandidateResult {
   propertySetId?: number;
   family?: Family;
   governingMode: FailureMode;
-  /** The governing mode's safety factor. */
+  /** The governing mode's safety factor (analytical). */
   safetyFactor: number;
-  /** The governing mode's margin. */
+  /**
+   * The margin of what sizes the candidate (see `sizedBy`): the governing mode's
+   * safetyFactor/target − 1, or, when a rating table sizes it, the table's rated pressure at the
+   * entered thickness / design pressure − 1 (the table already holds its design factor).
+   */
   margin: number;
-  /** m; the largest of the modes' required thicknesses; null if any mode cannot meet the target. */
+  /**
+   * m; the largest of the modes' required thicknesses (null if any mode cannot meet the target),
+   * or the rating table's when one sizes the candidate (null outside the table).
+   */
   requiredThickness: number | null;
+  /** What set requiredThickness: a mode, or a rating table; null when no thickness is given. */
+  sizedBy: SizedBy | null;
+  /** The rating-table route, when a published table covers this candidate's grade and geometry. */
+  rating?: RatingResult;
+  /** Lowest safety factor over the modes at the proof-test pressure (short-term strength). */
+  proofSafetyFactor: number;
+  /** Set when the load case is for human occupancy and the component is a window. */
+  coverage?: WindowCoverage;
   /** kg/m²; density × requiredThickness; null when requiredThickness is null. */
   massPerArea: number | null;
   /** Spheres and cylinders only: shell mass / displaced water mass at the required thickness. */
@@ -107,6 +159,72 @@ export interface CandidateResult {
 }
 
 export type SortBy = 'margin' | 'requiredThickness' | 'massPerArea' | 'weightToDisplacement';
+
+// ---------------------------------------------------------------------------------------------
+// Rating tables: the trade's empirical window data, cited and curated like property sets
+// ---------------------------------------------------------------------------------------------
+
+/** Window geometries a rating table can be written for. */
+export type RatingGeometry = 'flat-disc' | 'conical-frustum' | 'spherical-sector';
+
+/**
+ * Minimum thickness ratio (t/Di; t/Ri for spherical sectors) against design pressure (rows, Pa)
+ * and design temperature (columns, °C). `ratios[i][j]` is for pressures[i], temperatures[j];
+ * null where the source gives no value.
+ */
+export interface MinimumRatioData {
+  form: 'minimum-ratio';
+  pressures: readonly number[];
+  temperatures: readonly number[];
+  ratios: readonly (readonly (number | null)[])[];
+}
+
+/**
+ * Short-term critical pressure (Pa) against thickness ratio at the reference temperature, with
+ * conversion factors by design temperature: design pressure ≤ STCP / conversion factor.
+ */
+export interface CriticalPressureData {
+  form: 'critical-pressure';
+  ratios: readonly number[];
+  criticalPressures: readonly number[];
+  conversionFactors: readonly { temperature: number; factor: number }[];
+}
+
+export interface RatingTable {
+  id?: number;
+  version?: number;
+  name: string;
+  geometry: RatingGeometry;
+  /** Cones and spherical sectors: the included angles (°) the table applies to, inclusive. */
+  includedAngle?: { min: number; max: number } | null;
+  /** Service the table's data support; a load case beyond them is outside the table. */
+  limits?: { sustainedHours?: number | null; cycles?: number | null } | null;
+  /** The citation, for results and records. */
+  source: string;
+  data: MinimumRatioData | CriticalPressureData;
+}
+
+/** The rating-table route for one candidate. */
+export interface RatingResult {
+  ratingTableId?: number;
+  version?: number;
+  name: string;
+  source: string;
+  /** t/Di (t/Ri for spherical sectors) the table requires at the design pressure and temperature; null outside it. */
+  minimumRatio: number | null;
+  /** m; null outside the table. */
+  requiredThickness: number | null;
+  /** Pa; the pressure the table rates the entered thickness for; null when the table cannot say. */
+  ratedPressure: number | null;
+  /** True when ratedPressure is only a lower bound (the entered thickness exceeds the table's last row). */
+  ratedPressureIsLowerBound: boolean;
+  /** How the number was read from the table (interpolation, conservative clamping). */
+  interpolation: string;
+  /** Why the table gives no number, when it does not. */
+  outside?: string;
+  /** Safety factor of the governing analytical mode at the table's thickness (cross-check). */
+  crossCheckSafetyFactor: number | null;
+}
 
 /** Result of `evaluate`. */
 export interface EvaluateResult {

@@ -201,6 +201,8 @@ export interface PropertySetDto {
   id: number;
   status: PropertySetStatus;
   version: number;
+  /** The id of the first version of this set's lineage (rating tables cover lineages). Optional only for hand-built fixtures. */
+  lineageId?: number | null;
   condition: string;
   material: MaterialDto;
   reference: ReferenceDto | null;

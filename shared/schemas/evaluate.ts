@@ -133,6 +133,19 @@ export const conicalFrustumSchema = strict('Conical frustum', {
   minorDiameter: size('Minor diameter'),
   thickness: size('Thickness'),
   includedAngle: num('Included angle', { min: 30, max: 180, unit: '°' }),
+  /** Outer diameter of the seat's bearing annulus; needed for a 180° (flat) seat, which has no major diameter. */
+  seatOuterDiameter: size('Seat outer diameter').optional(),
+}).refine((c) => c.seatOuterDiameter === undefined || c.seatOuterDiameter > c.minorDiameter, {
+  error: 'Seat outer diameter must be larger than the minor diameter.',
+  path: ['seatOuterDiameter'],
+});
+
+/** Spherical sector window in a conical seat: concave face of inner spherical radius Ri, pressure on the convex face. */
+export const sphericalSectorSchema = strict('Spherical sector', {
+  type: z.literal('spherical-sector'),
+  innerRadius: size('Inner spherical radius'),
+  thickness: size('Thickness'),
+  includedAngle: num('Included angle', { min: 30, max: 180, unit: '°' }),
 });
 
 export const sphereSchema = strict('Sphere', {
@@ -148,10 +161,10 @@ export const cylinderSchema = strict('Cylinder', {
   length: size('Unsupported length'),
 });
 
-export const COMPONENT_TYPES = ['flat-disc', 'conical-frustum', 'sphere', 'cylinder'] as const;
+export const COMPONENT_TYPES = ['flat-disc', 'conical-frustum', 'spherical-sector', 'sphere', 'cylinder'] as const;
 export type ComponentType = (typeof COMPONENT_TYPES)[number];
 
-export const componentSchema = z.discriminatedUnion('type', [flatDiscSchema, conicalFrustumSchema, sphereSchema, cylinderSchema], {
+export const componentSchema = z.discriminatedUnion('type', [flatDiscSchema, conicalFrustumSchema, sphericalSectorSchema, sphereSchema, cylinderSchema], {
   error: (iss) =>
     iss.input === undefined
       ? 'Component is required.'
@@ -160,6 +173,7 @@ export const componentSchema = z.discriminatedUnion('type', [flatDiscSchema, con
 export type Component = z.infer<typeof componentSchema>;
 export type FlatDisc = z.infer<typeof flatDiscSchema>;
 export type ConicalFrustum = z.infer<typeof conicalFrustumSchema>;
+export type SphericalSector = z.infer<typeof sphericalSectorSchema>;
 export type Sphere = z.infer<typeof sphereSchema>;
 export type Cylinder = z.infer<typeof cylinderSchema>;
 
@@ -173,6 +187,8 @@ export const loadCaseSchema = strict('Load case', {
   cycles: num('Pressure cycles', { min: 0, max: 1e9, int: true }),
   targetSafetyFactor: num('Target safety factor', { gt: 0, max: 100 }).optional(),
   proofFactor: num('Proof factor', { min: 1, max: 3 }).default(DEFAULT_PROOF_FACTOR),
+  /** For human occupancy: window candidates no window rule covers carry a warning and rank below covered ones. */
+  humanOccupancy: z.boolean({ error: 'Human occupancy must be true or false.' }).optional(),
   component: componentSchema,
 });
 /** A validated load case (defaults applied). */
@@ -268,6 +284,11 @@ export const evaluateRequestSchema = strict('Request', {
     .optional(),
   limit: num('Limit', { min: 1, max: MAX_CANDIDATES, int: true }).default(DEFAULT_LIMIT),
   sortBy: sortBySchema.default('margin'),
+  /**
+   * For a window under human occupancy: rank the candidates a window rule covers above those it
+   * does not (default). False ranks them all together, still with their warnings.
+   */
+  coveredFirst: z.boolean({ error: 'Covered first must be true or false.' }).default(true),
   filters: evaluateFiltersSchema.optional(),
 });
 export type EvaluateRequest = z.output<typeof evaluateRequestSchema>;

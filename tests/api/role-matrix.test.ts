@@ -9,7 +9,9 @@ import { createHash, randomBytes } from 'node:crypto';
 import { startTestApp } from '../helpers/app';
 import { createAccount, draftBody, EXTRA_PASSWORD } from '../helpers/library';
 import { ROLES, can, type Permission, type Role } from '../../shared/schemas/auth';
-import { PropertySet, User } from '../../server/db/models';
+import { PropertySet, RatingTable, User } from '../../server/db/models';
+import { createRatingTableDraft } from '../../server/modules/rating-tables/service';
+import { ratingTableDraftSchema } from '../../shared/schemas/rating-tables';
 import { Invitation, PasswordReset } from '../../server/db/models/projects';
 import { draftInputSchema } from '../../shared/schemas/library';
 import { createDraft, submitSet } from '../../server/modules/library/service';
@@ -118,6 +120,11 @@ async function submittedByEngineer() {
 }
 
 const json = (path: string, body?: unknown) => async () => ({ path, body });
+const ratingDraft = () => ({
+  materialId: f.materialId,
+  referenceId: f.referenceId,
+  content: { name: unique('Harrow flat window trial grid'), geometry: 'flat-disc', grade: 'Harrow Sound test lot', data: { form: 'minimum-ratio', pressures: [5e5, 1e6], temperatures: [20], ratios: [[0.15], [0.18]] } },
+});
 const TABLE: Record<string, Entry> = {
   'POST /api/auth/login': { build: async () => ({ path: '/api/auth/login', body: { email: 'viewer@harrow.example', password: 'harrow-demo-2026' }, cookie: null }) },
   'POST /api/auth/logout': { ok: 204, build: async (c) => ({ path: '/api/auth/logout', cookie: c === 'anonymous' ? null : (await freshSession(c)).cookie }) },
@@ -172,6 +179,24 @@ const TABLE: Record<string, Entry> = {
   'GET /api/library/import/template.csv': { build: json('/api/library/import/template.csv') },
   'POST /api/library/import/preview': { build: async () => ({ path: '/api/library/import/preview', attach: { field: 'file', data: csvFile(), filename: 'lots.csv', contentType: 'text/csv' } }) },
   'POST /api/library/import': { ok: 201, build: async () => ({ path: '/api/library/import', attach: { field: 'file', data: csvFile(), filename: 'lots.csv', contentType: 'text/csv' } }) },
+
+  'GET /api/rating-tables': { build: json('/api/rating-tables') },
+  'GET /api/rating-tables/:id': { build: async () => ({ path: `/api/rating-tables/${(await RatingTable.findOne({ where: { status: 'published' } }))!.id}` }) },
+  'POST /api/rating-tables': { ok: 201, build: async () => ({ path: '/api/rating-tables', body: ratingDraft() }) },
+  'PUT /api/rating-tables/:id': {
+    build: async () => {
+      const d = await createRatingTableDraft(ratingTableDraftSchema.parse(ratingDraft()), { ...f.secondLibrarian, role: 'librarian' });
+      return { path: `/api/rating-tables/${d.id}`, body: { lockVersion: d.lockVersion, draft: ratingDraft() } };
+    },
+  },
+  'POST /api/rating-tables/:id/steps': {
+    build: async () => {
+      const d = await createRatingTableDraft(ratingTableDraftSchema.parse(ratingDraft()), { ...f.secondLibrarian, role: 'librarian' });
+      return { path: `/api/rating-tables/${d.id}/steps`, body: { step: 'submit', lockVersion: d.lockVersion } };
+    },
+  },
+  'POST /api/rating-tables/csv': { build: async () => ({ path: '/api/rating-tables/csv', attach: { field: 'file', data: Buffer.from('design_pressure_bar,10,24\n5,0.15,0.16\n10,0.17,0.18\n'), filename: 'grid.csv', contentType: 'text/csv' } }) },
+  'GET /api/rating-tables/csv-template': { build: json('/api/rating-tables/csv-template?form=minimum-ratio') },
 
   'GET /api/references': { build: json('/api/references') },
   'GET /api/references/:id': { build: async () => ({ path: `/api/references/${f.referenceId}` }) },

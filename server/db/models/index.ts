@@ -9,6 +9,7 @@ import {
 } from 'sequelize';
 import { sequelize } from '../sequelize';
 import { initProjectModels } from './projects';
+import { initRatingTableModels } from './rating-tables';
 import type {
   CyclesPoint,
   Family,
@@ -245,5 +246,8 @@ export function initModels(): void {
   PropertySet.belongsTo(User, { as: 'lastEditedBy', foreignKey: 'lastEditedById' });
   AuditEntry.belongsTo(User, { as: 'actor', foreignKey: 'actorId', constraints: false });
   initProjectModels(db);
+  initRatingTableModels(db);
   initialised = true;
 }
+
+export { RatingTable } from './rating-tables';

@@ -3,7 +3,8 @@ import path from 'node:path';
 import { z } from 'zod';
 import type { Transaction } from 'sequelize';
 import { ROOT_DIR } from '../../config/env';
-import { Material, PropertySet, Reference } from '../models';
+import { Material, PropertySet, RatingTable, Reference } from '../models';
+import { ratingTableContentSchema } from '../../../shared/schemas/rating-tables';
 import {
   materialInputSchema,
   propertyValuesSchema,
@@ -68,4 +69,66 @@ export async function seedCatalogue(transaction: Transaction): Promise<number> {
     await row.update({ lineageId: row.id }, { transaction });
   }
   return data.propertySets.length;
+}
+
+const ratingSeedSchema = z.object({
+  ratingTables: z.array(
+    z.looseObject({ key: z.string().min(1), reference: z.string().min(1), material: z.string().min(1), covers: z.array(z.string().min(1)) }),
+  ),
+});
+
+/**
+ * Loads data/rating-tables.json as published, version-1 tables, once (when no rating table
+ * exists yet, so it also reaches a database seeded before rating tables existed). References a
+ * table cites are found by title, or created from catalogue.json.
+ */
+export async function seedRatingTables(transaction: Transaction): Promise<number> {
+  if ((await RatingTable.count({ transaction })) > 0 || (await Material.count({ transaction })) === 0) return 0;
+  const file = ratingSeedSchema.parse(JSON.parse(readFileSync(path.join(ROOT_DIR, 'data', 'rating-tables.json'), 'utf8')));
+  const catalogue = readSeedCatalogue();
+  const now = new Date();
+  for (const t of file.ratingTables) {
+    const { key: _key, reference, material, covers, ...rest } = t;
+    const content = ratingTableContentSchema.parse(rest);
+    const refSeed = catalogue.references.find((r) => r.key === reference);
+    const materialSeed = catalogue.materials.find((m) => m.key === material);
+    if (!refSeed || !materialSeed) throw new Error(`Seed rating table "${content.name}" names an unknown reference or material`);
+    const { key: _refKey, ...refValues } = refSeed;
+    const [ref] = await Reference.findOrCreate({
+      where: { title: refSeed.title },
+      defaults: { ...refValues, authors: refValues.authors ?? null, year: refValues.year ?? null, identifier: refValues.identifier ?? null, location: refValues.location ?? null, note: refValues.note ?? null, createdById: null },
+      transaction,
+    });
+    const mat = await Material.findOne({ where: { name: materialSeed.name }, transaction });
+    if (!mat) throw new Error(`Seed rating table "${content.name}": material ${materialSeed.name} is not in the catalogue`);
+    const sets = await PropertySet.findAll({ where: { materialId: mat.id, condition: covers }, attributes: ['id', 'lineageId'], transaction });
+    if (sets.length !== new Set(covers).size) throw new Error(`Seed rating table "${content.name}" covers a set that is not in the catalogue`);
+    const row = await RatingTable.create(
+      {
+        materialId: mat.id,
+        referenceId: ref.id,
+        coversLineageIds: sets.map((s) => s.lineageId ?? s.id).sort((a, b) => a - b),
+        name: content.name,
+        geometry: content.geometry,
+        includedAngle: content.includedAngle ?? null,
+        limits: content.limits ?? null,
+        grade: content.grade,
+        note: content.note ?? null,
+        data: content.data,
+        status: 'published',
+        version: 1,
+        lineageId: null,
+        supersedesId: null,
+        supersededById: null,
+        draftedById: null,
+        lastEditedById: null,
+        approvedById: null,
+        publishedAt: now,
+        retiredAt: null,
+      },
+      { transaction },
+    );
+    await row.update({ lineageId: row.id }, { transaction });
+  }
+  return file.ratingTables.length;
 }

@@ -1,7 +1,7 @@
-import { evaluate, candidateFromPropertySet, pressureFromDepth, type CandidateMaterial, type EvaluateResult } from '../../../shared/engine';
+import { evaluate, pressureFromDepth, type CandidateMaterial, type EvaluateResult } from '../../../shared/engine';
 import type { EvaluateRequest, PressureQuery } from '../../../shared/schemas/evaluate';
 import { AppError, badRequest, type FieldErrors } from '../../errors';
-import { publishedCatalogue, type CatalogueEntry } from '../property-sets/snapshot';
+import { candidateForSet, publishedCatalogue, type CatalogueEntry } from '../property-sets/snapshot';
 import { getPropertySet, type Caller } from '../property-sets/service';
 
 function matchesFilters(entry: CatalogueEntry, req: EvaluateRequest): boolean {
@@ -36,7 +36,7 @@ async function resolveCandidates(req: EvaluateRequest, caller: Caller): Promise<
       continue;
     }
     try {
-      resolved.push(candidateFromPropertySet(await getPropertySet(c.propertySetId, caller)));
+      resolved.push(await candidateForSet(await getPropertySet(c.propertySetId, caller)));
     } catch (err) {
       if (err instanceof AppError && err.status === 404) fields[`candidates.${i}.propertySetId`] = 'No property set you can read has this id.';
       else throw err;
@@ -48,7 +48,7 @@ async function resolveCandidates(req: EvaluateRequest, caller: Caller): Promise<
 
 export async function evaluateLoadCase(req: EvaluateRequest, caller: Caller): Promise<EvaluateResult> {
   const candidates = await resolveCandidates(req, caller);
-  return evaluate({ loadCase: req.loadCase, candidates, limit: req.limit, sortBy: req.sortBy });
+  return evaluate({ loadCase: req.loadCase, candidates, limit: req.limit, sortBy: req.sortBy, coveredFirst: req.coveredFirst });
 }
 
 export function pressureAt(q: PressureQuery) {

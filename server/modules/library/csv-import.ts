@@ -7,6 +7,7 @@ import { Material, Reference } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { AppError, badRequest, conflict } from '../../errors';
 import { recordAudit } from '../../services/audit';
+import { fileError, readCsvRows, type UploadedFile } from '../../services/csv-text';
 import {
   familySchema,
   referenceKindSchema,
@@ -43,11 +44,7 @@ const INSERT_CHUNK = 5_000;
 // ---------------------------------------------------------------------------------------------
 // Reading the file
 
-export interface UploadedFile {
-  buffer: Buffer;
-  originalname: string;
-  size: number;
-}
+export type { UploadedFile };
 
 export interface CsvTable {
   header: Column[];
@@ -55,48 +52,9 @@ export interface CsvTable {
   rows: string[][];
 }
 
-const fileError = (code: string, message: string, fields?: Record<string, string>) => new AppError(400, code, message, fields);
-
 /** Turns the bytes into a table, or refuses a file that cannot be read at all (400, 413). */
 export function readCsv(file: UploadedFile): CsvTable {
-  const bytes = file.buffer;
-  if (bytes.length > IMPORT_MAX_BYTES) {
-    throw new AppError(413, 'too_large', `The file is larger than ${IMPORT_MAX_BYTES / 1024 / 1024} MB. Split it into smaller files.`);
-  }
-  if (bytes.length === 0) throw fileError('empty_file', 'The file is empty.', { file: 'is empty' });
-  // Text never contains NUL; spreadsheets, archives, images and UTF-16 text all do.
-  if (bytes.includes(0)) {
-    throw fileError('not_text', 'This is not a CSV text file (it contains binary data). Save the sheet as "CSV UTF-8" and try again.', {
-      file: 'is not a text file',
-    });
-  }
-  let text: string;
-  try {
-    // fatal: invalid byte sequences (e.g. Latin-1 "é" = 0xE9) throw instead of becoming U+FFFD.
-    text = new TextDecoder('utf-8', { fatal: true }).decode(bytes);
-  } catch {
-    throw fileError('not_utf8', 'The file is not UTF-8 text. Save it as "CSV UTF-8" and try again.', { file: 'is not UTF-8' });
-  }
-  if (!text.trim()) throw fileError('empty_file', 'The file is empty.', { file: 'is empty' });
-
-  const parsed = Papa.parse<string[]>(text, {
-    delimiter: ',',
-    header: false,
-    // Blank lines are skipped. (No `preview` cap: Papa counts blank lines towards it, which would
-    // cut a file with blank lines short without a word. The 20 MB limit bounds the work instead.)
-    skipEmptyLines: 'greedy',
-  });
-  const quoteError = parsed.errors.find((e) => e.type === 'Quotes');
-  if (quoteError) {
-    const row = typeof quoteError.row === 'number' ? quoteError.row : undefined;
-    throw fileError(
-      'not_csv',
-      `The file is not valid CSV: ${quoteError.message}${row !== undefined ? ` (near data row ${row})` : ''}. Check the quotes in that row.`,
-      { file: 'is not valid CSV' },
-    );
-  }
-  const [rawHeader, ...rows] = parsed.data;
-  if (!rawHeader) throw fileError('empty_file', 'The file is empty.', { file: 'is empty' });
+  const [rawHeader, ...rows] = readCsvRows(file, IMPORT_MAX_BYTES);
   const header = rawHeader.map((h) => h.trim().toLowerCase());
 
   const known = header.filter((h) => KNOWN.has(h));

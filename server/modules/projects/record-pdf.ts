@@ -4,6 +4,7 @@ import path from 'node:path';
 import type { DesignRecordContent } from '../../../shared/schemas/projects';
 import type { FailureMode } from '../../../shared/engine';
 import tokens from '../../../tailwind.config';
+import { factorsText, sizedByText } from '../../../shared/labels';
 
 /**
  * The design record as a real, text-selectable PDF (pdfkit, DejaVu fonts embedded): sign-off,
@@ -36,7 +37,12 @@ function describeComponent(c: DesignRecordContent['loadCase']['input']['componen
     case 'flat-disc':
       return `Flat disc window, unsupported diameter ${mm(c.diameter)}, thickness ${mm(c.thickness)}, edge ${c.edge}`;
     case 'conical-frustum':
-      return `Conical frustum window, minor diameter ${mm(c.minorDiameter)}, thickness ${mm(c.thickness)}, included angle ${c.includedAngle}°`;
+      return (
+        `Conical frustum window, minor diameter ${mm(c.minorDiameter)}, thickness ${mm(c.thickness)}, included angle ${c.includedAngle}°` +
+        (c.seatOuterDiameter !== undefined ? `, seat outer diameter ${mm(c.seatOuterDiameter)}` : '')
+      );
+    case 'spherical-sector':
+      return `Spherical sector window, inner spherical radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}, included angle ${c.includedAngle}°`;
     case 'sphere':
       return `Spherical shell, inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}`;
     case 'cylinder':
@@ -103,6 +109,7 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
   pair('Sustained load', `${lc.sustainedHours} h; pressure cycles ${lc.cycles}`);
   pair('Target safety factor', lc.targetSafetyFactor ? String(lc.targetSafetyFactor) : "each family's default (common practice)");
   pair('Component', describeComponent(lc.component));
+  if (lc.humanOccupancy) pair('Human occupancy', 'yes: windows no rule covers are marked and ranked below covered ones');
   if (c.loadCase.notes) pair('Notes', c.loadCase.notes);
 
   heading('Candidates, best first by governing margin');
@@ -179,13 +186,33 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     const set = cand.propertySet;
     heading(`${r.name}`);
     pair('Governing mode', `${cap(r.governingMode)} — safety factor ${r.safetyFactor.toFixed(2)} against a target of ${r.targetSafetyFactor}, margin ${pct(r.margin)}`);
-    pair('Required thickness', mm(r.requiredThickness));
+    pair('Required thickness', `${mm(r.requiredThickness)}, set by ${sizedByText(r.sizedBy ?? null)}`);
+    if (r.rating) {
+      const rt = r.rating;
+      pair(
+        'Rating table',
+        rt.requiredThickness === null
+          ? `${rt.name}: ${rt.outside ?? 'no number'}`
+          : `${rt.name}: minimum ratio ${rt.minimumRatio?.toFixed(3)}, rated ${rt.ratedPressure === null ? 'below the table' : `${rt.ratedPressureIsLowerBound ? 'at least ' : ''}${mpa(rt.ratedPressure)}`} at the entered thickness; analytical cross-check SF ${rt.crossCheckSafetyFactor?.toFixed(2) ?? '—'}`,
+      );
+      pair('Table source', rt.source);
+      doc.font('Body-Italic').fontSize(7.5).fillColor(SOFT).text(rt.interpolation, { indent: 10 });
+    }
+    if (r.coverage) pair('Human occupancy', r.coverage === 'covered' ? 'covered by a window rule' : 'NOT covered by any window rule in the catalogue');
+    if (r.proofSafetyFactor !== undefined) pair('Proof test', `lowest safety factor ${r.proofSafetyFactor.toFixed(2)} at ${mpa(c.proofTestPressure)} against short-term strength`);
+    doc.font('Body').fontSize(8.5).fillColor(INK).text(factorsText(r.factors));
     if (cand.note) pair('Why it is on the shortlist', cand.note);
     doc.moveDown(0.3);
     for (const m of r.modes) {
       if (doc.y > doc.page.height - 80) doc.addPage();
       doc.font('Body-Bold').fontSize(8.5).fillColor(MODE_COLOURS[m.mode]).text(`${cap(m.mode)}: `, { continued: true });
-      doc.font('Body').fillColor(INK).text(`stress ${mpa(m.stress)}, allowable ${mpa(m.allowable)}, safety factor ${m.safetyFactor.toFixed(2)}, needs ${mm(m.requiredThickness)}`);
+      doc
+        .font('Body')
+        .fillColor(INK)
+        .text(
+          `stress ${mpa(m.stress)}, allowable ${mpa(m.allowable)}, safety factor ${m.safetyFactor.toFixed(2)}, needs ${mm(m.requiredThickness)}` +
+            (m.proof ? `; at proof ${m.proof.safetyFactor.toFixed(2)}` : ''),
+        );
       doc.font('Body-Italic').fontSize(7.5).fillColor(SOFT).text(`Model: ${m.model}`, { indent: 10 });
     }
     if (r.warnings.length) {

@@ -15,7 +15,8 @@ import type {
 } from '../../../shared/schemas/projects';
 import type { PropertySetDto } from '../../../shared/schemas/catalogue';
 import { CAUTIONS_TEXT } from '../../../shared/cautions';
-import { candidateFromPropertySet, evaluate, type CandidateResult } from '../../../shared/engine';
+import { evaluate, type CandidateResult } from '../../../shared/engine';
+import { candidateForSet } from '../property-sets/snapshot';
 import { AppError, badRequest, conflict, forbidden, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
 import { sendMailSafely } from '../../services/mail';
@@ -78,9 +79,11 @@ async function newerVersions(sets: PropertySetDto[], lineages: Map<number, numbe
   return out;
 }
 
-function evaluateItems(shortlist: Shortlist, sets: PropertySetDto[]) {
+/** The shortlist's sets evaluated as Evaluate does: with the published rating tables that cover them. */
+async function evaluateItems(shortlist: Shortlist, sets: PropertySetDto[]) {
   if (!sets.length) return null;
-  return evaluate({ loadCase: shortlist.loadCaseRecord!.loadCase, candidates: sets.map(candidateFromPropertySet), limit: sets.length });
+  const candidates = await Promise.all(sets.map((set) => candidateForSet(set)));
+  return evaluate({ loadCase: shortlist.loadCaseRecord!.loadCase, candidates, limit: sets.length });
 }
 
 async function shortlistDto(shortlist: Shortlist): Promise<ShortlistDto> {
@@ -91,7 +94,7 @@ async function shortlistDto(shortlist: Shortlist): Promise<ShortlistDto> {
     newerVersions(sets, lineages),
     DesignRecord.findOne({ where: { shortlistId: shortlist.id }, attributes: ['id'] }),
   ]);
-  const evaluation = evaluateItems(shortlist, sets);
+  const evaluation = await evaluateItems(shortlist, sets);
   const resultFor = (id: number): CandidateResult | null => evaluation?.results.find((r) => r.propertySetId === id) ?? null;
   const itemDtos: ShortlistItemDto[] = items.map((item, i) => ({
     id: item.id,

@@ -44,6 +44,7 @@ export function propertySetDto(ps: PropertySet): PropertySetDto {
     id: ps.id,
     status: ps.status,
     version: ps.version,
+    lineageId: ps.lineageId ?? ps.id,
     condition: ps.condition,
     material: materialDto(ps.material!),
     reference: ps.reference ? referenceDto(ps.reference) : null,

@@ -1,8 +1,9 @@
-import { Material, PropertySet, Reference, User } from '../../db/models';
+import { Material, PropertySet, RatingTable, Reference, User } from '../../db/models';
 import type { PropertySetDto } from '../../../shared/schemas/catalogue';
 import { candidateFromPropertySet } from '../../../shared/engine';
 import type { CandidateMaterial } from '../../../shared/engine';
 import { propertySetDto } from './service';
+import { publishedRatingTables, tablesCovering, type PublishedRatingTable } from '../rating-tables/service';
 
 export interface CatalogueEntry {
   set: PropertySetDto;
@@ -14,7 +15,7 @@ export interface CatalogueEntry {
  * Model hooks on PropertySet (any save, update or destroy in this process) invalidate it,
  * so the library desk never has to remember to.
  */
-let snapshot: Promise<CatalogueEntry[]> | undefined;
+let snapshot: Promise<{ entries: CatalogueEntry[]; tables: PublishedRatingTable[] }> | undefined;
 let generation = 0;
 
 /** Changes whenever the published catalogue may have changed; part of every cache key built on it. */
@@ -26,9 +27,25 @@ export function invalidateCatalogueSnapshot(): void {
 }
 
 export function publishedCatalogue(): Promise<CatalogueEntry[]> {
+  return loadSnapshot().then((s) => s.entries);
+}
+
+/** The published rating tables, from the same snapshot. */
+export function publishedRatingTablesSnapshot(): Promise<PublishedRatingTable[]> {
+  return loadSnapshot().then((s) => s.tables);
+}
+
+/** A property set as an engine candidate, with the published rating tables that cover it. */
+export async function candidateForSet(set: PropertySetDto): Promise<CandidateMaterial> {
+  const tables = await publishedRatingTablesSnapshot();
+  return candidateFromPropertySet(set, tablesCovering(tables, set.material.id, set.lineageId ?? set.id));
+}
+
+function loadSnapshot(): Promise<{ entries: CatalogueEntry[]; tables: PublishedRatingTable[] }> {
   if (!snapshot) {
     const started = generation;
-    const loading = PropertySet.findAll({
+    const loading = Promise.all([
+      PropertySet.findAll({
       where: { status: 'published' },
       include: [
         { model: Material, as: 'material', required: true },
@@ -37,12 +54,15 @@ export function publishedCatalogue(): Promise<CatalogueEntry[]> {
         { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
       ],
       order: [['id', 'ASC']],
-    }).then((rows) =>
-      rows.map((row) => {
-        const set = propertySetDto(row);
-        return { set, candidate: candidateFromPropertySet(set) };
       }),
-    );
+      publishedRatingTables(),
+    ]).then(([rows, tables]) => ({
+      tables,
+      entries: rows.map((row) => {
+        const set = propertySetDto(row);
+        return { set, candidate: candidateFromPropertySet(set, tablesCovering(tables, row.materialId, row.lineageId ?? row.id)) };
+      }),
+    }));
     snapshot = loading;
     // A failed read is not cached; a read that raced an invalidation is not kept either.
     loading.then(
@@ -62,6 +82,7 @@ export function watchPropertySetChanges(): void {
   if (hooked) return;
   for (const hook of ['afterSave', 'afterDestroy', 'afterBulkUpdate', 'afterBulkDestroy', 'afterBulkCreate'] as const) {
     PropertySet.addHook(hook, 'invalidate-catalogue-snapshot', () => invalidateCatalogueSnapshot());
+    RatingTable.addHook(hook, 'invalidate-catalogue-snapshot', () => invalidateCatalogueSnapshot());
   }
   hooked = true;
 }

@@ -4,7 +4,7 @@
 import { randomBytes } from 'node:crypto';
 import type { Readable } from 'node:stream';
 import { Op, type WhereOptions } from 'sequelize';
-import { PropertySet, Reference } from '../../db/models';
+import { PropertySet, RatingTable, Reference } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { AppError, badRequest, conflict, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
@@ -30,13 +30,18 @@ export function referenceDetailDto(r: Reference, usedBy: number): ReferenceDetai
   };
 }
 
+/** How many property sets and rating tables cite each reference. */
 async function usedByCounts(ids: number[]): Promise<Map<number, number>> {
   if (!ids.length) return new Map();
-  const rows = (await PropertySet.count({ where: { referenceId: ids }, group: ['referenceId'] })) as unknown as {
-    referenceId: number;
-    count: number | string;
-  }[];
-  return new Map(rows.map((r) => [Number(r.referenceId), Number(r.count)]));
+  const out = new Map<number, number>();
+  for (const model of [PropertySet, RatingTable] as const) {
+    const rows = (await (model as typeof PropertySet).count({ where: { referenceId: ids }, group: ['referenceId'] })) as unknown as {
+      referenceId: number;
+      count: number | string;
+    }[];
+    for (const r of rows) out.set(Number(r.referenceId), (out.get(Number(r.referenceId)) ?? 0) + Number(r.count));
+  }
+  return out;
 }
 
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);

@@ -55,22 +55,22 @@ export interface BasisTexts {
 /** Model text for a tension mode, naming which base strength the allowable used. */
 export function tensionText(model: string): BasisTexts {
   return {
-    strength: `${model} Allowable: tensile strength × temperature, sustained-load and cyclic factors.`,
-    yield: `${model} Allowable: tensile yield × temperature, sustained-load and cyclic factors.`,
+    strength: `${model} Allowable: tensile strength × temperature factor × life factor (the lower of the sustained-load and cyclic factors, not their product).`,
+    yield: `${model} Allowable: tensile yield × temperature factor × life factor (the lower of the sustained-load and cyclic factors, not their product).`,
   };
 }
 
 /** Model text for a compression mode, naming which base strength the allowable used. */
 export function compressionText(model: string): BasisTexts {
   return {
-    strength: `${model} Allowable: compressive strength × temperature, sustained-load and cyclic factors.`,
-    yield: `${model} Allowable: compressive yield × temperature, sustained-load and cyclic factors.`,
+    strength: `${model} Allowable: compressive strength × temperature factor × life factor (the lower of the sustained-load and cyclic factors, not their product).`,
+    yield: `${model} Allowable: compressive yield × temperature factor × life factor (the lower of the sustained-load and cyclic factors, not their product).`,
   };
 }
 
 /** Model text for a shear mode. */
 export function shearText(model: string): string {
-  return `${model} Allowable: shear strength × temperature, sustained-load and cyclic factors.`;
+  return `${model} Allowable: shear strength × temperature factor × life factor (the lower of the sustained-load and cyclic factors, not their product).`;
 }
 
 /** Thickness that brings a stress ∝ 1/tᵏ to `allowable/target`: t·(target·stress/allowable)^(1/k). */

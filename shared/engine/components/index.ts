@@ -5,10 +5,12 @@ import { conicalFrustumModel } from './conical-frustum';
 import { cylinderModel } from './cylinder';
 import { flatDiscModel } from './flat-disc';
 import { sphereModel } from './sphere';
+import { sphericalSectorModel } from './spherical-sector';
 
 const MODELS = {
   'flat-disc': flatDiscModel,
   'conical-frustum': conicalFrustumModel,
+  'spherical-sector': sphericalSectorModel,
   sphere: sphereModel,
   cylinder: cylinderModel,
 } as const;

@@ -33,7 +33,11 @@ export interface LoadCaseForm {
   innerRadius: number;
   length: number;
   thickness: number;
+  /** Cones: outer diameter of the seat's bearing annulus; NaN (left empty) = not given. */
+  seatOuterDiameter: number;
   edge: 'simply-supported' | 'clamped';
+  humanOccupancy: boolean;
+  coveredFirst: boolean;
   family: Family | '';
   transparent: '' | 'true' | 'false';
   coversTemperature: boolean;
@@ -60,6 +64,7 @@ export const FIELD_KIND: Record<NumericField, QuantityKind | null> = {
   innerRadius: 'length',
   length: 'length',
   thickness: 'length',
+  seatOuterDiameter: 'length',
 };
 
 /** Harrow Sound's two-person submersible, rated to 1,200 m: its 90° conical viewport (SI). */
@@ -83,7 +88,10 @@ export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
   innerRadius: 0.8,
   length: 1.2,
   thickness: 0.1,
+  seatOuterDiameter: Number.NaN,
   edge: 'simply-supported',
+  humanOccupancy: true,
+  coveredFirst: true,
   family: '',
   transparent: 'true',
   coversTemperature: true,
@@ -109,7 +117,15 @@ export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequ
     f.componentType === 'flat-disc'
       ? { type: 'flat-disc' as const, diameter: f.diameter, thickness: f.thickness, edge: f.edge }
       : f.componentType === 'conical-frustum'
-        ? { type: 'conical-frustum' as const, minorDiameter: f.minorDiameter, thickness: f.thickness, includedAngle: f.includedAngle }
+        ? {
+            type: 'conical-frustum' as const,
+            minorDiameter: f.minorDiameter,
+            thickness: f.thickness,
+            includedAngle: f.includedAngle,
+            ...(Number.isNaN(f.seatOuterDiameter) ? {} : { seatOuterDiameter: f.seatOuterDiameter }),
+          }
+        : f.componentType === 'spherical-sector'
+          ? { type: 'spherical-sector' as const, innerRadius: f.innerRadius, thickness: f.thickness, includedAngle: f.includedAngle }
         : f.componentType === 'sphere'
           ? { type: 'sphere' as const, innerRadius: f.innerRadius, thickness: f.thickness }
           : { type: 'cylinder' as const, innerRadius: f.innerRadius, thickness: f.thickness, length: f.length };
@@ -121,8 +137,10 @@ export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequ
       cycles: f.cycles,
       ...(f.useFamilyTargets ? {} : { targetSafetyFactor: f.targetSafetyFactor }),
       proofFactor: f.proofFactor,
+      ...(f.humanOccupancy ? { humanOccupancy: true } : {}),
       component,
     },
+    ...(f.humanOccupancy && !f.coveredFirst ? { coveredFirst: false } : {}),
     filters: {
       ...(f.family ? { family: f.family } : {}),
       ...(f.transparent ? { transparent: f.transparent === 'true' } : {}),
@@ -151,6 +169,8 @@ const PATHS: Record<string, keyof LoadCaseForm> = {
   'loadCase.component.length': 'length',
   'loadCase.component.thickness': 'thickness',
   'loadCase.component.edge': 'edge',
+  'loadCase.component.seatOuterDiameter': 'seatOuterDiameter',
+  'loadCase.humanOccupancy': 'humanOccupancy',
   'loadCase.component': 'componentType',
   'loadCase.component.type': 'componentType',
 };
@@ -193,7 +213,9 @@ export function formFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): Loa
     c.type === 'flat-disc'
       ? { diameter: c.diameter, edge: c.edge }
       : c.type === 'conical-frustum'
-        ? { minorDiameter: c.minorDiameter, includedAngle: c.includedAngle }
+        ? { minorDiameter: c.minorDiameter, includedAngle: c.includedAngle, seatOuterDiameter: c.seatOuterDiameter ?? Number.NaN }
+        : c.type === 'spherical-sector'
+          ? { innerRadius: c.innerRadius, includedAngle: c.includedAngle }
         : c.type === 'sphere'
           ? { innerRadius: c.innerRadius }
           : { innerRadius: c.innerRadius, length: c.length };
@@ -209,6 +231,7 @@ export function formFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): Loa
     proofFactor: lc.proofFactor ?? DEFAULT_PROOF_FACTOR,
     componentType: c.type,
     thickness: c.thickness,
+    humanOccupancy: lc.humanOccupancy === true,
     ...geometry,
     family: filters?.family ?? '',
     transparent: filters?.transparent === undefined ? '' : filters.transparent ? 'true' : 'false',

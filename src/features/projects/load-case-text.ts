@@ -1,12 +1,8 @@
-import type { ComponentType, LoadCaseInput } from '@shared/schemas/evaluate';
+import type { LoadCaseInput } from '@shared/schemas/evaluate';
+import { COMPONENT_LABELS } from '@shared/labels';
 import { formatQuantity, type UnitSystem } from '@/lib/units';
 
-export const COMPONENT_LABELS: Record<ComponentType, string> = {
-  'flat-disc': 'Flat disc window',
-  'conical-frustum': 'Conical frustum window',
-  sphere: 'Spherical shell',
-  cylinder: 'Cylindrical shell between stiffeners',
-};
+export { COMPONENT_LABELS };
 
 const count = (v: number) => v.toLocaleString('en-GB', { maximumFractionDigits: 0 });
 
@@ -37,7 +33,13 @@ export function describeLoadCase(lc: LoadCaseInput, system: UnitSystem): { label
         ? [
             { label: 'Minor diameter', value: len(c.minorDiameter) },
             { label: 'Included angle', value: `${c.includedAngle}°` },
+            ...(c.seatOuterDiameter !== undefined ? [{ label: 'Seat outer diameter', value: len(c.seatOuterDiameter) }] : []),
           ]
+        : c.type === 'spherical-sector'
+          ? [
+              { label: 'Inner spherical radius', value: len(c.innerRadius) },
+              { label: 'Included angle', value: `${c.includedAngle}°` },
+            ]
         : c.type === 'sphere'
           ? [{ label: 'Inner radius', value: len(c.innerRadius) }]
           : [
@@ -57,6 +59,7 @@ export function describeLoadCase(lc: LoadCaseInput, system: UnitSystem): { label
       value: lc.targetSafetyFactor === undefined ? "Each family's default (common practice)" : lc.targetSafetyFactor.toFixed(2),
     },
     { label: 'Proof-test factor', value: (lc.proofFactor ?? 1.25).toFixed(2) },
+    { label: 'Human occupancy', value: lc.humanOccupancy ? 'Yes: window rules apply' : 'No' },
     { label: 'Component', value: COMPONENT_LABELS[c.type] },
     ...geometry,
     { label: 'Thickness', value: len(c.thickness) },

@@ -86,6 +86,20 @@ export function ComponentSketch({ type, labels }: SketchProps) {
           <line x1={130} y1={140} x2={130} y2={20} stroke={DIM} strokeDasharray="3 3" strokeWidth={0.8} />
         </g>
       ) : null}
+      {type === 'spherical-sector' ? (
+        <g>
+          {/* a 90° sector seen in section: convex face up (pressure), concave face down, conical seat */}
+          <path d="M60,70 A99,99 0 0 1 200,70 L165,105 A49,49 0 0 0 95,105 Z" fill={BODY} stroke={INK} />
+          <polygon points="30,70 60,70 95,105 95,122 30,122" fill={SEAT} />
+          <polygon points="230,70 200,70 165,105 165,122 230,122" fill={SEAT} />
+          <Pressure x1={95} x2={165} y={38} />
+          <line x1={130} y1={140} x2={130} y2={10} stroke={DIM} strokeDasharray="3 3" strokeWidth={0.8} />
+          <Dim x1={130} y1={140} x2={165} y2={105} label={`Rᵢ ${labels.innerRadius ?? ''}`} dx={22} dy={14} />
+          <text x={250} y={12} fontSize={11} fill={DIM} fontWeight={700} textAnchor="end">
+            t {labels.thickness} · α {labels.includedAngle}
+          </text>
+        </g>
+      ) : null}
       {type === 'sphere' ? (
         <g>
           <circle cx={110} cy={75} r={60} fill={BODY} stroke={INK} />

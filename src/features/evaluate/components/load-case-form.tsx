@@ -2,6 +2,7 @@ import { useEffect, useMemo, useRef } from 'react';
 import { useForm, type Resolver } from 'react-hook-form';
 import { FAMILIES, FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { COMPONENT_TYPES, type EvaluateRequest } from '@shared/schemas/evaluate';
+import { COMPONENT_LABELS, WINDOW_COMPONENTS } from '@shared/labels';
 import { pressureFromDepth, DEFAULT_TARGET_SAFETY_FACTORS } from '@shared/engine';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
@@ -9,13 +10,6 @@ import { useUnits } from '@/lib/unit-system';
 import { fromDisplay } from '@/lib/units';
 import { checkForm, convertForm, type LoadCaseForm } from '../form-model';
 import { ComponentSketch } from './component-sketch';
-
-const COMPONENT_LABELS: Record<(typeof COMPONENT_TYPES)[number], string> = {
-  'flat-disc': 'Flat disc window',
-  'conical-frustum': 'Conical frustum window',
-  sphere: 'Spherical shell',
-  cylinder: 'Cylindrical shell between stiffeners',
-};
 
 function Fieldset({ legend, children }: { legend: string; children: React.ReactNode }) {
   return (
@@ -92,6 +86,7 @@ export function LoadCaseFormPanel({
     innerRadius: `${v.innerRadius} ${len}`,
     length: `${v.length} ${len}`,
   };
+  const isWindow = WINDOW_COMPONENTS.includes(v.componentType);
 
   return (
     <form onSubmit={submit} noValidate aria-label="Load case" className="flex flex-col gap-4">
@@ -166,6 +161,20 @@ export function LoadCaseFormPanel({
             <>
               <TextField label="Minor diameter" unit={len} inputMode="decimal" error={err('minorDiameter')} {...register('minorDiameter', num)} />
               <TextField label="Included angle" unit="°" inputMode="decimal" error={err('includedAngle')} hint="30° to 180°" {...register('includedAngle', num)} />
+              <TextField
+                label="Seat outer diameter"
+                unit={len}
+                inputMode="decimal"
+                error={err('seatOuterDiameter')}
+                hint={`Optional; a 180° (flat) seat without it bears to 1.25 × the minor diameter`}
+                {...register('seatOuterDiameter', num)}
+              />
+            </>
+          ) : null}
+          {v.componentType === 'spherical-sector' ? (
+            <>
+              <TextField label="Inner spherical radius" unit={len} inputMode="decimal" error={err('innerRadius')} hint="Of the concave (low-pressure) face" {...register('innerRadius', num)} />
+              <TextField label="Included angle" unit="°" inputMode="decimal" error={err('includedAngle')} hint="Of the sector and its conical seat, 30° to 180°" {...register('includedAngle', num)} />
             </>
           ) : null}
           {v.componentType === 'sphere' || v.componentType === 'cylinder' ? (
@@ -177,6 +186,22 @@ export function LoadCaseFormPanel({
           <TextField label="Thickness" unit={len} inputMode="decimal" error={err('thickness')} {...register('thickness', num)} />
         </div>
       </Fieldset>
+
+      {isWindow ? (
+        <Fieldset legend="Occupancy">
+          <label className="flex items-start gap-2 text-sm">
+            <input type="checkbox" className="mt-1" {...register('humanOccupancy')} />
+            <span>
+              For human occupancy <span className="text-ink-faint">(windows no rule covers are warned and ranked below the covered ones)</span>
+            </span>
+          </label>
+          {v.humanOccupancy ? (
+            <label className="flex items-center gap-2 text-sm">
+              <input type="checkbox" {...register('coveredFirst')} /> Rank covered windows first
+            </label>
+          ) : null}
+        </Fieldset>
+      ) : null}
 
       <Fieldset legend="Candidates from the catalogue">
         <div className="grid grid-cols-2 gap-2">

@@ -10,8 +10,9 @@ import {
 } from '@tanstack/react-table';
 import type { CandidateResult } from '@shared/engine';
 import { useUnits } from '@/lib/unit-system';
+import { factorsText } from '@shared/labels';
 import { SortableHeader } from '@/components/ui/sortable-header';
-import { MarginCell, ModeTag, ModesTable } from '@/components/failure-modes';
+import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
 import { splitCandidateName } from '../candidate-name';
 
 /** Rows in the first paint of the ranking; the rest render right after. */
@@ -27,7 +28,8 @@ function ModeBreakdown({ result }: { result: CandidateResult }) {
   return (
     <div className="grid gap-3 bg-chart px-4 py-3 text-sm md:grid-cols-[2fr_1fr]">
       <ModesTable result={result} />
-      <div>
+      <div className="flex flex-col gap-2">
+        <SizingSummary result={result} />
         <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">Warnings</p>
         {result.warnings.length ? (
           <ul className="mt-1 list-disc pl-4 text-xs text-verdict-watch">
@@ -39,8 +41,7 @@ function ModeBreakdown({ result }: { result: CandidateResult }) {
           <p className="mt-1 text-xs text-ink-soft">None for this load case.</p>
         )}
         <p className="mt-2 text-xs text-ink-soft">
-          Strength factors applied: temperature {result.factors.temperature.toFixed(2)} (at {format('temperature', result.factors.worstTemperature)}), sustained load{' '}
-          {result.factors.sustainedLoad.toFixed(2)}, cycles {result.factors.cyclic.toFixed(2)}.
+          {factorsText(result.factors, (c) => format('temperature', c))}
         </p>
       </div>
     </div>
@@ -74,6 +75,7 @@ export function ResultsTable({
         cell: (c) => {
           // Catalogue names read "Material (condition)": show the condition on its own line.
           const name = c.getValue();
+          const uncovered = c.row.original.coverage === 'not-covered';
           const { material: head, condition: tail } = c.row.original.propertySetId ? splitCandidateName(name) : { material: name, condition: '' };
           return (
             <div className="min-w-[13rem] max-w-[20rem]">
@@ -85,6 +87,7 @@ export function ResultsTable({
                 <span className="font-bold">{head}</span>
               )}
               {tail ? <div className="text-xs text-ink-soft">{tail}</div> : null}
+              {uncovered ? <div className="text-xs font-bold text-verdict-fail">Not covered for human occupancy</div> : null}
             </div>
           );
         },
@@ -106,6 +109,15 @@ export function ResultsTable({
         header: `Required t (${label('length')})`,
         cell: (c) => (c.row.original.requiredThickness === null ? 'none suffices' : format('length', c.row.original.requiredThickness, { unit: false })),
         meta: { numeric: true },
+      }),
+      col.accessor((r) => (r.sizedBy === null ? '' : r.sizedBy.kind === 'mode' ? r.sizedBy.mode : 'table'), {
+        id: 'sizedBy',
+        header: 'Sized by',
+        cell: (c) => {
+          const s = c.row.original.sizedBy;
+          if (s === null) return <span className="text-ink-faint">—</span>;
+          return s.kind === 'mode' ? <ModeTag mode={s.mode} /> : <span className="text-xs font-bold text-sounding" title={s.name}>Rating table</span>;
+        },
       }),
       col.accessor((r) => r.massPerArea ?? Number.POSITIVE_INFINITY, {
         id: 'massPerArea',

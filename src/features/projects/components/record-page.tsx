@@ -3,11 +3,12 @@ import { Link } from 'react-router-dom';
 import type { CandidateResult } from '@shared/engine';
 import type { DesignRecordContent, DesignRecordDto } from '@shared/schemas/projects';
 import { FAMILY_LABELS, type ReferenceDto } from '@shared/schemas/catalogue';
-import { MarginCell, ModeTag, ModesTable } from '@/components/failure-modes';
+import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
 import { Button } from '@/components/ui/button';
 import { ErrorState, Spinner, Tag } from '@/components/ui/states';
 import { formatDateTime } from '@/lib/dates';
 import { useUnits } from '@/lib/unit-system';
+import { factorsText } from '@shared/labels';
 import { designRecordPdfUrl, useDesignRecord } from '../api/shortlists';
 import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
 import './record-print.css';
@@ -129,9 +130,11 @@ function CandidateModes({ index, note, result }: { index: number; note: string; 
         {note || <span className="text-ink-faint">none</span>}
       </p>
       <ModesTable result={result} className="mt-2" />
+      <div className="mt-2">
+        <SizingSummary result={result} />
+      </div>
       <p className="mt-2 text-xs text-ink-soft">
-        Strength factors applied: temperature {result.factors.temperature.toFixed(2)} (at {format('temperature', result.factors.worstTemperature)}), sustained load{' '}
-        {result.factors.sustainedLoad.toFixed(2)}, cycles {result.factors.cyclic.toFixed(2)}.
+        {factorsText(result.factors, (c) => format('temperature', c))}
       </p>
       {result.warnings.length ? (
         <ul className="mt-1 list-disc pl-5 text-xs text-verdict-watch">

@@ -1,0 +1,34 @@
+/**
+ * Words shown for the domain's values, written once for the client, the record and its PDF.
+ */
+import type { ComponentType } from './schemas/evaluate';
+
+export const COMPONENT_LABELS: Record<ComponentType, string> = {
+  'flat-disc': 'Flat disc window',
+  'conical-frustum': 'Conical frustum window',
+  'spherical-sector': 'Spherical sector window',
+  sphere: 'Spherical shell',
+  cylinder: 'Cylindrical shell between stiffeners',
+};
+
+/** Which components are windows (a rating table can cover them; human-occupancy rules apply). */
+export const WINDOW_COMPONENTS: readonly ComponentType[] = ['flat-disc', 'conical-frustum', 'spherical-sector'];
+
+/** What set a result's required thickness, in words. */
+export function sizedByText(sizedBy: { kind: 'mode'; mode: string } | { kind: 'rating-table'; name: string } | null): string {
+  if (sizedBy === null) return 'no thickness given';
+  return sizedBy.kind === 'mode' ? `${sizedBy.mode} (analytical)` : `rating table: ${sizedBy.name}`;
+}
+
+/** The strength factors a result applied, in words; records frozen before the life rule lack its fields. */
+export function factorsText(
+  f: { temperature: number; worstTemperature: number; temperatureSource?: string; sustainedLoad: number; cyclic: number; life?: number },
+  temperature: (celsius: number) => string = (c) => `${c} °C`,
+): string {
+  const t = `temperature ${f.temperature.toFixed(2)} (worst at ${temperature(f.worstTemperature)}${f.temperatureSource === 'family' ? ', family default curve' : ''})`;
+  const life =
+    f.life === undefined
+      ? `sustained load ${f.sustainedLoad.toFixed(2)} × cycles ${f.cyclic.toFixed(2)} (multiplied, as before the life rule)`
+      : `life ${f.life.toFixed(2)}, the lower of sustained load ${f.sustainedLoad.toFixed(2)} and cycles ${f.cyclic.toFixed(2)}`;
+  return `Strength factors applied: ${t}; ${life}.`;
+}
