@@ -327,8 +327,8 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
 
 const ACRYLIC_UNRATED_WARNING =
   'No published rating table covers this acrylic set for this window geometry: it is sized by the analytical modes alone. Window rules ' +
-  "can ask for more: at low pressure the flat-window table of the classification rules needs up to about 20 % more thickness than a " +
-  'safety factor of 4 on short-term strength gives. Enter your standard\'s tables as rating tables.';
+  "can ask for more: below about 20 bar the classification rules' flat-window table needs up to 45 % more thickness (at 5 bar) than " +
+  "a safety factor of 4 on short-term strength gives. Enter your standard's tables as rating tables.";
 
 function uncoveredWarning(family: CandidateMaterial['family'], outsideTable: boolean): string {
   const base = outsideTable

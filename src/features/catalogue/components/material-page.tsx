@@ -6,6 +6,8 @@ import { ReferenceCard } from '@/components/reference-card';
 import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
 import { toDisplay, type QuantityKind } from '@/lib/units';
+import { useRatingTables } from '@/features/rating-tables/api/rating-tables';
+import { RatingTableSummary } from '@/features/rating-tables/components/rating-table-pages';
 
 const FactorChart = lazy(() => import('@/components/charts/factor-chart').then((m) => ({ default: m.FactorChart })));
 
@@ -162,6 +164,24 @@ export function MaterialPage() {
         </Panel>
         {selected ? <SetDetail set={selected} /> : <p>No property sets yet.</p>}
       </div>
+      <MaterialRatingTables materialId={material.id} />
     </div>
+  );
+}
+
+/** The published rating tables of the material: the window data that size its windows. */
+function MaterialRatingTables({ materialId }: { materialId: number }) {
+  const tables = useRatingTables({ materialId, status: 'published' });
+  if (tables.isPending) return <Spinner label="Loading rating tables…" />;
+  if (tables.isError) return <ErrorState error={tables.error} onRetry={() => void tables.refetch()} />;
+  if (!tables.data.items.length) return null;
+  return (
+    <section aria-label="Rating tables" className="flex flex-col gap-3">
+      <h2 className="text-lg font-bold">Rating tables</h2>
+      <p className="text-sm text-ink-soft">Where one of these covers a window's geometry, Evaluate takes the required thickness from it; the analytical models cross-check it.</p>
+      {tables.data.items.map((t) => (
+        <RatingTableSummary key={t.id} table={t} />
+      ))}
+    </section>
   );
 }

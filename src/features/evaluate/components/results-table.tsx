@@ -103,7 +103,17 @@ export function ResultsTable({
         ),
         meta: { numeric: true },
       }),
-      col.accessor('margin', { header: 'Margin', cell: (c) => <MarginCell margin={c.getValue()} />, meta: { numeric: true } }),
+      col.accessor('margin', {
+        header: 'Margin',
+        // A table-sized window's margin is the table's (rated pressure / design pressure − 1), not the analytical factor beside it.
+        cell: (c) => (
+          <span className="whitespace-nowrap">
+            <MarginCell margin={c.getValue()} />
+            {c.row.original.sizedBy?.kind === 'rating-table' ? <span className="block text-xs text-ink-faint">by rating table</span> : null}
+          </span>
+        ),
+        meta: { numeric: true },
+      }),
       col.accessor((r) => r.requiredThickness ?? Number.POSITIVE_INFINITY, {
         id: 'requiredThickness',
         header: `Required t (${label('length')})`,

@@ -118,6 +118,9 @@ export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
           <LinkButton to="/library/references" tone="quiet">
             References
           </LinkButton>
+          <LinkButton to="/library/rating-tables" tone="quiet">
+            Rating tables
+          </LinkButton>
         </nav>
       </div>
 

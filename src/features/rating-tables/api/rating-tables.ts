@@ -1,0 +1,64 @@
+import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { api, upload } from '@/lib/api-client';
+import type { RatingTableData, RatingTableDraftInput, RatingTableDto, RatingTableListDto, RatingTableStepInput } from '@shared/schemas/rating-tables';
+
+export interface RatingTableFilters {
+  materialId?: number;
+  status?: 'draft' | 'in-review' | 'published' | 'retired' | 'open';
+}
+
+/** Query keys of rating tables: one factory. */
+export const ratingTableKeys = {
+  all: ['rating-tables'] as const,
+  lists: () => [...ratingTableKeys.all, 'list'] as const,
+  list: (filters: RatingTableFilters) => [...ratingTableKeys.lists(), filters] as const,
+  detail: (id: number) => [...ratingTableKeys.all, 'detail', id] as const,
+};
+
+export const ratingTablesQueryOptions = (filters: RatingTableFilters) =>
+  queryOptions({ queryKey: ratingTableKeys.list(filters), queryFn: () => api.get<RatingTableListDto>('/rating-tables', { ...filters }), staleTime: 30_000 });
+
+export const ratingTableQueryOptions = (id: number) =>
+  queryOptions({ queryKey: ratingTableKeys.detail(id), queryFn: () => api.get<RatingTableDto>(`/rating-tables/${id}`), staleTime: 10_000 });
+
+export const useRatingTables = (filters: RatingTableFilters, enabled = true) => useQuery({ ...ratingTablesQueryOptions(filters), enabled });
+export const useRatingTable = (id: number) => useQuery(ratingTableQueryOptions(id));
+
+/** Evaluations and the catalogue read published tables: a step refreshes them all. */
+const EVALUATION_KEY_ROOTS = [['evaluate'], ['property-sets'], ['materials']] as const;
+
+function useSettle() {
+  const qc = useQueryClient();
+  return (table: RatingTableDto) => {
+    qc.setQueryData(ratingTableKeys.detail(table.id), table);
+    void qc.invalidateQueries({ queryKey: ratingTableKeys.lists() });
+    for (const root of EVALUATION_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
+  };
+}
+
+export function useCreateRatingTable() {
+  const settle = useSettle();
+  return useMutation({ mutationFn: (draft: RatingTableDraftInput) => api.post<RatingTableDto>('/rating-tables', draft), onSuccess: settle });
+}
+
+export function useUpdateRatingTable(id: number) {
+  const settle = useSettle();
+  return useMutation({
+    mutationFn: (body: { lockVersion: number; draft: RatingTableDraftInput }) => api.put<RatingTableDto>(`/rating-tables/${id}`, body),
+    onSuccess: settle,
+  });
+}
+
+export function useRatingTableStep(id: number) {
+  const settle = useSettle();
+  return useMutation({ mutationFn: (input: RatingTableStepInput) => api.post<RatingTableDto>(`/rating-tables/${id}/steps`, input), onSuccess: settle });
+}
+
+/** Reads a CSV grid on the server (nothing is written) and hands it to the editor. */
+export function readRatingCsv(file: File, form: RatingTableData['form']): Promise<{ data: RatingTableData }> {
+  const body = new FormData();
+  body.append('file', file);
+  return upload<{ data: RatingTableData }>(`/rating-tables/csv?form=${form}`, body);
+}
+
+export const ratingCsvTemplateUrl = (form: RatingTableData['form']) => `/api/rating-tables/csv-template?form=${form}`;

@@ -1,0 +1,247 @@
+import { useMemo, useState } from 'react';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
+import type { SessionUserDto } from '@shared/schemas/auth';
+import { RATING_GEOMETRY_LABELS, type RatingTableDraftInput, type RatingTableDto } from '@shared/schemas/rating-tables';
+import { CURATED_STATUS_LABELS, CURATED_STEPS, type CuratedStepName } from '@shared/workflows/curated';
+import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import { SelectField } from '@/components/ui/field';
+import { LinkButton } from '@/components/ui/link-button';
+import { WorkflowSteps } from '@/components/workflow-steps';
+import { ApiError } from '@/lib/api-client';
+import { useQuery } from '@tanstack/react-query';
+import { materialsQueryOptions } from '@/features/library/api/library-sets';
+import { referencesQueryOptions } from '@/features/library/api/references';
+import { materialQueryOptions } from '@/features/catalogue/api/property-sets';
+import { useCreateRatingTable, useRatingTable, useRatingTables, useRatingTableStep, useUpdateRatingTable } from '../api/rating-tables';
+import { EMPTY_EDITOR, editorFrom, type EditorErrors } from '../editor-model';
+import { RatingGrid } from './rating-grid';
+import { RatingTableEditor } from './rating-table-editor';
+
+const TONE = { draft: 'brass', 'in-review': 'sounding', published: 'pass', retired: 'neutral' } as const;
+
+function Breadcrumb({ here }: { here: string }) {
+  return (
+    <nav aria-label="Breadcrumb" className="text-sm">
+      <Link to="/library" className="text-sounding hover:underline">
+        Library desk
+      </Link>{' '}
+      /{' '}
+      <Link to="/library/rating-tables" className="text-sounding hover:underline">
+        Rating tables
+      </Link>{' '}
+      / {here}
+    </nav>
+  );
+}
+
+/** The choices the editor needs: references and the material's property-set lineages. */
+function useEditorChoices(materialId: number | null) {
+  const refs = useQuery(referencesQueryOptions(''));
+  const material = useQuery({ ...materialQueryOptions(materialId ?? 0), enabled: materialId !== null });
+  return {
+    references: (refs.data?.items ?? []).map((r) => ({ id: r.id, label: [r.title, r.year].filter(Boolean).join(', ') })),
+    sets: (material.data?.propertySets ?? []).filter((s) => s.status === 'published').map((s) => ({ id: s.lineageId ?? s.id, label: s.condition })),
+  };
+}
+
+const serverErrors = (e: unknown): EditorErrors => (e instanceof ApiError ? e.fields : {});
+
+/** Rating tables on the desk: the open ones (drafts and reviews) and every published one. */
+export function RatingTablesDesk() {
+  const open = useRatingTables({ status: 'open' });
+  const published = useRatingTables({ status: 'published' });
+  const row = (t: RatingTableDto) => (
+    <tr key={t.id} className="border-t border-chart-line/60">
+      <td className="py-1.5 pr-3">
+        <Link to={`/library/rating-tables/${t.id}`} className="font-bold text-sounding hover:underline">
+          {t.content.name}
+        </Link>
+        <span className="block text-xs text-ink-soft">{t.material.name}</span>
+      </td>
+      <td className="py-1.5 pr-3">{RATING_GEOMETRY_LABELS[t.content.geometry]}</td>
+      <td className="py-1.5 pr-3">
+        <Tag tone={TONE[t.status]}>{CURATED_STATUS_LABELS[t.status]}</Tag>
+      </td>
+      <td className="py-1.5">v{t.version}</td>
+    </tr>
+  );
+  const table = (label: string, items: RatingTableDto[]) => (
+    <table className="w-full text-sm" aria-label={label}>
+      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+        <tr>
+          <th className="py-1 pr-3">Table and material</th>
+          <th className="py-1 pr-3">Geometry</th>
+          <th className="py-1 pr-3">Status</th>
+          <th className="py-1">Version</th>
+        </tr>
+      </thead>
+      <tbody>{items.map(row)}</tbody>
+    </table>
+  );
+  return (
+    <div className="flex flex-col gap-4">
+      <Breadcrumb here="All" />
+      <div className="flex flex-wrap items-end justify-between gap-3">
+        <div>
+          <h1 className="text-2xl font-bold">Rating tables</h1>
+          <p className="text-sm text-ink-soft">
+            The trade's window data for one geometry and material grade. Where a published table covers a window, it sets the thickness and the analytical models cross-check it. Enter your licensed standard's tables here.
+          </p>
+        </div>
+        <LinkButton to="/library/rating-tables/new">New rating table</LinkButton>
+      </div>
+      <Panel title="Drafts and reviews">
+        {open.isPending ? <Spinner /> : open.isError ? <ErrorState error={open.error} /> : open.data.items.length ? table('Open rating tables', open.data.items) : <EmptyState title="No rating table is being drafted or reviewed" />}
+      </Panel>
+      <Panel title="Published">
+        {published.isPending ? <Spinner /> : published.isError ? <ErrorState error={published.error} /> : published.data.items.length ? table('Published rating tables', published.data.items) : <EmptyState title="No published rating table yet" />}
+      </Panel>
+    </div>
+  );
+}
+
+export function NewRatingTablePage() {
+  const [params, setParams] = useSearchParams();
+  const navigate = useNavigate();
+  const materialId = Number(params.get('material')) || null;
+  const materials = useQuery(materialsQueryOptions());
+  const choices = useEditorChoices(materialId);
+  const create = useCreateRatingTable();
+  const save = (draft: RatingTableDraftInput) =>
+    create.mutate(draft, { onSuccess: (t) => navigate(`/library/rating-tables/${t.id}`, { replace: true }) });
+  return (
+    <div className="flex flex-col gap-4">
+      <Breadcrumb here="New" />
+      <h1 className="text-2xl font-bold">New rating table</h1>
+      <Panel>
+        <SelectField label="Material" value={materialId ?? ''} onChange={(e) => setParams({ material: e.target.value }, { replace: true })} hint="The table applies to sets of this material">
+          <option value="">Choose the material…</option>
+          {(materials.data?.items ?? []).map((m) => (
+            <option key={m.id} value={m.id}>
+              {m.name}
+            </option>
+          ))}
+        </SelectField>
+      </Panel>
+      {materialId ? (
+        <Panel title="Draft">
+          <RatingTableEditor materialId={materialId} initial={EMPTY_EDITOR} references={choices.references} sets={choices.sets} busy={create.isPending} serverErrors={serverErrors(create.error)} onSave={save} />
+          {create.error && !Object.keys(serverErrors(create.error)).length ? <p role="alert" className="mt-2 text-sm font-bold text-verdict-fail">{(create.error as Error).message}</p> : null}
+        </Panel>
+      ) : null}
+    </div>
+  );
+}
+
+export function RatingTablePage({ me }: { me: SessionUserDto | null | undefined }) {
+  const id = Number(useParams().id);
+  const navigate = useNavigate();
+  const query = useRatingTable(id);
+  const update = useUpdateRatingTable(id);
+  const step = useRatingTableStep(id);
+  const [saved, setSaved] = useState<string | null>(null);
+  const t = query.data;
+  const choices = useEditorChoices(t?.material.id ?? null);
+  const initial = useMemo(() => (t ? editorFrom(t) : EMPTY_EDITOR), [t]);
+  if (query.isPending) return <Spinner label="Loading the rating table…" />;
+  if (query.isError || !t) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
+  const editable = t.status === 'draft' && !!me?.permissions.includes('catalogue:draft');
+  const onStep = async (name: CuratedStepName, comment: string | undefined) => {
+    const input = name === 'return' || name === 'retire' ? { step: name, lockVersion: t.lockVersion, comment: comment ?? '' } : { step: name, lockVersion: t.lockVersion };
+    const next = await step.mutateAsync(input as never);
+    if (next.id !== t.id) navigate(`/library/rating-tables/${next.id}`);
+  };
+  return (
+    <div className="flex flex-col gap-4">
+      <Breadcrumb here={t.content.name} />
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div>
+          <h1 className="text-2xl font-bold">{t.content.name}</h1>
+          <p className="text-sm text-ink-soft">
+            {t.material.name} · {RATING_GEOMETRY_LABELS[t.content.geometry]}
+            {t.content.includedAngle ? ` · ${t.content.includedAngle.min}–${t.content.includedAngle.max}°` : ''} · version {t.version}
+          </p>
+        </div>
+        <Tag tone={TONE[t.status]}>{CURATED_STATUS_LABELS[t.status]}</Tag>
+      </div>
+      {t.returnedComment && t.status === 'draft' ? (
+        <p role="status" className="rounded-plate border border-verdict-watch/40 bg-white px-3 py-2 text-sm">
+          <span className="font-bold">Returned by the reviewer: </span>
+          {t.returnedComment}
+        </p>
+      ) : null}
+      {me ? (
+        <Panel title="Review">
+          <WorkflowSteps
+            steps={CURATED_STEPS}
+            subject={{ status: t.status, authorIds: [t.draftedBy?.id, t.lastEditedBy?.id] }}
+            viewer={{ id: me.id, role: me.role }}
+            busy={step.isPending}
+            error={step.error ? (step.error as Error).message : null}
+            onStep={onStep}
+          />
+          <p className="mt-2 text-xs text-ink-soft">
+            {t.draftedBy ? `Drafted by ${t.draftedBy.name}. ` : 'Seeded from public sources. '}
+            {t.lastEditedBy && t.lastEditedBy.id !== t.draftedBy?.id ? `Last edited by ${t.lastEditedBy.name}. ` : ''}
+            {t.approvedBy ? `Approved by ${t.approvedBy.name}.` : ''}
+          </p>
+        </Panel>
+      ) : null}
+      {editable ? (
+        <Panel title="Draft">
+          {saved ? <p role="status" className="mb-2 text-sm text-verdict-pass">{saved}</p> : null}
+          <RatingTableEditor
+            key={`${t.id}:${t.lockVersion}`}
+            materialId={t.material.id}
+            initial={initial}
+            references={choices.references}
+            sets={choices.sets}
+            busy={update.isPending}
+            serverErrors={serverErrors(update.error)}
+            onSave={(draft) => update.mutate({ lockVersion: t.lockVersion, draft }, { onSuccess: () => setSaved('Draft saved.') })}
+          />
+          {update.error instanceof ApiError && update.error.code === 'stale' ? (
+            <p role="alert" className="mt-2 text-sm font-bold text-verdict-fail">
+              {update.error.message}
+            </p>
+          ) : null}
+        </Panel>
+      ) : (
+        <RatingTableSummary table={t} />
+      )}
+    </div>
+  );
+}
+
+/** A table as read: grid, grade, limits, covered sets, citation and note. */
+export function RatingTableSummary({ table: t }: { table: RatingTableDto }) {
+  return (
+    <Panel title={t.content.name}>
+      <div className="flex flex-col gap-3">
+        <RatingGrid content={t.content} />
+        <dl className="grid gap-1 text-sm md:grid-cols-[12rem_1fr]">
+          <dt className="text-ink-soft">Material grade</dt>
+          <dd>{t.content.grade}</dd>
+          <dt className="text-ink-soft">Covers</dt>
+          <dd>{t.covers.length ? t.covers.map((c) => c.condition).join('; ') : `every set of ${t.material.name}`}</dd>
+          {t.content.includedAngle ? (
+            <>
+              <dt className="text-ink-soft">Included angles</dt>
+              <dd>
+                {t.content.includedAngle.min}° to {t.content.includedAngle.max}°
+              </dd>
+            </>
+          ) : null}
+          <dt className="text-ink-soft">Data support</dt>
+          <dd>
+            {t.content.limits?.sustainedHours ? `up to ${t.content.limits.sustainedHours.toLocaleString('en-GB')} h of sustained load` : 'no stated limit on sustained load'}
+            {t.content.limits?.cycles ? `, up to ${t.content.limits.cycles.toLocaleString('en-GB')} cycles` : ''}
+          </dd>
+          <dt className="text-ink-soft">Source</dt>
+          <dd>{t.reference ? [t.reference.authors, t.reference.year, t.reference.title, t.reference.identifier, t.reference.location].filter(Boolean).join('; ') : 'none yet'}</dd>
+        </dl>
+        {t.content.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{t.content.note}</p> : null}
+      </div>
+    </Panel>
+  );
+}
