@@ -219,6 +219,11 @@ describe('shortlists and sign-off', () => {
     expect(text.toLowerCase()).toContain(governing);
     expect(text).toContain(acrylic[0].reference!.title.slice(0, 30));
     expect(text).toContain('screening estimates for qualified engineers');
+    // The PVHO-grade set is sized by the flat-window table: the record names the table, its source and what set the thickness.
+    expect(checked.body.items.some((i: { result: { sizedBy: { kind: string } } }) => i.result.sizedBy.kind === 'rating-table')).toBe(true);
+    expect(text).toContain('set by rating table: Flat acrylic windows');
+    expect(text).toContain('Table 1.5.2');
+    expect(text).toContain('Proof test');
     const viewer = await signIn(handle.app, 'viewer');
     expect((await viewer.get(`/api/records/${checked.body.designRecordId}/pdf`)).status).toBe(403);
   });

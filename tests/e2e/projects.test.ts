@@ -155,6 +155,10 @@ describe('projects, shortlists and sign-off in chromium', () => {
     expect(await page.getByRole('table', { name: 'Shortlisted candidates' }).locator('tbody tr').count()).toBe(2);
     await page.getByRole('img', { name: 'Margins by failure mode per candidate' }).waitFor();
     expect(await page.getByRole('list', { name: 'Data sources' }).textContent()).toMatch(/Property set #\d+, version \d+/);
+    // The record shows what set each thickness; the PVHO-grade acrylic at the top was sized by the Stachiw cone table.
+    const sizing = (await page.getByTestId('sizing-summary').allTextContents()).join(' ');
+    expect(sizing).toMatch(/Thickness set by: rating table: Conical acrylic windows 90-150°/);
+    expect(sizing).toMatch(/Journal of Engineering for Industry/);
     await page.getByRole('button', { name: 'Print' }).waitFor();
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('link', { name: 'Download PDF' }).click()]);
