@@ -9,6 +9,7 @@ export const COMPONENT_LABELS: Record<ComponentType, string> = {
   'spherical-sector': 'Spherical sector window',
   sphere: 'Spherical shell',
   cylinder: 'Cylindrical shell between stiffeners',
+  'ring-stiffened-cylinder': 'Ring-stiffened cylinder',
 };
 
 /** Which components are windows (a rating table can cover them; human-occupancy rules apply). */

@@ -2,7 +2,8 @@
  * Allowable stresses per failure mode for one candidate under one load case.
  *
  * Base strengths: tension = tensileYield ?? tensileStrength; compression = compressiveYield ??
- * compressiveStrength; shear = shearStrength. Each is multiplied by
+ * compressiveStrength; shear = shearYield ?? (metals: yield/√3, von Mises) ?? shearStrength (the
+ * ultimate, for brittle and polymer materials). Each is multiplied by
  *  - the temperature factor: the WORST (lowest) factor over the design range, piecewise-linear
  *    in °C, found at the range ends and at every data point inside the range; clamped to the end
  *    value outside the data (with a warning). The set's own curve, else its family's default
@@ -40,6 +41,8 @@ export interface Allowables {
   tensionOnYield: boolean;
   /** true when compression is based on compressiveYield rather than compressiveStrength. */
   compressionOnYield: boolean;
+  /** What the shear allowable is based on: the set's shear yield, yield/√3 (von Mises), or the shear ultimate. */
+  shearBasis: ShearBasis;
   /** Short-term allowables (base strength × temperature factor, no life factor), Pa: for the proof test. */
   shortTerm: { tension: number; compression: number; shear: number };
   factors: AppliedFactors;
@@ -191,6 +194,16 @@ export function cyclicFactor(points: readonly CPoint[], cycles: number): number 
   return pts ? cyclicFactorAt(pts, cycles) : 1;
 }
 
+/** Basis of a shear allowable. */
+export type ShearBasis = 'yield' | 'von-mises' | 'strength';
+
+/** Ductile metals: allowables on yield; shear yield = yield/√3 (von Mises) when not given. */
+export function isMetal(family: Family | undefined): boolean {
+  return family === 'titanium-alloy' || family === 'steel' || family === 'aluminium-alloy';
+}
+
+const INV_SQRT3 = 1 / Math.sqrt(3);
+
 /** Polymer-like families: strength and stiffness depend strongly on load duration and temperature. */
 export function isPolymer(family: Family | undefined): boolean {
   return family === 'acrylic' || family === 'polycarbonate' || family === 'fibre-composite' || family === 'syntactic-foam';
@@ -336,13 +349,19 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
   const compressionOnYield = m.compressiveYield != null;
   const tension = (tensionOnYield ? (m.tensileYield as number) : m.tensileStrength) * temperature;
   const compression = (compressionOnYield ? (m.compressiveYield as number) : m.compressiveStrength) * temperature;
-  const shear = m.shearStrength * temperature;
+  // Shear on the same basis as tension and compression: the set's shear yield, else for a metal
+  // its yield/√3 (von Mises), else the shear ultimate (brittle and polymer windows fail in shear at it).
+  const metalYield = isMetal(m.family) ? (m.tensileYield ?? m.compressiveYield ?? null) : null;
+  const shearBasis: ShearBasis = m.shearYield != null ? 'yield' : metalYield !== null ? 'von-mises' : 'strength';
+  const shearBase = shearBasis === 'yield' ? (m.shearYield as number) : shearBasis === 'von-mises' ? (metalYield as number) * INV_SQRT3 : m.shearStrength;
+  const shear = shearBase * temperature;
   return {
     tension: tension * life,
     compression: compression * life,
     shear: shear * life,
     tensionOnYield,
     compressionOnYield,
+    shearBasis,
     shortTerm: { tension, compression, shear },
     factors: { temperature, worstTemperature, temperatureSource, sustainedLoad, cyclic, life, lifeBasis },
   };

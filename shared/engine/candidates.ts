@@ -21,6 +21,7 @@ export function candidateFromPropertySet(ps: PropertySetDto, ratingTables?: read
     compressiveStrength: ps.compressiveStrength,
     compressiveYield: ps.compressiveYield,
     shearStrength: ps.shearStrength,
+    shearYield: ps.shearYield ?? null,
     serviceTemperature: ps.serviceTemperature,
     temperatureFactors: ps.temperatureFactors,
     sustainedLoadFactors: ps.sustainedLoadFactors,

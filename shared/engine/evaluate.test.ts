@@ -264,8 +264,26 @@ const componentArb: fc.Arbitrary<Component> = fc.oneof(
   fc
     .record({ minorDiameter: dbl(0.005, 2), thickness: dbl(0.0005, 2), seat: dbl(1.01, 3) })
     .map(({ minorDiameter, thickness, seat }) => ({ type: 'conical-frustum' as const, minorDiameter, thickness, includedAngle: 180, seatOuterDiameter: minorDiameter * seat })),
-  fc.record({ type: fc.constant('sphere' as const), innerRadius: dbl(0.02, 10), thickness: dbl(0.0002, 2) }),
-  fc.record({ type: fc.constant('cylinder' as const), innerRadius: dbl(0.02, 10), thickness: dbl(0.0002, 2), length: dbl(0.02, 50) }),
+  fc.record({
+    type: fc.constant('sphere' as const),
+    innerRadius: dbl(0.02, 10),
+    thickness: dbl(0.0002, 2),
+    fabrication: fc.constantFrom('fabricated' as const, 'machined' as const),
+    localRadiusRatio: fc.option(dbl(1, 3), { nil: undefined }),
+  }),
+  fc.record({ type: fc.constant('cylinder' as const), innerRadius: dbl(0.02, 10), thickness: dbl(0.0002, 2), length: dbl(0.02, 50), outOfRoundness: fc.option(dbl(0, 0.05), { nil: undefined }) }),
+  fc
+    .record({ ri: dbl(0.2, 5), tOverR: dbl(0.005, 0.1), spacing: dbl(0.05, 2), web: dbl(0.02, 0.5), bays: fc.integer({ min: 1, max: 40 }), oor: dbl(0, 0.02), outside: fc.boolean() })
+    .map(({ ri, tOverR, spacing, web, bays, oor, outside }) => ({
+      type: 'ring-stiffened-cylinder' as const,
+      innerRadius: ri,
+      thickness: ri * tOverR,
+      frameSpacing: spacing,
+      frame: { shape: 'tee' as const, webHeight: Math.min(web, 0.25 * ri), webThickness: spacing / 10, flangeWidth: spacing / 4, flangeThickness: Math.min(spacing / 20, 0.1 * ri) },
+      framePosition: outside ? ('external' as const) : ('internal' as const),
+      length: spacing * bays,
+      outOfRoundness: oor,
+    })),
 );
 const curveArb = <K extends string>(key: K, lo: number, hi: number) =>
   fc.array(fc.record({ [key]: dbl(lo, hi), factor: dbl(0.05, 2) } as Record<K | 'factor', fc.Arbitrary<number>>), { maxLength: 6 });
@@ -340,8 +358,11 @@ describe('properties (fast-check)', () => {
         model.fill(component, t, p, mm, stress, allowable);
         const before = model.modes.map((_, i) => allowable[i] / stress[i]);
         model.fill(component, t * growth, p, mm, stress, allowable);
+        // Bryant's frame term (n² − 1)·E·Ie/(R³·Lf) takes the mean radius, which grows with the shell: for frames far
+        // stiffer than the plating a thicker shell can lower the overall pressure by parts in a million — noise, not weakness.
+        const slack = component.type === 'ring-stiffened-cylinder' ? 1e-5 : 1e-9;
         model.modes.forEach((mode, i) => {
-          expect(allowable[i] / stress[i], `${component.type} ${mode}`).toBeGreaterThanOrEqual(before[i] * (1 - 1e-9));
+          expect(allowable[i] / stress[i], `${component.type} ${mode}`).toBeGreaterThanOrEqual(before[i] * (1 - slack));
         });
       }),
       { numRuns: 2000 },

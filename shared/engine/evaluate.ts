@@ -67,7 +67,7 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
   else if (c.type === 'spherical-sector') checkPositive('inner radius', c.innerRadius);
   else {
     checkPositive('inner radius', c.innerRadius);
-    if (c.type === 'cylinder') checkPositive('length', c.length);
+    if (c.type === 'cylinder' || c.type === 'ring-stiffened-cylinder') checkPositive('length', c.length);
   }
   const proofFactor = loadCase.proofFactor ?? DEFAULT_PROOF_FACTOR;
   const target = loadCase.targetSafetyFactor;
@@ -76,7 +76,7 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
   if (target !== undefined && target < 1) {
     warnings.push(`The target safety factor ${fmt(target)} is below 1: it accepts stresses above the allowable.`);
   }
-  if ('value' in pin && (c.type === 'sphere' || c.type === 'cylinder')) {
+  if ('value' in pin && (c.type === 'sphere' || c.type === 'cylinder' || c.type === 'ring-stiffened-cylinder')) {
     warnings.push('Pressure was given directly, so weight-to-displacement assumes seawater (1025 kg/m³).');
   }
   return {
@@ -128,6 +128,7 @@ function toModeMaterial(candidate: CandidateMaterial, a: Allowables): ModeMateri
     shear: a.shear,
     tensionOnYield: a.tensionOnYield,
     compressionOnYield: a.compressionOnYield,
+    shearBasis: a.shearBasis,
   };
 }
 
@@ -238,6 +239,9 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
       model: model.model(component, i, mm),
       proof,
     };
+    if (model.checkName) modes[i].check = model.checkName(component, i);
+    const detail = model.collapse?.(component, t, mm, i);
+    if (detail) modes[i].collapse = detail;
     if (sf < govSf) {
       govSf = sf;
       gov = i;
@@ -307,7 +311,7 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
     requiredThickness: required,
     sizedBy,
     proofSafetyFactor: proofSf,
-    massPerArea: required === null ? null : candidate.density * required,
+    massPerArea: required === null ? null : model.massPerArea ? model.massPerArea(component, required, candidate.density) : candidate.density * required,
     weightToDisplacement:
       required === null || !model.weightToDisplacement
         ? null

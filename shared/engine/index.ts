@@ -55,10 +55,15 @@ export {
   sphereLameStress,
   sphereMembraneStress,
   zoellyPressure,
-  sphereKnockdown,
-  sphereBucklingPressure,
-  sphereBucklingThickness,
+  sphereElasticPressure,
+  sphereYieldPressure,
+  sphereCollapse,
+  FABRICATED_SPHERE_FACTOR,
+  MACHINED_SPHERE_COEFFICIENT,
 } from './components/sphere';
+export { johnsonOstenfeld, reducedSlenderness, collapsePressure, outOfRoundYield } from './components/collapse';
+export type { CollapseDetail } from './components/collapse';
+export { interframeYieldPressure, bryantPressure, frameProperties, ringStiffenedCritical } from './components/ring-stiffened-cylinder';
 export {
   cylinderLameHoopStress,
   vonMisesPressure,
@@ -67,6 +72,8 @@ export {
   bryanPressure,
   cylinderClassicalBucklingPressure,
   cylinderBucklingPressure,
+  cylinderYieldPressure,
+  cylinderCollapse,
   CYLINDER_KNOCKDOWN,
 } from './components/cylinder';
 
@@ -97,5 +104,5 @@ export type {
   CriticalPressureData,
 } from './types';
 export { minimumRatioAt, ratedPressureAt, rateWithTable, tableCovers, ratioBase, isWindowComponent, INTERPOLATION_RULE } from './rating-tables';
-export { coverageGroup } from './rank';
+export { coverageGroup, modeMargin } from './rank';
 export { FAILURE_MODES } from './types';

@@ -78,3 +78,10 @@ export function topResults(results: CandidateResult[], sortBy: SortBy, limit: nu
   for (let i = 0; i < n; i++) if (keys[i] <= cut) kept.push(results[i]);
   return sortResults(kept, sortBy).slice(0, limit);
 }
+
+/** The lowest margin among a result's checks of one failure mode (a hull can have several), or undefined. */
+export function modeMargin(r: Pick<CandidateResult, 'modes'>, mode: CandidateResult['governingMode']): number | undefined {
+  let worst: number | undefined;
+  for (const m of r.modes) if (m.mode === mode && (worst === undefined || m.margin < worst)) worst = m.margin;
+  return worst;
+}

@@ -20,9 +20,15 @@ export interface SweepOptions {
 
 export interface SweepSeries {
   mode: FailureMode;
+  /** Which check, when a component has several of one mode. */
+  check?: string;
   model: string;
   /** Safety factor at each thickness of `thickness`. */
   safetyFactor: number[];
+  /** Whether the mode's formula is inside its range at each thickness; charts grey or stop the curve where it is not. */
+  valid: boolean[];
+  /** Why it is outside its range, when it is anywhere in the sweep. */
+  invalidReason?: string;
 }
 
 export interface GoverningTransition {
@@ -78,7 +84,13 @@ export function sweepThickness(loadCase: LoadCaseInput, candidate: CandidateMate
     thickness[k] = k === steps ? to : log ? Math.exp(lf + (lt - lf) * w) : from + (to - from) * w;
   }
 
-  const series: SweepSeries[] = model.modes.map((mode, i) => ({ mode, model: model.model(component, i, mm), safetyFactor: new Array(steps + 1) }));
+  const series: SweepSeries[] = model.modes.map((mode, i) => ({
+    mode,
+    ...(model.checkName ? { check: model.checkName(component, i) } : {}),
+    model: model.model(component, i, mm),
+    safetyFactor: new Array(steps + 1),
+    valid: new Array(steps + 1).fill(true),
+  }));
   const govIndex: number[] = new Array(steps + 1);
   for (let k = 0; k <= steps; k++) {
     model.fill(component, thickness[k], p, mm, stress, allowable);
@@ -87,6 +99,11 @@ export function sweepThickness(loadCase: LoadCaseInput, candidate: CandidateMate
     for (let i = 0; i < n; i++) {
       const sf = allowable[i] / stress[i];
       series[i].safetyFactor[k] = sf;
+      const reason = model.validity?.(component, thickness[k], i) ?? null;
+      if (reason !== null) {
+        series[i].valid[k] = false;
+        series[i].invalidReason ??= reason;
+      }
       if (sf < best) {
         best = sf;
         g = i;

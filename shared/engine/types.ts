@@ -45,8 +45,10 @@ export interface CandidateMaterial {
   compressiveStrength: number;
   /** Pa; when given, the compression allowable is based on it instead of compressiveStrength. */
   compressiveYield?: number | null;
-  /** Pa */
+  /** Pa; the shear ultimate. */
   shearStrength: number;
+  /** Pa; when given, the shear allowable is based on it. Metals without it use yield/√3 (von Mises). */
+  shearYield?: number | null;
   /** °C */
   serviceTemperature?: { min: number; max: number } | null;
   temperatureFactors?: readonly TemperatureFactorPoint[] | null;
@@ -77,6 +79,10 @@ export interface ModeResult {
   model: string;
   /** The same mode at the proof-test pressure against short-term strength (no life factors). */
   proof: ProofCheck;
+  /** Which check, when a component has several of one mode (ring-stiffened cylinders). */
+  check?: string;
+  /** Shell collapse modes: the knocked-down elastic, the yield and the collapse pressures (Pa). */
+  collapse?: { elastic: number; yield: number; collapse: number };
 }
 
 /** One mode at the proof-test pressure. */

@@ -64,6 +64,7 @@ export const QUANTITIES = [
   'compressiveStrength',
   'compressiveYield',
   'shearStrength',
+  'shearYield',
   'elongation',
   'luminousTransmittance',
 ] as const;
@@ -78,6 +79,7 @@ export const QUANTITY_LABELS: Record<Quantity, string> = {
   compressiveStrength: 'Compressive strength',
   compressiveYield: 'Compressive yield',
   shearStrength: 'Shear strength',
+  shearYield: 'Shear yield',
   elongation: 'Elongation at break',
   luminousTransmittance: 'Luminous transmittance',
 };
@@ -112,6 +114,7 @@ export const propertyValuesSchema = z.object({
   compressiveStrength: positive,
   compressiveYield: positive.nullish(),
   shearStrength: positive,
+  shearYield: positive.nullish(),
   elongation: fraction.nullish(),
   luminousTransmittance: fraction.nullish(),
   serviceTemperature: z
@@ -214,6 +217,8 @@ export interface PropertySetDto {
   compressiveStrength: number;
   compressiveYield: number | null;
   shearStrength: number;
+  /** Optional: metals without it are given yield/√3 (von Mises) by the calculation. */
+  shearYield?: number | null;
   elongation: number | null;
   luminousTransmittance: number | null;
   serviceTemperature: { min: number; max: number };

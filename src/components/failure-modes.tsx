@@ -50,10 +50,11 @@ export function ModesTable({ result, className = '' }: { result: CandidateResult
         </tr>
       </thead>
       <tbody>
-        {result.modes.map((m) => (
-          <tr key={m.mode} className="border-t border-chart-line/60 align-top">
+        {result.modes.map((m, i) => (
+          <tr key={`${i}:${m.mode}`} className="border-t border-chart-line/60 align-top">
             <td className="py-1 pr-2">
               <ModeTag mode={m.mode} />
+              {m.check ? <span className="block text-xs text-ink-soft">{m.check}</span> : null}
             </td>
             <td className="whitespace-nowrap py-1 pr-2 text-right">{format('stress', m.stress)}</td>
             <td className="whitespace-nowrap py-1 pr-2 text-right">{format('stress', m.allowable)}</td>
@@ -62,7 +63,14 @@ export function ModesTable({ result, className = '' }: { result: CandidateResult
             <td className={`whitespace-nowrap py-1 pr-2 text-right ${m.proof && m.proof.safetyFactor < 1 ? 'font-bold text-verdict-fail' : ''}`}>
               {m.proof ? m.proof.safetyFactor.toFixed(2) : '—'}
             </td>
-            <td className="py-1 text-xs text-ink-soft">{m.model}</td>
+            <td className="py-1 text-xs text-ink-soft">
+              {m.collapse ? (
+                <span className="mb-0.5 block font-bold text-ink">
+                  Elastic {Number.isFinite(m.collapse.elastic) ? format('pressure', m.collapse.elastic) : '—'} · yield {format('pressure', m.collapse.yield)} → collapse {format('pressure', m.collapse.collapse)}
+                </span>
+              ) : null}
+              {m.model}
+            </td>
           </tr>
         ))}
       </tbody>

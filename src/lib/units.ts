@@ -11,7 +11,9 @@ export type QuantityKind =
   | 'length'
   | 'depth'
   | 'massPerArea'
-  | 'fraction';
+  | 'fraction'
+  | 'area'
+  | 'secondMoment';
 
 interface UnitDef {
   label: string;
@@ -32,6 +34,7 @@ const via = (from: Unit, to: Unit, scale = 1): Pick<UnitDef, 'fromSI' | 'toSI'> 
 const lbPerKg = convert(1, 'kg').to('lb');
 const densityUS = lbPerKg / convert(1, 'm3').to('in3');
 const arealUS = lbPerKg / convert(1, 'm2').to('ft2');
+const inPerM = convert(1, 'm').to('in');
 
 const UNITS: Record<QuantityKind, Record<UnitSystem, UnitDef>> = {
   stress: {
@@ -69,6 +72,14 @@ const UNITS: Record<QuantityKind, Record<UnitSystem, UnitDef>> = {
   fraction: {
     SI: { label: '%', fromSI: (v) => v * 100, toSI: (v) => v / 100, digits: 1 },
     US: { label: '%', fromSI: (v) => v * 100, toSI: (v) => v / 100, digits: 1 },
+  },
+  area: {
+    SI: { label: 'mm²', fromSI: (v) => v * 1e6, toSI: (v) => v / 1e6, digits: 0 },
+    US: { label: 'in²', fromSI: (v) => v * inPerM ** 2, toSI: (v) => v / inPerM ** 2, digits: 3 },
+  },
+  secondMoment: {
+    SI: { label: 'mm⁴', fromSI: (v) => v * 1e12, toSI: (v) => v / 1e12, digits: 0 },
+    US: { label: 'in⁴', fromSI: (v) => v * inPerM ** 4, toSI: (v) => v / inPerM ** 4, digits: 2 },
   },
 };
 

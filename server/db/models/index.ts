@@ -82,6 +82,7 @@ export class PropertySet extends Model<InferAttributes<PropertySet>, InferCreati
   declare compressiveStrength: number;
   declare compressiveYield: number | null;
   declare shearStrength: number;
+  declare shearYield: CreationOptional<number | null>;
   declare elongation: number | null;
   declare luminousTransmittance: number | null;
   declare serviceTempMin: number;
@@ -204,6 +205,7 @@ export function initModels(): void {
       compressiveStrength: real(),
       compressiveYield: real(true),
       shearStrength: real(),
+      shearYield: real(true),
       elongation: real(true),
       luminousTransmittance: real(true),
       serviceTempMin: { type: DataTypes.DOUBLE, allowNull: false, field: 'service_temp_min' },

@@ -48,6 +48,7 @@ export async function seedCatalogue(transaction: Transaction): Promise<number> {
         ...values,
         tensileYield: values.tensileYield ?? null,
         compressiveYield: values.compressiveYield ?? null,
+        shearYield: values.shearYield ?? null,
         elongation: values.elongation ?? null,
         luminousTransmittance: values.luminousTransmittance ?? null,
         materialId,

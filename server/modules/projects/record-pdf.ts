@@ -2,7 +2,7 @@ import PDFDocument from 'pdfkit';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import type { DesignRecordContent } from '../../../shared/schemas/projects';
-import type { FailureMode } from '../../../shared/engine';
+import { modeMargin, type FailureMode } from '../../../shared/engine';
 import tokens from '../../../tailwind.config';
 import { factorsText, sizedByText } from '../../../shared/labels';
 
@@ -44,9 +44,17 @@ function describeComponent(c: DesignRecordContent['loadCase']['input']['componen
     case 'spherical-sector':
       return `Spherical sector window, inner spherical radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}, included angle ${c.includedAngle}°`;
     case 'sphere':
-      return `Spherical shell, inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}`;
+      return `Spherical shell (${c.fabrication ?? 'fabricated'}), inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}${c.localRadiusRatio ? `, measured local radius ${c.localRadiusRatio} × R` : ''}`;
     case 'cylinder':
-      return `Cylindrical shell, inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}, unsupported length ${mm(c.length)}`;
+      return `Cylindrical shell, inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}, unsupported length ${mm(c.length)}${c.outOfRoundness ? `, out-of-roundness ${(c.outOfRoundness * 100).toFixed(2)} % of R` : ''}`;
+    case 'ring-stiffened-cylinder': {
+      const f = c.frame;
+      const frame =
+        f.shape === 'tee'
+          ? `tee frames ${mm(f.webHeight)} × ${mm(f.webThickness)} web, ${mm(f.flangeWidth)} × ${mm(f.flangeThickness)} flange`
+          : `frames of area ${(f.area * 1e6).toFixed(0)} mm², second moment ${(f.secondMoment * 1e12).toExponential(3)} mm⁴, depth ${mm(f.depth)}`;
+      return `Ring-stiffened cylinder, inner radius ${mm(c.innerRadius)}, shell thickness ${mm(c.thickness)}, ${c.framePosition} ${frame} at ${mm(c.frameSpacing)}, ${mm(c.length)} between bulkheads, out-of-roundness ${((c.outOfRoundness ?? 0.005) * 100).toFixed(2)} % of R`;
+    }
   }
 }
 
@@ -160,10 +168,10 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     const top = doc.y;
     doc.font('Body').fontSize(7.5).fillColor(INK).text(cand.result.name, MARGIN, top, { width: labelW - 6, height: needed, ellipsis: true });
     modes.forEach((mode, j) => {
-      const m = cand.result.modes.find((x) => x.mode === mode);
-      if (!m) return;
-      const x0 = Math.min(zeroX, MARGIN + labelW + scale(m.margin));
-      const w = Math.abs(MARGIN + labelW + scale(m.margin) - zeroX);
+      const margin = modeMargin(cand.result, mode);
+      if (margin === undefined) return;
+      const x0 = Math.min(zeroX, MARGIN + labelW + scale(margin));
+      const w = Math.abs(MARGIN + labelW + scale(margin) - zeroX);
       doc.rect(x0, top + j * 7, Math.max(w, 0.5), 5.5).fillColor(MODE_COLOURS[mode]).fill();
     });
     doc.moveTo(zeroX, top - 2).lineTo(zeroX, top + needed - 4).strokeColor(INK).lineWidth(0.8).stroke();
@@ -205,13 +213,14 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     doc.moveDown(0.3);
     for (const m of r.modes) {
       if (doc.y > doc.page.height - 80) doc.addPage();
-      doc.font('Body-Bold').fontSize(8.5).fillColor(MODE_COLOURS[m.mode]).text(`${cap(m.mode)}: `, { continued: true });
+      doc.font('Body-Bold').fontSize(8.5).fillColor(MODE_COLOURS[m.mode]).text(`${cap(m.mode)}${m.check ? ` (${m.check})` : ''}: `, { continued: true });
       doc
         .font('Body')
         .fillColor(INK)
         .text(
           `stress ${mpa(m.stress)}, allowable ${mpa(m.allowable)}, safety factor ${m.safetyFactor.toFixed(2)}, needs ${mm(m.requiredThickness)}` +
-            (m.proof ? `; at proof ${m.proof.safetyFactor.toFixed(2)}` : ''),
+            (m.proof ? `; at proof ${m.proof.safetyFactor.toFixed(2)}` : '') +
+            (m.collapse ? `; pressures: elastic ${mpa(m.collapse.elastic)}, yield ${mpa(m.collapse.yield)}, collapse ${mpa(m.collapse.collapse)}` : ''),
         );
       doc.font('Body-Italic').fontSize(7.5).fillColor(SOFT).text(`Model: ${m.model}`, { indent: 10 });
     }

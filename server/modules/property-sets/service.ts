@@ -56,6 +56,7 @@ export function propertySetDto(ps: PropertySet): PropertySetDto {
     compressiveStrength: ps.compressiveStrength,
     compressiveYield: ps.compressiveYield,
     shearStrength: ps.shearStrength,
+    shearYield: ps.shearYield ?? null,
     elongation: ps.elongation,
     luminousTransmittance: ps.luminousTransmittance,
     serviceTemperature: { min: ps.serviceTempMin, max: ps.serviceTempMax },

@@ -3,6 +3,7 @@
  * searches treat all components alike.
  */
 import type { FailureMode } from '../types';
+import type { CollapseDetail } from './collapse';
 
 /** Material values a component model needs (allowables already reduced for the load case). */
 export interface ModeMaterial {
@@ -16,6 +17,8 @@ export interface ModeMaterial {
   shear: number;
   tensionOnYield: boolean;
   compressionOnYield: boolean;
+  /** Basis of the shear allowable (default 'strength' for hand-built materials). */
+  shearBasis?: 'yield' | 'von-mises' | 'strength';
 }
 
 export interface ComponentModel<G> {
@@ -40,6 +43,14 @@ export interface ComponentModel<G> {
    * deflection (m) for plates, else undefined.
    */
   check(g: G, p: number, m: ModeMaterial, stress: Float64Array, allowable: Float64Array, warnings: string[]): number | undefined;
+  /** Shell collapse modes: the elastic, yield and collapse pressures behind mode `i` at thickness t (else null). */
+  collapse?(g: G, t: number, m: ModeMaterial, i: number): CollapseDetail | null;
+  /** Why mode `i`'s formula is outside its range at thickness t (null inside it), for charts that stop or grey the curve there. */
+  validity?(g: G, t: number, i: number): string | null;
+  /** The name of check `i` when a component has several of one failure mode (e.g. "interframe collapse"). */
+  checkName?(g: G, i: number): string;
+  /** Mass per unit area of shell (kg/m²) at thickness t when more than the shell counts (frames); default density × t. */
+  massPerArea?(g: G, t: number, density: number): number;
   /** Hulls only: shell mass / displaced water mass at thickness t. */
   weightToDisplacement?(g: G, t: number, density: number, waterDensity: number): number;
   /** True when a reported quantity uses Young's modulus (buckling, deflection): creep matters. */
@@ -68,13 +79,24 @@ export function compressionText(model: string): BasisTexts {
   };
 }
 
-/** Model text for a shear mode. */
-export function shearText(model: string): string {
-  return `${model} Allowable: shear strength × temperature factor × life factor (the lower of the sustained-load and cyclic factors, not their product).`;
+const LIFE = '× temperature factor × life factor (the lower of the sustained-load and cyclic factors, not their product).';
+
+/** Model texts for a shear mode, one per basis of the allowable. */
+export function shearText(model: string): Record<'yield' | 'von-mises' | 'strength', string> {
+  return {
+    strength: `${model} Allowable: shear strength (ultimate) ${LIFE}`,
+    yield: `${model} Allowable: shear yield ${LIFE}`,
+    'von-mises': `${model} Allowable: shear yield = yield/√3 (von Mises criterion: pure shear yields at 1/√3 of the tensile yield) ${LIFE}`,
+  };
 }
 
 /** Thickness that brings a stress ∝ 1/tᵏ to `allowable/target`: t·(target·stress/allowable)^(1/k). */
 export function powerLawThickness(t: number, stress: number, allowable: number, target: number, k: 1 | 2): number {
   const ratio = (target * stress) / allowable;
   return k === 1 ? t * ratio : t * Math.sqrt(ratio);
+}
+
+/** Thin-shell buckling relations hold to about t/R 0.1 (common practice). */
+export function thinShellValidity(t: number, meanRadius: number): string | null {
+  return t / meanRadius > 0.1 ? 'thin-shell buckling relations beyond t/R 0.1 (common practice): indicative only' : null;
 }

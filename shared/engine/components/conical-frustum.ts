@@ -177,7 +177,7 @@ export const conicalFrustumModel: ComponentModel<ConicalFrustum> = {
   model(_g, i, m) {
     if (i === 0) return TENSION[m.tensionOnYield ? 'yield' : 'strength'];
     if (i === 1) return COMPRESSION[m.compressionOnYield ? 'yield' : 'strength'];
-    return SHEAR;
+    return SHEAR[m.shearBasis ?? 'strength'];
   },
 
   check(g, _p, _m, _stress, _allowable, warnings) {

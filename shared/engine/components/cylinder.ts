@@ -24,10 +24,10 @@
  * Frames and bulkheads are assumed rigid: general instability and frame strength are NOT checked.
  */
 import type { Cylinder } from '../../schemas/evaluate';
-import { fmt } from '../allowables';
 import { thicknessForTarget } from '../solve';
 import type { FailureMode } from '../types';
-import { compressionText, type ComponentModel } from './common';
+import { collapsePressure, COLLAPSE_INTERACTION, outOfRoundYield, type CollapseDetail } from './collapse';
+import { compressionText, thinShellValidity, type ComponentModel, type ModeMaterial } from './common';
 
 const MODES: readonly FailureMode[] = ['compression', 'buckling'];
 
@@ -150,9 +150,31 @@ export function cylinderClassicalBucklingPressure(E: number, nu: number, innerRa
   return short < pvm ? short : pvm;
 }
 
-/** Knocked-down buckling pressure of the bay (Pa). */
+/** Knocked-down elastic buckling pressure of the bay (Pa). */
 export function cylinderBucklingPressure(E: number, nu: number, innerRadius: number, t: number, L: number): number {
   return CYLINDER_KNOCKDOWN * cylinderClassicalBucklingPressure(E, nu, innerRadius, t, L);
+}
+
+/** Yield pressure of the Lamé hoop stress: the pressure at which the inner-surface hoop stress reaches σa (Pa). */
+export function cylinderYieldPressure(allowable: number, innerRadius: number, t: number): number {
+  return allowable / cylinderLameHoopStress(1, innerRadius, t);
+}
+
+/**
+ * Collapse of the bay: the lower of (a) the yield–buckling interaction of the Lamé yield pressure
+ * and the knocked-down elastic pressure, and (b) first yield of the shell with its out-of-roundness
+ * w0 = OOR·R (Timoshenko & Gere) on the classical elastic pressure.
+ */
+export function cylinderCollapse(g: Cylinder, t: number, m: ModeMaterial): CollapseDetail {
+  const py = cylinderYieldPressure(m.compression, g.innerRadius, t);
+  const pe = CYLINDER_KNOCKDOWN * cylinderClassicalBucklingPressure(m.E, m.nu, g.innerRadius, t, g.length);
+  const interaction = collapsePressure(py, pe);
+  if (!g.outOfRoundness) return { elastic: pe, yield: py, collapse: interaction };
+  // a measured oval (two-lobe) deviation: its amplification runs on the two-lobe pressure of the bay
+  const w0 = g.outOfRoundness * (g.innerRadius + 0.5 * t);
+  const p2 = vonMisesPressureForLobes(m.E, m.nu, g.innerRadius + 0.5 * t, t, g.length, 2);
+  const ovality = outOfRoundYield(py, p2, w0, t);
+  return { elastic: pe, yield: py, collapse: interaction < ovality ? interaction : ovality };
 }
 
 const COMPRESSION = compressionText(
@@ -160,23 +182,22 @@ const COMPRESSION = compressionText(
     '(reduces to the thin-shell p·R/t; axial stress is half of it, so hoop governs).',
 );
 const BUCKLING =
-  'Elastic buckling of the bay between rigid stiffeners: lower of von Mises (hydrostatic, minimised over n ≥ 2 lobes) and ' +
-  'Windenburg & Trilling (1934, Trans. ASME 56), the latter floored at the Bresse/Bryan long-cylinder limit; times the ' +
-  'knock-down γ = 0.56 for lateral pressure after NASA SP-8007 (1968) [memory]. Stress = p·R/t; allowable = p_cr·R/t, so the ' +
-  "safety factor is p_cr/p. Uses the short-term Young's modulus.";
+  'Collapse of the bay between rigid stiffeners: elastic pe = 0.56 (knock-down for lateral pressure, NASA SP-8007 [memory]) × the lower of von Mises ' +
+  '(hydrostatic, minimised over n ≥ 2 lobes) and Windenburg & Trilling (1934, Trans. ASME 56), the latter floored at the Bresse/Bryan long-cylinder ' +
+  `limit; yield py = σa·(Ro² − Ri²)/(2Ro²) (Lamé); ${COLLAPSE_INTERACTION}; with an out-of-roundness entered, not above first yield of the oval shell, ` +
+  'p² − p·(py + (1 + 6w0/t)·p₂) + py·p₂ = 0, w0 = out-of-roundness × R, p₂ the two-lobe von Mises pressure of the bay (Timoshenko & Gere, Theory of Elastic Stability, 1961 ' +
+  "[memory: section]). Stress = p·R/t; allowable = pc·R/t, so the safety factor is pc/p. Uses the short-term Young's modulus.";
 
 export const CYLINDER_FRAMES_WARNING =
-  'Stiffeners and bulkheads are assumed rigid: general instability of the stiffened hull and the strength of the frames themselves are not checked.';
+  'Stiffeners and bulkheads are assumed rigid: general instability of the stiffened hull and the strength of the frames themselves are not checked here; use the ring-stiffened cylinder for them.';
 
-interface BucklingProblem {
-  E: number;
-  nu: number;
-  ri: number;
-  L: number;
+interface CollapseProblem {
+  g: Cylinder;
+  m: ModeMaterial;
   p: number;
 }
-function bucklingSafetyFactor(t: number, c: BucklingProblem): number {
-  return cylinderBucklingPressure(c.E, c.nu, c.ri, t, c.L) / c.p;
+function collapseSafetyFactor(t: number, c: CollapseProblem): number {
+  return cylinderCollapse(c.g, t, c.m).collapse / c.p;
 }
 
 /** Largest thickness the searches consider, as a multiple of the inner radius. */
@@ -192,7 +213,7 @@ export const cylinderModel: ComponentModel<Cylinder> = {
     allowable[0] = m.compression;
     const R = g.innerRadius + 0.5 * t;
     stress[1] = (p * R) / t;
-    allowable[1] = (cylinderBucklingPressure(m.E, m.nu, g.innerRadius, t, g.length) * R) / t;
+    allowable[1] = (cylinderCollapse(g, t, m).collapse * R) / t;
   },
 
   required(g, p, m, target, i, t, stress, allowable) {
@@ -203,36 +224,33 @@ export const cylinderModel: ComponentModel<Cylinder> = {
       if (!(x < 1)) return null;
       return ri * Math.expm1(-0.5 * Math.log1p(-x));
     }
-    // buckling pressure grows roughly as t^2.5
+    // collapse grows roughly as t^2.5 while elastic, as t near yield
     const guess = t * Math.pow(target / (allowable / stress), 0.4);
-    const ctx: BucklingProblem = { E: m.E, nu: m.nu, ri, L: g.length, p };
-    return thicknessForTarget(
-      bucklingSafetyFactor,
-      ctx,
-      target,
-      guess,
-      ri * 1e-9,
-      ri * MAX_THICKNESS_RATIO,
-      2.5,
-      t,
-      allowable / stress,
-    );
+    return thicknessForTarget(collapseSafetyFactor, { g, m, p }, target, guess, ri * 1e-9, ri * MAX_THICKNESS_RATIO, 2.5, t, allowable / stress);
   },
 
   model(_g, i, m) {
     return i === 0 ? COMPRESSION[m.compressionOnYield ? 'yield' : 'strength'] : BUCKLING;
   },
 
-  check(_g, _p, m, _stress, allowable, warnings) {
+  collapse(g, t, m, i) {
+    return i === 1 ? cylinderCollapse(g, t, m) : null;
+  },
+
+  check(g, _p, _m, _stress, _allowable, warnings) {
     warnings.push(CYLINDER_FRAMES_WARNING);
-    if (allowable[1] > m.compression) {
+    if (!g.outOfRoundness && g.length > 4 * (g.innerRadius + 0.5 * g.thickness)) {
       warnings.push(
-        `The knocked-down elastic buckling stress (${fmt(allowable[1] / 1e6)} MPa) exceeds the compressive allowable ` +
-          `(${fmt(m.compression / 1e6)} MPa): buckling would be inelastic, the elastic buckling result is not valid, and yield governs.`,
+        'A long bay collapses in an oval mode that is sensitive to out-of-roundness: enter the measured out-of-roundness (a common tolerance is 0.5 % of the radius); without it only the knock-down of the elastic pressure covers imperfections.',
       );
+    }
+    if (g.thickness / (g.innerRadius + 0.5 * g.thickness) > 0.1) {
+      warnings.push('t/R is past the thin-shell range of the buckling formulas (about 0.1, common practice): the collapse value is indicative; yield governs thick shells.');
     }
     return undefined;
   },
+
+  validity: (g, t, i) => (i === 1 ? thinShellValidity(t, g.innerRadius + 0.5 * t) : null),
 
   weightToDisplacement(g, t, density, waterDensity) {
     // per unit length of the bay; end closures and frames excluded

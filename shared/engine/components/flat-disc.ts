@@ -76,8 +76,10 @@ export const flatDiscModel: ComponentModel<FlatDisc> = {
     const clamped = g.edge === 'clamped';
     if (i === 0) return (clamped ? CL_TENSION : SS_TENSION)[m.tensionOnYield ? 'yield' : 'strength'];
     if (i === 1) return (clamped ? CL_COMPRESSION : SS_COMPRESSION)[m.compressionOnYield ? 'yield' : 'strength'];
-    return SHEAR;
+    return SHEAR[m.shearBasis ?? 'strength'];
   },
+
+  validity: (g, t, i) => (i < 2 && t > 0.25 * g.diameter ? "thin-plate bending beyond t/D 0.25 (Roark's Formulas for Stress and Strain, §11.1): indicative only" : null),
 
   check(g, p, m, _stress, _allowable, warnings) {
     const a = 0.5 * g.diameter;

@@ -4,6 +4,7 @@ import type { ComponentModel } from './common';
 import { conicalFrustumModel } from './conical-frustum';
 import { cylinderModel } from './cylinder';
 import { flatDiscModel } from './flat-disc';
+import { ringStiffenedCylinderModel } from './ring-stiffened-cylinder';
 import { sphereModel } from './sphere';
 import { sphericalSectorModel } from './spherical-sector';
 
@@ -13,6 +14,7 @@ const MODELS = {
   'spherical-sector': sphericalSectorModel,
   sphere: sphereModel,
   cylinder: cylinderModel,
+  'ring-stiffened-cylinder': ringStiffenedCylinderModel,
 } as const;
 
 /** The model of a component (typed loosely: the caller passes the same component back in). */

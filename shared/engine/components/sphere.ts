@@ -1,29 +1,33 @@
 /**
- * Spherical shell under external pressure p (inner radius Ri, thickness t, Ro = Ri + t,
- * mean radius R = Ri + t/2).
+ * Spherical shell under external pressure p (inner radius Ri, thickness t, Ro = Ri + t, mean
+ * radius R = Ri + t/2).
  *
- * Compression: Lamé thick-wall solution, hoop stress at the inner surface (the largest),
- *   σ = 1.5·p·Ro³/(Ro³ − Ri³)
- * used at every thickness: it is exact for an elastic sphere, continuous (no switch between a
- * thin and a thick formula, so required thickness and sweeps are smooth) and reduces to the
- * thin membrane value p·R/(2t) as t/R → 0 (it is always the larger of the two).
+ * Compression (yield): Lamé thick-wall solution, hoop stress at the inner surface (the largest),
+ *   σ = 1.5·p·Ro³/(Ro³ − Ri³),
+ * exact for an elastic sphere and equal to the thin p·R/(2t) as t/R → 0. Its yield pressure
+ *   py = σa·(Ro³ − Ri³)/(1.5·Ro³)  (σa the compressive allowable)
+ * enters the collapse below.
  *
- * Buckling: classical elastic buckling of a complete sphere (Zoelly 1915),
- *   p_cl = 2E/√(3(1−ν²)) · (t/R)²,
- * times an explicit knock-down factor for imperfections, NASA SP-8032 (1969), "Buckling of
- * thin-walled doubly curved shells" [memory: formula and λ definition not re-checked against the
- * document]: γ = 0.14 + 3.2/λ² (at most 1), with the shell parameter
- * λ = [12(1−ν²)]^¼ · √(R/t) (that of a hemispherical cap, whose base radius is R); for a
- * complete sphere λ is large and γ ≈ 0.14–0.2. Reported as stress = thin membrane stress
- * p·R/(2t) and allowable = the knocked-down critical membrane stress p_cr·R/(2t), so the
- * safety factor is p_cr/p.
- * When that critical stress exceeds the compressive allowable, buckling would be inelastic:
- * the elastic result is not valid and yield (the compression mode) governs; a warning says so.
+ * Buckling (collapse): the elastic pressure of a WHOLE sphere by how it was made — no shallow-cap
+ * formula — then the yield–buckling interaction (collapse.ts):
+ *  - fabricated (welded or formed within ordinary tolerances, the default): the elastic branch of
+ *    the pressure-vessel code's sphere curve, pe = 0.18·pZoelly (EN 13445-3 §8.7, Pr/Py = 0.18·Pm/Py
+ *    for Pm/Py < 0.5 [a public transcription of the standard]); pZoelly = 2E/√(3(1−ν²))·(t/R)²
+ *    (Zoelly 1915);
+ *  - machined (near-perfect, stress-relieved): pe = 0.84·E·(t/Ro)², the empirical relation of the
+ *    David Taylor Model Basin tests of machined spheres (Krenzke & Kiernan 1963, DTIC AD0422297
+ *    [memory: the constant]);
+ *  - a measured local radius Rl (over an arc of 2.2·√(R·t)) replaces R: pe ∝ (t/Rl)², taken for
+ *    both classes (the lower governs) (Krenzke & Kiernan, DTMB [memory]).
+ * Collapse pc = the interaction of py and pe; stress = p·R/(2t), allowable = pc·R/(2t), so the
+ * safety factor is pc/p. The elastic and yield pressures are reported beside it.
  */
 import type { Sphere } from '../../schemas/evaluate';
 import { fmt } from '../allowables';
+import { thicknessForTarget } from '../solve';
 import type { FailureMode } from '../types';
-import { compressionText, type ComponentModel, type ModeMaterial } from './common';
+import { collapsePressure, COLLAPSE_INTERACTION, type CollapseDetail } from './collapse';
+import { compressionText, thinShellValidity, type ComponentModel, type ModeMaterial } from './common';
 
 const MODES: readonly FailureMode[] = ['compression', 'buckling'];
 
@@ -45,55 +49,64 @@ export function zoellyPressure(E: number, nu: number, t: number, meanRadius: num
   return ((2 * E) / Math.sqrt(3 * (1 - nu * nu))) * r * r;
 }
 
-/** NASA SP-8032 [memory] knock-down γ = min(1, 0.14 + 3.2/λ²), λ = [12(1−ν²)]^¼·√(R/t). */
-export function sphereKnockdown(nu: number, t: number, meanRadius: number): number {
-  const lambda2 = Math.sqrt(12 * (1 - nu * nu)) * (meanRadius / t); // λ²
-  const g = 0.14 + 3.2 / lambda2;
-  return g < 1 ? g : 1;
-}
+/** Fraction of Zoelly for fabricated spheres (EN 13445-3 §8.7 elastic branch [public transcription]). */
+export const FABRICATED_SPHERE_FACTOR = 0.18;
+/** Coefficient of the machined-sphere relation pe = 0.84·E·(t/Ro)² (Krenzke & Kiernan [memory]). */
+export const MACHINED_SPHERE_COEFFICIENT = 0.84;
 
-/**
- * Thickness (m) at which the knocked-down buckling pressure of a sphere of inner radius Ri
- * reaches `pressure`, in closed form: with x = t/R and s = √(12(1−ν²)), γ = 0.14 + 3.2·x/s, so
- * p_cr/(C·E) = 0.14·x² + (3.2/s)·x³ (a cubic, increasing in x; solved by Newton from above),
- * or x² where γ is capped at 1; then t = x·Ri/(1 − x/2). Null when no x < 2 suffices.
- */
-export function sphereBucklingThickness(E: number, nu: number, innerRadius: number, pressure: number): number | null {
-  const k = 1 - nu * nu;
-  const r = pressure / ((2 * E) / Math.sqrt(3 * k)); // required (t/R)²·γ
-  const b = 3.2 / Math.sqrt(12 * k);
-  let x: number;
-  const xCap = 0.86 / b; // γ reaches 1 here
-  if (0.14 * xCap * xCap + b * xCap * xCap * xCap <= r) {
-    x = Math.sqrt(r);
-  } else {
-    // f(x) = 0.14x² + b·x³ − r is increasing and convex for x > 0: Newton from above converges monotonically
-    x = Math.min(Math.sqrt(r / 0.14), Math.cbrt(r / b));
-    for (let i = 0; i < 100; i++) {
-      const f = (0.14 + b * x) * x * x - r;
-      const dx = f / ((0.28 + 3 * b * x) * x);
-      x -= dx;
-      if (!(dx > 1e-15 * x)) break;
-    }
-  }
-  if (!(x < 2)) return null;
-  return (x * innerRadius) / (1 - 0.5 * x);
-}
-
-/** Knocked-down elastic buckling pressure of a sphere of inner radius Ri and thickness t (Pa). */
-export function sphereBucklingPressure(E: number, nu: number, innerRadius: number, t: number): number {
+/** Elastic (imperfection-inclusive) buckling pressure of a whole sphere (Pa). */
+export function sphereElasticPressure(
+  E: number,
+  nu: number,
+  innerRadius: number,
+  t: number,
+  fabrication: 'fabricated' | 'machined' = 'fabricated',
+  localRadiusRatio = 1,
+): number {
   const R = innerRadius + 0.5 * t;
-  return sphereKnockdown(nu, t, R) * zoellyPressure(E, nu, t, R);
+  const ro = innerRadius + t;
+  const rl = ro * localRadiusRatio;
+  const machined = MACHINED_SPHERE_COEFFICIENT * E * (t / rl) * (t / rl);
+  if (fabrication === 'machined') return machined;
+  const coded = (FABRICATED_SPHERE_FACTOR * zoellyPressure(E, nu, t, R)) / (localRadiusRatio * localRadiusRatio);
+  return coded < machined ? coded : machined;
+}
+
+/** Yield pressure of the Lamé sphere: the pressure at which the inner-surface stress reaches σa (Pa). */
+export function sphereYieldPressure(allowable: number, innerRadius: number, t: number): number {
+  return allowable / sphereLameStress(1, innerRadius, t);
+}
+
+/** Collapse pressure of the sphere: interaction of yield and elastic (Pa). */
+export function sphereCollapse(g: Sphere, t: number, m: ModeMaterial): CollapseDetail {
+  const py = sphereYieldPressure(m.compression, g.innerRadius, t);
+  const pe = sphereElasticPressure(m.E, m.nu, g.innerRadius, t, g.fabrication, g.localRadiusRatio);
+  return { elastic: pe, yield: py, collapse: collapsePressure(py, pe) };
 }
 
 const COMPRESSION = compressionText(
   'Membrane compression, Lamé thick-wall sphere under external pressure, inner surface: σ = 1.5·p·Ro³/(Ro³ − Ri³) ' +
     '(reduces to the thin-shell p·R/(2t) for thin walls; e.g. Roark, 7th ed., Table 13.5 [memory: table number]).',
 );
-const BUCKLING =
-  'Elastic buckling of a complete sphere, Zoelly (1915): p_cr = 2E/√(3(1−ν²))·(t/R)², R = mean radius, times the knock-down ' +
-  'γ = 0.14 + 3.2/λ² (≤ 1), λ = [12(1−ν²)]^¼·√(R/t), after NASA SP-8032 (1969) [memory]. Stress = p·R/(2t); ' +
-  "allowable = p_cr·R/(2t), so the safety factor is p_cr/p. Uses the short-term Young's modulus.";
+const ELASTIC_TEXT = {
+  fabricated:
+    'elastic pe = 0.18 × Zoelly (1915) 2E/√(3(1−ν²))·(t/R)², the elastic branch of the pressure-vessel code for fabricated spheres (EN 13445-3 §8.7, a public transcription)',
+  machined: 'elastic pe = 0.84·E·(t/Ro)², the David Taylor Model Basin relation for machined spheres (Krenzke & Kiernan 1963 [memory: constant])',
+};
+const buckling = (fabrication: 'fabricated' | 'machined', local: boolean) =>
+  `Collapse of a complete sphere (${fabrication}): ${ELASTIC_TEXT[fabrication]}${local ? ', with R replaced by the measured local radius over an arc of 2.2√(Rt) (Krenzke & Kiernan [memory])' : ''}; ` +
+  `yield py = σa·(Ro³ − Ri³)/(1.5·Ro³) (Lamé); ${COLLAPSE_INTERACTION}. Stress = p·R/(2t); allowable = pc·R/(2t), so the safety factor is pc/p. ` +
+  "Uses the short-term Young's modulus.";
+const BUCKLING = {
+  fabricated: buckling('fabricated', false),
+  machined: buckling('machined', false),
+  fabricatedLocal: buckling('fabricated', true),
+  machinedLocal: buckling('machined', true),
+};
+
+function collapseSafetyFactor(t: number, c: { g: Sphere; m: ModeMaterial; p: number }): number {
+  return sphereCollapse(c.g, t, c.m).collapse / c.p;
+}
 
 export const sphereModel: ComponentModel<Sphere> = {
   modes: MODES,
@@ -104,12 +117,11 @@ export const sphereModel: ComponentModel<Sphere> = {
     stress[0] = sphereLameStress(p, g.innerRadius, t);
     allowable[0] = m.compression;
     const R = g.innerRadius + 0.5 * t;
-    const membrane = sphereMembraneStress(p, R, t);
-    stress[1] = membrane;
-    allowable[1] = sphereMembraneStress(sphereBucklingPressure(m.E, m.nu, g.innerRadius, t), R, t);
+    stress[1] = sphereMembraneStress(p, R, t);
+    allowable[1] = sphereMembraneStress(sphereCollapse(g, t, m).collapse, R, t);
   },
 
-  required(g, p, m: ModeMaterial, target, i, _t, _stress, allowable) {
+  required(g, p, m: ModeMaterial, target, i, t, stress, allowable) {
     const ri = g.innerRadius;
     if (i === 0) {
       // 1.5·p·Ro³ = s·(Ro³ − Ri³) → Ro = Ri·(s/(s − 1.5p))^(1/3); impossible when s ≤ 1.5p
@@ -118,23 +130,38 @@ export const sphereModel: ComponentModel<Sphere> = {
       if (!(x < 1)) return null;
       return ri * Math.expm1(-Math.log1p(-x) / 3);
     }
-    // buckling: p_cr(t) rises with t (t/R and γ both do), closed form
-    return sphereBucklingThickness(m.E, m.nu, ri, target * p);
+    // collapse rises with t (yield and elastic both do); ~t² while elastic, ~t near yield
+    const sf = allowable / stress;
+    const guess = t * Math.pow(target / sf, 0.5);
+    return thicknessForTarget(collapseSafetyFactor, { g, m, p }, target, guess, ri * 1e-9, ri * 1e4, 2, t, sf);
   },
 
-  model(_g, i, m) {
-    return i === 0 ? COMPRESSION[m.compressionOnYield ? 'yield' : 'strength'] : BUCKLING;
+  model(g, i, m) {
+    if (i === 0) return COMPRESSION[m.compressionOnYield ? 'yield' : 'strength'];
+    const f = g.fabrication ?? 'fabricated';
+    return BUCKLING[g.localRadiusRatio !== undefined && g.localRadiusRatio > 1 ? (f === 'machined' ? 'machinedLocal' : 'fabricatedLocal') : f];
   },
 
-  check(_g, _p, m, _stress, allowable, warnings) {
-    if (allowable[1] > m.compression) {
+  collapse(g, t, m, i) {
+    return i === 1 ? sphereCollapse(g, t, m) : null;
+  },
+
+  check(g, _p, _m, _stress, _allowable, warnings) {
+    if ((g.fabrication ?? 'fabricated') === 'machined' && g.localRadiusRatio === undefined) {
       warnings.push(
-        `The knocked-down elastic buckling stress (${fmt(allowable[1] / 1e6)} MPa) exceeds the compressive allowable ` +
-          `(${fmt(m.compression / 1e6)} MPa): buckling would be inelastic, the elastic buckling result is not valid, and yield governs.`,
+        'Machined-sphere collapse assumes a near-perfect, stress-relieved shell (David Taylor Model Basin tests): fabricated or welded spheres ' +
+          'collapse far lower. Measure the local radius over an arc of 2.2√(R·t) and enter it, or treat the sphere as fabricated.',
+      );
+    }
+    if (g.thickness / (g.innerRadius + 0.5 * g.thickness) > 0.1) {
+      warnings.push(
+        `t/R = ${fmt(g.thickness / (g.innerRadius + 0.5 * g.thickness))} is past the thin-shell range of the buckling relations (about 0.1, common practice): the collapse value is indicative; yield governs thick spheres.`,
       );
     }
     return undefined;
   },
+
+  validity: (g, t, i) => (i === 1 ? thinShellValidity(t, g.innerRadius + 0.5 * t) : null),
 
   weightToDisplacement(g, t, density, waterDensity) {
     const ro = g.innerRadius + t;

@@ -54,6 +54,8 @@ export const sphericalSectorModel: ComponentModel<SphericalSector> = {
     return i === 0 ? COMPRESSION[m.compressionOnYield ? 'yield' : 'strength'] : sphereModel.model(asSphere(g), i, m);
   },
 
+  validity: (g, t, i) => sphereModel.validity!(asSphere(g), t, i),
+
   check(g, p, m, stress, allowable, warnings) {
     warnings.push(SPHERICAL_SECTOR_WARNING);
     return sphereModel.check(asSphere(g), p, m, stress, allowable, warnings);

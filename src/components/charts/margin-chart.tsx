@@ -1,6 +1,6 @@
 import { Bar } from 'react-chartjs-2';
 import './setup';
-import { FAILURE_MODES, type CandidateResult } from '@shared/engine';
+import { FAILURE_MODES, modeMargin, type CandidateResult } from '@shared/engine';
 import { MODE_COLOURS, MODE_LABELS } from '@/components/failure-modes';
 
 /**
@@ -17,8 +17,8 @@ export function MarginChart({ results }: { results: CandidateResult[] }) {
       label: MODE_LABELS[mode],
       backgroundColor: MODE_COLOURS[mode],
       data: shown.map((r) => {
-        const m = r.modes.find((x) => x.mode === mode);
-        return m ? Math.min(m.margin, 5) : null;
+        const margin = modeMargin(r, mode);
+        return margin === undefined ? null : Math.min(margin, 5);
       }),
     })),
   };

@@ -35,6 +35,25 @@ export interface LoadCaseForm {
   thickness: number;
   /** Cones: outer diameter of the seat's bearing annulus; NaN (left empty) = not given. */
   seatOuterDiameter: number;
+  /** Spheres. */
+  fabrication: 'fabricated' | 'machined';
+  /** Measured local radius ÷ nominal; NaN = not measured. */
+  localRadiusRatio: number;
+  /** Cylinders (measured, fraction; NaN = none) and ring-stiffened cylinders (NaN = the 0.5 % default). */
+  outOfRoundness: number;
+  /** Ring-stiffened cylinders. */
+  frameSpacing: number;
+  framePosition: 'internal' | 'external';
+  frameShape: 'tee' | 'section';
+  webHeight: number;
+  webThickness: number;
+  flangeWidth: number;
+  flangeThickness: number;
+  frameArea: number;
+  frameSecondMoment: number;
+  frameDepth: number;
+  frameCentroidHeight: number;
+  frameContactWidth: number;
   edge: 'simply-supported' | 'clamped';
   humanOccupancy: boolean;
   coveredFirst: boolean;
@@ -65,6 +84,18 @@ export const FIELD_KIND: Record<NumericField, QuantityKind | null> = {
   length: 'length',
   thickness: 'length',
   seatOuterDiameter: 'length',
+  localRadiusRatio: null,
+  outOfRoundness: 'fraction',
+  frameSpacing: 'length',
+  webHeight: 'length',
+  webThickness: 'length',
+  flangeWidth: 'length',
+  flangeThickness: 'length',
+  frameArea: 'area',
+  frameSecondMoment: 'secondMoment',
+  frameDepth: 'length',
+  frameCentroidHeight: 'length',
+  frameContactWidth: 'length',
 };
 
 /** Harrow Sound's two-person submersible, rated to 1,200 m: its 90° conical viewport (SI). */
@@ -89,6 +120,22 @@ export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
   length: 1.2,
   thickness: 0.1,
   seatOuterDiameter: Number.NaN,
+  fabrication: 'fabricated',
+  localRadiusRatio: Number.NaN,
+  outOfRoundness: Number.NaN,
+  // Harrow Sound's hull section: tee frames 100 × 10 mm web, 80 × 15 mm flange every 500 mm
+  frameSpacing: 0.5,
+  framePosition: 'internal',
+  frameShape: 'tee',
+  webHeight: 0.1,
+  webThickness: 0.01,
+  flangeWidth: 0.08,
+  flangeThickness: 0.015,
+  frameArea: 0.0022,
+  frameSecondMoment: 2.8e-6,
+  frameDepth: 0.115,
+  frameCentroidHeight: 0.08,
+  frameContactWidth: 0.01,
   edge: 'simply-supported',
   humanOccupancy: true,
   coveredFirst: true,
@@ -110,6 +157,8 @@ export function convertForm(form: LoadCaseForm, from: UnitSystem | 'SI-raw', to:
   return out;
 }
 
+const optionalOutOfRoundness = (f: LoadCaseForm) => (Number.isNaN(f.outOfRoundness) ? {} : { outOfRoundness: f.outOfRoundness });
+
 /** The request in SI from the form as shown. */
 export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequestInput {
   const f = convertForm(shown, system, 'SI-raw');
@@ -127,8 +176,28 @@ export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequ
         : f.componentType === 'spherical-sector'
           ? { type: 'spherical-sector' as const, innerRadius: f.innerRadius, thickness: f.thickness, includedAngle: f.includedAngle }
         : f.componentType === 'sphere'
-          ? { type: 'sphere' as const, innerRadius: f.innerRadius, thickness: f.thickness }
-          : { type: 'cylinder' as const, innerRadius: f.innerRadius, thickness: f.thickness, length: f.length };
+          ? {
+              type: 'sphere' as const,
+              innerRadius: f.innerRadius,
+              thickness: f.thickness,
+              fabrication: f.fabrication,
+              ...(Number.isNaN(f.localRadiusRatio) ? {} : { localRadiusRatio: f.localRadiusRatio }),
+            }
+          : f.componentType === 'cylinder'
+            ? { type: 'cylinder' as const, innerRadius: f.innerRadius, thickness: f.thickness, length: f.length, ...optionalOutOfRoundness(f) }
+            : {
+                type: 'ring-stiffened-cylinder' as const,
+                innerRadius: f.innerRadius,
+                thickness: f.thickness,
+                frameSpacing: f.frameSpacing,
+                framePosition: f.framePosition,
+                frame:
+                  f.frameShape === 'tee'
+                    ? { shape: 'tee' as const, webHeight: f.webHeight, webThickness: f.webThickness, flangeWidth: f.flangeWidth, flangeThickness: f.flangeThickness }
+                    : { shape: 'section' as const, area: f.frameArea, secondMoment: f.frameSecondMoment, depth: f.frameDepth, centroidHeight: f.frameCentroidHeight, contactWidth: f.frameContactWidth },
+                length: f.length,
+                ...optionalOutOfRoundness(f),
+              };
   return {
     loadCase: {
       pressure: f.pressureMode === 'depth' ? { depth: f.depth, latitude: f.latitude, water: f.water } : { value: f.pressureValue },
@@ -170,6 +239,21 @@ const PATHS: Record<string, keyof LoadCaseForm> = {
   'loadCase.component.thickness': 'thickness',
   'loadCase.component.edge': 'edge',
   'loadCase.component.seatOuterDiameter': 'seatOuterDiameter',
+  'loadCase.component.fabrication': 'fabrication',
+  'loadCase.component.localRadiusRatio': 'localRadiusRatio',
+  'loadCase.component.outOfRoundness': 'outOfRoundness',
+  'loadCase.component.frameSpacing': 'frameSpacing',
+  'loadCase.component.framePosition': 'framePosition',
+  'loadCase.component.frame': 'webHeight',
+  'loadCase.component.frame.webHeight': 'webHeight',
+  'loadCase.component.frame.webThickness': 'webThickness',
+  'loadCase.component.frame.flangeWidth': 'flangeWidth',
+  'loadCase.component.frame.flangeThickness': 'flangeThickness',
+  'loadCase.component.frame.area': 'frameArea',
+  'loadCase.component.frame.secondMoment': 'frameSecondMoment',
+  'loadCase.component.frame.depth': 'frameDepth',
+  'loadCase.component.frame.centroidHeight': 'frameCentroidHeight',
+  'loadCase.component.frame.contactWidth': 'frameContactWidth',
   'loadCase.humanOccupancy': 'humanOccupancy',
   'loadCase.component': 'componentType',
   'loadCase.component.type': 'componentType',
@@ -217,8 +301,26 @@ export function formFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): Loa
         : c.type === 'spherical-sector'
           ? { innerRadius: c.innerRadius, includedAngle: c.includedAngle }
         : c.type === 'sphere'
-          ? { innerRadius: c.innerRadius }
-          : { innerRadius: c.innerRadius, length: c.length };
+          ? { innerRadius: c.innerRadius, fabrication: c.fabrication ?? 'fabricated', localRadiusRatio: c.localRadiusRatio ?? Number.NaN }
+          : c.type === 'cylinder'
+            ? { innerRadius: c.innerRadius, length: c.length, outOfRoundness: c.outOfRoundness ?? Number.NaN }
+            : {
+                innerRadius: c.innerRadius,
+                length: c.length,
+                outOfRoundness: c.outOfRoundness ?? Number.NaN,
+                frameSpacing: c.frameSpacing,
+                framePosition: c.framePosition,
+                frameShape: c.frame.shape,
+                ...(c.frame.shape === 'tee'
+                  ? { webHeight: c.frame.webHeight, webThickness: c.frame.webThickness, flangeWidth: c.frame.flangeWidth, flangeThickness: c.frame.flangeThickness }
+                  : {
+                      frameArea: c.frame.area,
+                      frameSecondMoment: c.frame.secondMoment,
+                      frameDepth: c.frame.depth,
+                      frameCentroidHeight: c.frame.centroidHeight,
+                      frameContactWidth: c.frame.contactWidth,
+                    }),
+              };
   return {
     ...DEMO_LOAD_CASE_SI,
     ...pressure,

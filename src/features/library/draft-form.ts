@@ -27,6 +27,7 @@ export const QUANTITY_KIND: Record<Quantity, QuantityKind | null> = {
   compressiveStrength: 'stress',
   compressiveYield: 'stress',
   shearStrength: 'stress',
+  shearYield: 'stress',
   elongation: 'fraction',
   luminousTransmittance: 'fraction',
 };

@@ -41,11 +41,31 @@ export function describeLoadCase(lc: LoadCaseInput, system: UnitSystem): { label
               { label: 'Included angle', value: `${c.includedAngle}°` },
             ]
         : c.type === 'sphere'
-          ? [{ label: 'Inner radius', value: len(c.innerRadius) }]
-          : [
+          ? [
               { label: 'Inner radius', value: len(c.innerRadius) },
-              { label: 'Unsupported length', value: len(c.length) },
-            ];
+              { label: 'Fabrication', value: c.fabrication === 'machined' ? 'Machined, stress-relieved' : 'Fabricated (welded or formed)' },
+              ...(c.localRadiusRatio !== undefined ? [{ label: 'Measured local radius', value: `${c.localRadiusRatio} × R` }] : []),
+            ]
+          : c.type === 'cylinder'
+            ? [
+                { label: 'Inner radius', value: len(c.innerRadius) },
+                { label: 'Unsupported length', value: len(c.length) },
+                ...(c.outOfRoundness !== undefined ? [{ label: 'Out-of-roundness', value: `${(c.outOfRoundness * 100).toFixed(2)} % of R` }] : []),
+              ]
+            : [
+                { label: 'Inner radius', value: len(c.innerRadius) },
+                { label: 'Length between bulkheads', value: len(c.length) },
+                { label: 'Frame spacing', value: len(c.frameSpacing) },
+                { label: 'Frames', value: `${c.framePosition === 'internal' ? 'inside' : 'outside'} the shell` },
+                {
+                  label: 'Frame',
+                  value:
+                    c.frame.shape === 'tee'
+                      ? `tee: web ${len(c.frame.webHeight)} × ${len(c.frame.webThickness)}, flange ${len(c.frame.flangeWidth)} × ${len(c.frame.flangeThickness)}`
+                      : `area ${formatQuantity('area', system, c.frame.area)}, second moment ${formatQuantity('secondMoment', system, c.frame.secondMoment)}, depth ${len(c.frame.depth)}`,
+                },
+                { label: 'Out-of-roundness', value: `${((c.outOfRoundness ?? 0.005) * 100).toFixed(2)} % of R${c.outOfRoundness === undefined ? ' (default)' : ''}` },
+              ];
   return [
     { label: 'Pressure from', value: pressureSource(lc, system) },
     {

@@ -20,6 +20,7 @@ const KIND_OF: Record<Quantity, QuantityKind | null> = {
   compressiveStrength: 'stress',
   compressiveYield: 'stress',
   shearStrength: 'stress',
+  shearYield: 'stress',
   elongation: 'fraction',
   luminousTransmittance: 'fraction',
 };

@@ -3,7 +3,7 @@ import type { ComponentType } from '@shared/schemas/evaluate';
 interface SketchProps {
   type: ComponentType;
   /** Dimension labels already formatted in the shown units. */
-  labels: { diameter?: string; minorDiameter?: string; thickness?: string; includedAngle?: string; innerRadius?: string; length?: string };
+  labels: { diameter?: string; minorDiameter?: string; thickness?: string; includedAngle?: string; innerRadius?: string; length?: string; frameSpacing?: string };
 }
 
 const INK = '#10242f';
@@ -107,6 +107,30 @@ export function ComponentSketch({ type, labels }: SketchProps) {
           <Dim x1={110} y1={75} x2={156} y2={75} label={`Rᵢ ${labels.innerRadius ?? ''}`} />
           <Dim x1={156} y1={75} x2={170} y2={75} />
           <text x={178} y={79} fontSize={11} fill={DIM} fontWeight={700}>
+            t {labels.thickness}
+          </text>
+        </g>
+      ) : null}
+      {type === 'ring-stiffened-cylinder' ? (
+        <g>
+          {/* half section along the axis: shell on top, tee frames inside it, bulkheads at the ends */}
+          <rect x={30} y={30} width={200} height={10} fill={BODY} stroke={INK} />
+          {[62, 102, 142, 182].map((x) => (
+            <g key={x}>
+              <rect x={x - 2} y={40} width={4} height={26} fill={SEAT} />
+              <rect x={x - 10} y={66} width={20} height={5} fill={SEAT} />
+            </g>
+          ))}
+          <rect x={24} y={24} width={8} height={70} fill={SEAT} />
+          <rect x={228} y={24} width={8} height={70} fill={SEAT} />
+          <line x1={20} y1={118} x2={240} y2={118} stroke={DIM} strokeDasharray="3 3" strokeWidth={0.8} />
+          <Dim x1={62} y1={84} x2={102} y2={84} label={`Lf ${labels.frameSpacing ?? ''}`} dy={12} />
+          <Dim x1={32} y1={140} x2={228} y2={140} label={`L ${labels.length ?? ''}`} dy={-4} />
+          <Dim x1={210} y1={118} x2={210} y2={40} />
+          <text x={214} y={104} fontSize={11} fill={DIM} fontWeight={700}>
+            Rᵢ {labels.innerRadius}
+          </text>
+          <text x={150} y={22} fontSize={11} fill={DIM} fontWeight={700}>
             t {labels.thickness}
           </text>
         </g>

@@ -85,6 +85,7 @@ export function LoadCaseFormPanel({
     includedAngle: `${v.includedAngle}°`,
     innerRadius: `${v.innerRadius} ${len}`,
     length: `${v.length} ${len}`,
+    frameSpacing: `${v.frameSpacing} ${len}`,
   };
   const isWindow = WINDOW_COMPONENTS.includes(v.componentType);
 
@@ -177,11 +178,60 @@ export function LoadCaseFormPanel({
               <TextField label="Included angle" unit="°" inputMode="decimal" error={err('includedAngle')} hint="Of the sector and its conical seat, 30° to 180°" {...register('includedAngle', num)} />
             </>
           ) : null}
-          {v.componentType === 'sphere' || v.componentType === 'cylinder' ? (
+          {v.componentType === 'sphere' || v.componentType === 'cylinder' || v.componentType === 'ring-stiffened-cylinder' ? (
             <TextField label="Inner radius" unit={len} inputMode="decimal" error={err('innerRadius')} {...register('innerRadius', num)} />
+          ) : null}
+          {v.componentType === 'sphere' ? (
+            <>
+              <SelectField label="Fabrication" error={err('fabrication')} hint="How it was made decides its collapse" {...register('fabrication')}>
+                <option value="fabricated">Fabricated (welded or formed)</option>
+                <option value="machined">Machined, stress-relieved</option>
+              </SelectField>
+              <TextField label="Local radius ÷ R" inputMode="decimal" error={err('localRadiusRatio')} hint="Measured over an arc of 2.2√(R·t); empty: not measured" {...register('localRadiusRatio', num)} />
+            </>
           ) : null}
           {v.componentType === 'cylinder' ? (
             <TextField label="Unsupported length" unit={len} inputMode="decimal" error={err('length')} hint="Between stiffeners or bulkheads" {...register('length', num)} />
+          ) : null}
+          {v.componentType === 'ring-stiffened-cylinder' ? (
+            <>
+              <TextField label="Length between bulkheads" unit={len} inputMode="decimal" error={err('length')} {...register('length', num)} />
+              <TextField label="Frame spacing" unit={len} inputMode="decimal" error={err('frameSpacing')} {...register('frameSpacing', num)} />
+              <SelectField label="Frames" error={err('framePosition')} {...register('framePosition')}>
+                <option value="internal">Inside the shell</option>
+                <option value="external">Outside the shell</option>
+              </SelectField>
+              <SelectField label="Frame given by" {...register('frameShape')}>
+                <option value="tee">Tee dimensions</option>
+                <option value="section">Section properties</option>
+              </SelectField>
+              {v.frameShape === 'tee' ? (
+                <>
+                  <TextField label="Web height" unit={len} inputMode="decimal" error={err('webHeight')} {...register('webHeight', num)} />
+                  <TextField label="Web thickness" unit={len} inputMode="decimal" error={err('webThickness')} {...register('webThickness', num)} />
+                  <TextField label="Flange width" unit={len} inputMode="decimal" error={err('flangeWidth')} {...register('flangeWidth', num)} />
+                  <TextField label="Flange thickness" unit={len} inputMode="decimal" error={err('flangeThickness')} {...register('flangeThickness', num)} />
+                </>
+              ) : (
+                <>
+                  <TextField label="Frame area" unit={label('area')} inputMode="decimal" error={err('frameArea')} {...register('frameArea', num)} />
+                  <TextField label="Second moment" unit={label('secondMoment')} inputMode="decimal" error={err('frameSecondMoment')} hint="About the frame's own centroid" {...register('frameSecondMoment', num)} />
+                  <TextField label="Frame depth" unit={len} inputMode="decimal" error={err('frameDepth')} hint="Shell surface to outer fibre" {...register('frameDepth', num)} />
+                  <TextField label="Centroid height" unit={len} inputMode="decimal" error={err('frameCentroidHeight')} hint="Shell surface to centroid" {...register('frameCentroidHeight', num)} />
+                  <TextField label="Contact width" unit={len} inputMode="decimal" error={err('frameContactWidth')} {...register('frameContactWidth', num)} />
+                </>
+              )}
+            </>
+          ) : null}
+          {v.componentType === 'cylinder' || v.componentType === 'ring-stiffened-cylinder' ? (
+            <TextField
+              label="Out-of-roundness"
+              unit="% of R"
+              inputMode="decimal"
+              error={err('outOfRoundness')}
+              hint={v.componentType === 'cylinder' ? 'Measured oval deviation; empty: none entered' : 'Empty: 0.5 % of R (a common tolerance)'}
+              {...register('outOfRoundness', num)}
+            />
           ) : null}
           <TextField label="Thickness" unit={len} inputMode="decimal" error={err('thickness')} {...register('thickness', num)} />
         </div>

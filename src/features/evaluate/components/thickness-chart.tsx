@@ -20,12 +20,17 @@ export function ThicknessChart({ loadCase, candidate, thickness, requiredThickne
   const data = {
     datasets: [
       ...sweep.series.map((s) => ({
-        label: MODE_LABELS[s.mode],
+        label: s.check ? `${MODE_LABELS[s.mode]} (${s.check})` : MODE_LABELS[s.mode],
         borderColor: MODE_COLOURS[s.mode],
         backgroundColor: MODE_COLOURS[s.mode],
         pointRadius: 0,
         borderWidth: 2,
         data: sweep.thickness.map((t, i) => ({ x: x(t), y: Math.min(s.safetyFactor[i], cap) })),
+        // Beyond a formula's range the curve goes on dashed and grey: indicative, not a result.
+        segment: {
+          borderColor: (ctx: { p1DataIndex: number }) => (s.valid[ctx.p1DataIndex] ? MODE_COLOURS[s.mode] : '#9aa7ad'),
+          borderDash: (ctx: { p1DataIndex: number }) => (s.valid[ctx.p1DataIndex] ? undefined : [3, 3]),
+        },
       })),
       {
         label: `Target ${sweep.targetSafetyFactor}`,
@@ -69,6 +74,16 @@ export function ThicknessChart({ loadCase, candidate, thickness, requiredThickne
           }}
         />
       </div>
+      {sweep.series.some((s) => s.invalidReason) ? (
+        <p className="text-xs text-ink-soft" data-testid="validity-note">
+          Dashed grey:{' '}
+          {sweep.series
+            .filter((s) => s.invalidReason)
+            .map((s) => `${MODE_LABELS[s.mode]}${s.check ? ` (${s.check})` : ''} — ${s.invalidReason}`)
+            .join('; ')}
+          .
+        </p>
+      ) : null}
       <p className="text-xs text-ink-soft" data-testid="mode-transitions">
         {sweep.governingTransitions.length
           ? sweep.governingTransitions.map((t) => `${MODE_LABELS[t.from]} gives way to ${MODE_LABELS[t.to].toLowerCase()} at ${format('length', t.thickness)}`).join('; ') + '.'
