@@ -370,6 +370,16 @@ describe('values against their published sources', () => {
     }
   });
 
+  it('polycarbonate carries its shear yield beside the shear ultimate, so shear allowables sit on yield', () => {
+    // Source: a public machine-grade polycarbonate data sheet, ASTM D732: shear strength at yield 6,000 psi,
+    // ultimate 10,000 psi (the handbooks' 69 MPa is the ultimate).
+    for (const reference of ['asm-emh2-plastics-1988', 'harper-plastics-handbook-2002']) {
+      const pc = onlySet('polycarbonate', reference);
+      expect(pc.shearYield! / (KSI / 1000)).toBeCloseTo(6000, -1);
+      expect(pc.shearStrength / (KSI / 1000)).toBeCloseTo(10000, -2);
+    }
+  });
+
   it('soda-lime glass carries the EN characteristic bending strengths', () => {
     // Source: EN 572-1 (annealed 45 MPa, E 70,000 MPa, Poisson 0.2, 2500 kg/m3), EN 1863-1 (heat
     // strengthened 70 MPa) and EN 12150-1 (thermally toughened 120 MPa), as seen in a glazing-industry

@@ -128,6 +128,48 @@ describe('POST /api/evaluate', () => {
   });
 });
 
+// The Harrow Sound submersible's pressure-hull section (invented): HY-80 shell with internal tee frames.
+const hullSection = {
+  pressure: { depth: 1200, latitude: 57, water: 'sea' },
+  temperature: { min: 2, max: 25 },
+  sustainedHours: 1000,
+  cycles: 2000,
+  targetSafetyFactor: 1.5,
+  component: {
+    type: 'ring-stiffened-cylinder',
+    innerRadius: 1.0,
+    thickness: 0.0165,
+    frameSpacing: 0.5,
+    frame: { shape: 'tee', webHeight: 0.1, webThickness: 0.01, flangeWidth: 0.08, flangeThickness: 0.015 },
+    framePosition: 'internal',
+    length: 6,
+    outOfRoundness: 0.005,
+  },
+};
+
+describe('POST /api/evaluate: ring-stiffened cylinders', () => {
+  it('ranks the steels and titanium by their four hull checks, each with its collapse pressures', async () => {
+    const res = await engineer.post('/api/evaluate').send({ loadCase: hullSection, filters: { family: 'steel' } });
+    expect(res.status).toBe(200);
+    for (const r of res.body.results) {
+      expect(r.modes.map((m: { check: string }) => m.check)).toEqual(['interframe shell yield', 'interframe collapse', 'overall collapse', 'frame yield']);
+      for (const m of r.modes.slice(1)) expect(m.collapse.collapse).toBeLessThanOrEqual(Math.min(m.collapse.yield, m.collapse.elastic) * (1 + 1e-9));
+      expect(r.weightToDisplacement === null || r.weightToDisplacement > 0).toBe(true);
+    }
+  });
+
+  it.each([
+    ['a frame wider than the bay', { frame: { ...hullSection.component.frame, flangeWidth: 0.6 } }, 'loadCase.component.frame.flangeWidth'],
+    ['a negative out-of-roundness', { outOfRoundness: -0.002 }, 'loadCase.component.outOfRoundness'],
+    ['a section that cannot exist', { frame: { shape: 'section', area: 0.002, secondMoment: 1, depth: 0.1, centroidHeight: 0.05, contactWidth: 0.01 } }, 'loadCase.component.frame.secondMoment'],
+    ['frames further apart than the bulkheads', { frameSpacing: 7 }, 'loadCase.component.frameSpacing'],
+  ])('returns 400 for %s, naming the field', async (_what, change, field) => {
+    const res = await engineer.post('/api/evaluate').send({ loadCase: { ...hullSection, component: { ...hullSection.component, ...change } } });
+    expect(res.status).toBe(400);
+    expect(Object.keys(res.body.error.fields)).toContain(field);
+  });
+});
+
 describe('GET /api/pressure', () => {
   it('returns gauge pressure and the method for seawater and fresh water', async () => {
     const sea = await engineer.get('/api/pressure?depth=1000&latitude=30&water=sea');

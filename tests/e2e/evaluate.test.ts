@@ -55,4 +55,23 @@ describe('Evaluate journey in chromium', () => {
     await modes.waitFor();
     expect(await modes.textContent()).toContain('Roark');
   });
+
+  it('evaluates a ring-stiffened hull section and shows each check with its collapse pressures', async () => {
+    const { page } = s;
+    await page.getByLabel('Geometry').selectOption('ring-stiffened-cylinder');
+    await page.getByLabel('Transparency').selectOption('false');
+    await page.getByLabel(/^Inner radius/).fill('1000');
+    await page.getByLabel(/^Thickness/).fill('16.5');
+    await page.getByLabel(/Length between bulkheads/).fill('6000');
+    await page.getByLabel(/Frame spacing/).fill('500');
+    await page.getByRole('button', { name: 'Evaluate candidates' }).click();
+    await expect.poll(async () => (await page.getByTestId('evaluation-summary').textContent()) ?? '').toMatch(/governed by/);
+    await page.getByRole('button', { name: /Show modes of HY-80/ }).first().click();
+    const modes = page.getByRole('table', { name: /^Modes of HY-80/ }).first();
+    await modes.waitFor();
+    const text = (await modes.textContent()) ?? '';
+    for (const check of ['interframe shell yield', 'interframe collapse', 'overall collapse', 'frame yield']) expect(text).toContain(check);
+    expect(text).toMatch(/Elastic .* · yield .* → collapse/);
+    expect(text).toMatch(/Johnson–Ostenfeld/);
+  });
 });

@@ -29,7 +29,7 @@
  */
 import { DEFAULT_OUT_OF_ROUNDNESS, type RingStiffenedCylinder } from '../../schemas/evaluate';
 import { fmt } from '../allowables';
-import { brent, thicknessForTarget } from '../solve';
+import { thicknessForTarget } from '../solve';
 import type { FailureMode } from '../types';
 import { collapsePressure, COLLAPSE_INTERACTION, type CollapseDetail } from './collapse';
 import { compressionText, thinShellValidity, type ComponentModel, type ModeMaterial } from './common';
@@ -119,8 +119,8 @@ function bryantMinimum(E: number, R: number, t: number, LB: number, Lf: number, 
   return { pressure, lobes };
 }
 
-/** What every check needs about the hull at shell thickness t. */
-interface Hull {
+/** What the overall checks need about the hull at shell thickness t. */
+export interface Hull {
   R: number;
   Rf: number;
   frame: FrameProperties;
@@ -147,16 +147,20 @@ function hullAt(g: RingStiffenedCylinder, t: number, E: number): Hull {
 }
 
 /** The critical pressure of check i at shell thickness t (Pa), with its collapse detail for the buckling checks. */
-export function ringStiffenedCritical(g: RingStiffenedCylinder, t: number, m: ModeMaterial, i: number): CollapseDetail {
-  const h = hullAt(g, t, m.E);
+export function ringStiffenedCritical(g: RingStiffenedCylinder, t: number, m: ModeMaterial, i: number, hull?: Hull): CollapseDetail {
   const sy = m.compression;
-  const clear = g.frameSpacing - h.frame.contactWidth;
-  const py = interframeYieldPressure(sy, t, h.R, h.Rf, clear, h.frame.contactWidth, h.frame.area, m.nu);
-  if (i === 0) return { elastic: Infinity, yield: py, collapse: py };
-  if (i === 1) {
-    const pe = 0.56 * vonMisesPressure(m.E, m.nu, h.R, t, clear).pressure;
+  if (i < 2) {
+    const frame = frameProperties(g.frame);
+    const R = g.innerRadius + t / 2;
+    const Rf = g.framePosition === 'internal' ? g.innerRadius - frame.centroidHeight : g.innerRadius + t + frame.centroidHeight;
+    const clear = g.frameSpacing - frame.contactWidth;
+    const py = interframeYieldPressure(sy, t, R, Rf, clear, frame.contactWidth, frame.area, m.nu);
+    if (i === 0) return { elastic: Infinity, yield: py, collapse: py };
+    const pe = 0.56 * vonMisesPressure(m.E, m.nu, R, t, clear).pressure;
     return { elastic: pe, yield: py, collapse: collapsePressure(py, pe) };
   }
+  // the overall checks share the hull's section and overall mode (worked out once per thickness by fill)
+  const h = hull ?? hullAt(g, t, m.E);
   const pyRing = (sy * (t * g.frameSpacing + h.frame.area)) / (h.R * g.frameSpacing);
   if (i === 2) return { elastic: h.pn, yield: pyRing, collapse: collapsePressure(pyRing, h.pn) };
   // frame yield: mean hoop stress plus the out-of-roundness bending amplified in an n-lobe mode reach
@@ -171,9 +175,10 @@ export function ringStiffenedCritical(g: RingStiffenedCylinder, t: number, m: Mo
   for (let n = 2; n <= 6; n++) {
     const pnn = bryantPressureForLobes(m.E, h.R, t, g.length, g.frameSpacing, h.Ie, n);
     const bending = (m.E * h.c * w0 * (n * n - 1)) / (h.R * h.R);
-    const f = (p: number) => p * membrane + (bending * p) / (pnn - p) - sy;
-    const hi = Math.min(pnn, sy / membrane) * (1 - 1e-12);
-    const root = f(hi) <= 0 ? hi : brent(f, undefined, 0, hi, -sy, f(hi), 1e-13 * hi);
+    // p·a + b·p/(p_n − p) = σy  ⇔  a·p² − (a·p_n + b + σy)·p + σy·p_n = 0: the smaller root, in its stable form
+    const B = membrane * pnn + bending + sy;
+    const disc = B * B - 4 * membrane * sy * pnn;
+    const root = (2 * sy * pnn) / (B + Math.sqrt(disc > 0 ? disc : 0));
     if (root < pfy) pfy = root;
   }
   return { elastic: h.pn, yield: sy / membrane, collapse: pfy };
@@ -203,9 +208,10 @@ export const ringStiffenedCylinderModel: ComponentModel<RingStiffenedCylinder> =
   fill(g, t, p, m, stress, allowable) {
     const R = g.innerRadius + t / 2;
     const membrane = (p * R) / t;
+    const hull = hullAt(g, t, m.E);
     for (let i = 0; i < 4; i++) {
       stress[i] = membrane;
-      allowable[i] = (ringStiffenedCritical(g, t, m, i).collapse * R) / t;
+      allowable[i] = (ringStiffenedCritical(g, t, m, i, i < 2 ? undefined : hull).collapse * R) / t;
     }
   },
 
