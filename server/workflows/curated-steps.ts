@@ -20,6 +20,7 @@ export interface CuratedAttributes {
   status: CuratedStatus;
   version: number;
   lineageId: number | null;
+  referenceId: number | null;
   supersedesId: number | null;
   supersededById: number | null;
   draftedById: number | null;
@@ -46,7 +47,7 @@ export interface CuratedKind<M extends CuratedRow> {
   title(row: M): Promise<string>;
   /** Its page on the library desk (path after the app's address). */
   path(id: number): string;
-  /** Refuses publishing what may not be published (e.g. without a reference). */
+  /** Refuses publishing what may not be published (a reference is required by the table). */
   checkPublishable?(row: M, transaction: Transaction): Promise<void>;
   /** The attributes of a new draft revising `row` (content only: the runner sets the workflow columns). */
   revisionOf(row: M): Record<string, unknown>;
@@ -131,7 +132,7 @@ function workflowOf<M extends CuratedRow>(kind: CuratedKind<M>): WorkflowKind<Cu
     entityType: kind.entityType,
     noun: kind.noun,
     staleNoun: kind.staleNoun,
-    subject: async (row) => ({ status: row.status, authorIds: [row.draftedById, row.lastEditedById] }),
+    subject: async (row) => ({ status: row.status, authorIds: [row.draftedById, row.lastEditedById], facts: { cited: row.referenceId != null } }),
     async apply(row, step, { actor, comment, now, transaction }) {
       switch (step.name) {
         case 'revise':

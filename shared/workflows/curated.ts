@@ -23,7 +23,19 @@ const OWN_WORK = 'You drafted or last edited it, so someone else must do this (f
 
 export const CURATED_STEPS: readonly CuratedStep[] = [
   { name: 'submit', label: 'Submit for review', from: ['draft'], to: 'in-review', permission: 'catalogue:draft', fourEyes: false, comment: 'none', notify: 'reviewers', tone: 'primary' },
-  { name: 'approve', label: 'Approve and publish', from: ['in-review'], to: 'published', permission: 'catalogue:approve', fourEyes: true, comment: 'none', notify: 'authors', tone: 'primary', refusals: { 'own-work': OWN_WORK } },
+  {
+    name: 'approve',
+    label: 'Approve and publish',
+    from: ['in-review'],
+    to: 'published',
+    permission: 'catalogue:approve',
+    fourEyes: true,
+    comment: 'none',
+    requires: { fact: 'cited', field: 'referenceId', reason: 'It cites no reference: a published record must. Return it so the author can add one.' },
+    notify: 'authors',
+    tone: 'primary',
+    refusals: { 'own-work': OWN_WORK },
+  },
   { name: 'return', label: 'Return to the author', from: ['in-review'], to: 'draft', permission: 'catalogue:approve', fourEyes: true, comment: 'required', commentAs: 'comment', notify: 'authors', tone: 'quiet', refusals: { 'own-work': OWN_WORK } },
   { name: 'revise', label: 'Revise', from: ['published'], to: 'new-version', permission: 'catalogue:draft', fourEyes: false, comment: 'none', notify: 'none', tone: 'quiet' },
   { name: 'retire', label: 'Retire', from: ['published'], to: 'retired', permission: 'catalogue:approve', fourEyes: false, comment: 'required', commentAs: 'reason', notify: 'none', tone: 'danger' },

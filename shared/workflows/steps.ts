@@ -5,6 +5,7 @@
  * says, for one viewer and one record, which steps are open and why the others are not; the
  * server runs steps from the same table (`server/workflows/run-step.ts`), so both sides agree.
  */
+import { z } from 'zod';
 import { can, type Permission, type Role } from '../roles';
 
 export interface StepRule<S extends string, N extends string> {
@@ -73,10 +74,10 @@ export function stepRefusal<S extends string, N extends string>(step: StepRule<S
 
 function generalRefusal<S extends string, N extends string>(step: StepRule<S, N>, subject: WorkflowSubject<S>, viewer: Viewer): Refusal | null {
   const isAuthor = subject.authorIds.some((id) => id === viewer.id);
-  if (!can(viewer.role, step.permission)) return { code: 'no-role', reason: 'Your role does not allow this step.' };
   if (!step.from.includes(subject.status)) return { code: 'wrong-status', reason: `Not possible while the record is ${subject.status}.` };
   if (step.authorOnly && !isAuthor) return { code: 'not-author', reason: 'Only the author can take this step.' };
   if (step.fourEyes && isAuthor) return { code: 'own-work', reason: 'You wrote or last edited it, so someone else must do this (four-eyes rule).' };
+  if (!can(viewer.role, step.permission)) return { code: 'no-role', reason: 'Your role does not allow this step.' };
   if (step.membersOnly && viewer.role !== 'admin' && subject.memberIds && !subject.memberIds.includes(viewer.id)) {
     return { code: 'not-member', reason: 'Only a member of the project can take this step.' };
   }
@@ -98,4 +99,16 @@ export function allowedSteps<S extends string, N extends string>(
 
 export function findStep<S extends string, N extends string>(steps: readonly StepRule<S, N>[], name: string): StepRule<S, N> | undefined {
   return steps.find((s) => s.name === name);
+}
+
+/** The words a step asks for, as the step dialog validates them before sending. */
+export function stepCommentSchema<S extends string, N extends string>(step: StepRule<S, N>) {
+  const reason = step.commentAs === 'reason';
+  const text = z
+    .string()
+    .trim()
+    .max(reason ? 2000 : 4000, `Keep it under ${reason ? 2000 : 4000} characters.`);
+  return z.object({
+    comment: step.comment === 'required' ? text.min(3, reason ? 'Give the reason, in a few words at least.' : 'Say what the author must change.') : text.optional(),
+  });
 }

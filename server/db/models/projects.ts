@@ -118,7 +118,7 @@ export function initProjectModels(db: Sequelize): void {
       createdAt: stamp,
       updatedAt: stamp,
     },
-    { sequelize: db, tableName: 'projects' },
+    { sequelize: db, tableName: 'projects', version: 'lockVersion' },
   );
   ProjectMember.init(
     {
@@ -142,7 +142,7 @@ export function initProjectModels(db: Sequelize): void {
       createdAt: stamp,
       updatedAt: stamp,
     },
-    { sequelize: db, tableName: 'load_cases' },
+    { sequelize: db, tableName: 'load_cases', version: 'lockVersion' },
   );
   Shortlist.init(
     {
@@ -161,7 +161,7 @@ export function initProjectModels(db: Sequelize): void {
       createdAt: stamp,
       updatedAt: stamp,
     },
-    { sequelize: db, tableName: 'shortlists' },
+    { sequelize: db, tableName: 'shortlists', version: 'lockVersion' },
   );
   ShortlistItem.init(
     {

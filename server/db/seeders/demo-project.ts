@@ -3,7 +3,8 @@ import { PropertySet, Material, User } from '../models';
 import { Project } from '../models/projects';
 import type { LoadCase } from '../../../shared/schemas/evaluate';
 import { addMember, createLoadCase, createProject } from '../../modules/projects/service';
-import { addItem, checkShortlist, createShortlist, submitShortlist } from '../../modules/projects/shortlists';
+import { addItem, createShortlist } from '../../modules/projects/shortlists';
+import { checkShortlist, submitShortlist } from '../../modules/projects/shortlist-steps';
 import type { Actor } from '../../modules/projects/access';
 
 /**
@@ -53,10 +54,10 @@ async function publishedSet(family: string, condition: RegExp): Promise<number> 
 
 export async function seedDemoProject(): Promise<boolean> {
   if ((await Project.count()) > 0) return false;
-  const byRole = async (role: string): Promise<Actor> => {
+  const byRole = async (role: string): Promise<Actor & { name: string }> => {
     const u = await User.findOne({ where: { email: { [Op.eq]: `${role}@harrow.example` } } });
     if (!u) throw new Error(`demo seed: ${role}@harrow.example is missing`);
-    return { id: u.id, role: u.role };
+    return { id: u.id, name: u.name, role: u.role };
   };
   const engineer = await byRole('engineer');
   const checker = await byRole('checker');

@@ -236,11 +236,6 @@ const propertySetKind: CuratedKind<PropertySet> = {
     return `${material?.name ?? 'Material'} — ${row.condition}`;
   },
   path: (id) => `/library/sets/${id}`,
-  async checkPublishable(row) {
-    if (row.referenceId == null) {
-      throw badRequest('A published set must cite a reference. Return it to the author to add one.', { referenceId: 'is required to publish' });
-    }
-  },
   revisionOf: (ps) => ({
     materialId: ps.materialId,
     referenceId: ps.referenceId,

@@ -180,7 +180,6 @@ const ratingTableKind: CuratedKind<RatingTable> = {
   },
   path: (id) => `/library/rating-tables/${id}`,
   async checkPublishable(row) {
-    if (row.referenceId == null) throw badRequest('A published rating table must cite a reference. Return it to the author to add one.', { referenceId: 'Is required to publish.' });
     // Tables drafted before a schema rule tightened are checked again before they reach the engine.
     const check = ratingTableContentSchema.safeParse({ name: row.name, geometry: row.geometry, includedAngle: row.includedAngle, limits: row.limits, grade: row.grade, note: row.note, data: row.data });
     if (!check.success) throw badRequest('The table does not pass the rating-table rules; return it to the author.', { data: check.error.issues[0]?.message ?? 'invalid' });

@@ -174,11 +174,11 @@ export function RatingTablePage({ me }: { me: SessionUserDto | null | undefined 
         <Panel title="Review">
           <WorkflowSteps
             steps={CURATED_STEPS}
-            subject={{ status: t.status, authorIds: [t.draftedBy?.id, t.lastEditedBy?.id] }}
+            subject={{ status: t.status, authorIds: [t.draftedBy?.id, t.lastEditedBy?.id], facts: { cited: t.reference !== null } }}
             viewer={{ id: me.id, role: me.role }}
             busy={step.isPending}
-            error={step.error ? (step.error as Error).message : null}
             onStep={onStep}
+            onReload={() => void query.refetch()}
           />
           <p className="mt-2 text-xs text-ink-soft">
             {t.draftedBy ? `Drafted by ${t.draftedBy.name}. ` : 'Seeded from public sources. '}
