@@ -1,5 +1,5 @@
 import type { CandidateResult, FailureMode } from '@shared/engine';
-import tokens from '../../tailwind.config';
+import { MODE_COLOURS } from '@shared/design-tokens';
 import { useUnits } from '@/lib/unit-system';
 import { sizedByText } from '@shared/labels';
 
@@ -11,7 +11,7 @@ export const MODE_LABELS: Record<FailureMode, string> = {
 };
 
 /** One colour per failure mode, used in tables, charts and the design record. */
-export const MODE_COLOURS: Record<FailureMode, string> = tokens.theme.extend.colors.mode;
+export { MODE_COLOURS };
 
 export function ModeTag({ mode }: { mode: CandidateResult['governingMode'] }) {
   return (

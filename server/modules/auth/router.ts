@@ -8,7 +8,7 @@ import { toSessionUser } from '../../auth/passport';
 import { open } from '../../auth/authorize';
 import { lockRemaining, recordFailure, recordSuccess } from '../../auth/lockout';
 import { env } from '../../config/env';
-import { User } from '../../db/models';
+import { recordSignIn } from './service';
 
 export function authRouter(): Router {
   const router = Router();
@@ -43,7 +43,7 @@ export function authRouter(): Router {
       // req.logIn regenerates the session id (passport ≥ 0.6), so a planted id is useless.
       req.logIn(user, (loginErr) => {
         if (loginErr) return next(loginErr);
-        User.update({ lastLoginAt: new Date() }, { where: { id: user.id } })
+        recordSignIn(user.id)
           .then(() => res.json({ user: toSessionUser(user) }))
           .catch(next);
       });

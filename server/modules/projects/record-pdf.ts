@@ -3,7 +3,7 @@ import { createRequire } from 'node:module';
 import path from 'node:path';
 import type { DesignRecordContent } from '../../../shared/schemas/projects';
 import { modeMargin, type FailureMode } from '../../../shared/engine';
-import tokens from '../../../tailwind.config';
+import { colors, MODE_COLOURS } from '../../../shared/design-tokens';
 import { factorsText, sizedByText } from '../../../shared/labels';
 
 /**
@@ -20,10 +20,9 @@ const FONTS = {
   italic: path.join(fontDir, 'DejaVuSans-Oblique.ttf'),
 };
 
-const MODE_COLOURS = tokens.theme.extend.colors.mode as Record<FailureMode, string>;
-const INK = '#10242f';
-const SOFT = '#3b5360';
-const LINE = '#d9d4c7';
+const INK = colors.ink.DEFAULT;
+const SOFT = colors.ink.soft;
+const LINE = colors.chart.line;
 const MARGIN = 48;
 
 const mpa = (pa: number) => `${(pa / 1e6).toFixed(pa < 1e7 ? 3 : 1)} MPa`;
@@ -225,7 +224,7 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
       doc.font('Body-Italic').fontSize(7.5).fillColor(SOFT).text(`Model: ${m.model}`, { indent: 10 });
     }
     if (r.warnings.length) {
-      doc.moveDown(0.3).font('Body-Bold').fontSize(8.5).fillColor('#a36a00').text('Warnings');
+      doc.moveDown(0.3).font('Body-Bold').fontSize(8.5).fillColor(colors.verdict.watch).text('Warnings');
       for (const w of r.warnings) doc.font('Body').fontSize(8).fillColor(INK).text(`• ${w}`, { indent: 6 });
     }
     doc.moveDown(0.3);

@@ -1,7 +1,7 @@
 import { Bar } from 'react-chartjs-2';
-import './setup';
 import { FAILURE_MODES, modeMargin, type CandidateResult } from '@shared/engine';
 import { MODE_COLOURS, MODE_LABELS } from '@/components/failure-modes';
+import { palette } from './setup';
 
 /**
  * Each candidate's margin in every mode it has (tension, compression, shear, buckling), against
@@ -40,7 +40,7 @@ export function MarginChart({ results }: { results: CandidateResult[] }) {
               tooltip: { callbacks: { label: (ctx) => `${ctx.dataset.label}: ${((ctx.parsed.x ?? 0) * 100).toFixed(0)} %` } },
             },
             scales: {
-              x: { min: -1, suggestedMax: 2, title: { display: true, text: 'margin (safety factor / target − 1)' }, grid: { color: (c) => (c.tick.value === 0 ? '#10242f' : '#e8e4d9') } },
+              x: { min: -1, suggestedMax: 2, title: { display: true, text: 'margin (safety factor / target − 1)' }, grid: { color: (c) => (c.tick.value === 0 ? palette.ink.DEFAULT : palette.chart.deep) } },
               y: { ticks: { autoSkip: false, font: { size: 11 } } },
             },
           }}

@@ -6,8 +6,7 @@ import { ReferenceCard } from '@/components/reference-card';
 import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
 import { toDisplay, type QuantityKind } from '@/lib/units';
-import { useRatingTables } from '@/features/rating-tables/api/rating-tables';
-import { RatingTableSummary } from '@/features/rating-tables/components/rating-table-pages';
+import { RatingTableSummary, useRatingTables } from '@/features/rating-tables';
 
 const FactorChart = lazy(() => import('@/components/charts/factor-chart').then((m) => ({ default: m.FactorChart })));
 

@@ -1,6 +1,6 @@
 import { useMemo } from 'react';
 import { Line } from 'react-chartjs-2';
-import '@/components/charts/setup';
+import { palette } from '@/components/charts/setup';
 import { sweepThickness, type CandidateMaterial } from '@shared/engine';
 import type { LoadCaseInput } from '@shared/schemas/evaluate';
 import { useUnits } from '@/lib/unit-system';
@@ -34,7 +34,7 @@ export function ThicknessChart({ loadCase, candidate, thickness, requiredThickne
       })),
       {
         label: `Target ${sweep.targetSafetyFactor}`,
-        borderColor: '#10242f',
+        borderColor: palette.ink.DEFAULT,
         borderDash: [6, 4],
         borderWidth: 1,
         pointRadius: 0,
@@ -45,7 +45,7 @@ export function ThicknessChart({ loadCase, candidate, thickness, requiredThickne
       },
       {
         label: 'Evaluated thickness',
-        borderColor: '#9c6a1c',
+        borderColor: palette.brass.DEFAULT,
         borderWidth: 1.5,
         pointRadius: 0,
         data: [
