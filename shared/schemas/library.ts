@@ -17,6 +17,14 @@ const id = z.number().int().positive().max(2_147_483_647);
 export const lockVersionSchema = z.number().int().min(0).max(2_147_483_647);
 
 /**
+ * Runs a rule across fields whenever the fields it compares are valid, even when others are not,
+ * so one check reports every problem (zod skips object refinements after any other issue).
+ */
+const whenValid = (fields: z.ZodType) => ({ when: (payload: { value: unknown }) => fields.safeParse(payload.value).success });
+const yieldAndStrength = propertyValuesSchema.pick({ tensileStrength: true, tensileYield: true });
+const anyObject = z.object({});
+
+/**
  * A draft's content. Either an existing material (materialId) or a new one (material), and
  * either an existing reference (referenceId) or a new one (reference). A draft may lack a
  * reference; it cannot be approved without one.
@@ -33,14 +41,17 @@ export const draftInputSchema = propertyValuesSchema
   .refine((d) => (d.materialId === undefined) !== (d.material === undefined), {
     message: 'Choose an existing material or describe a new one (not both)',
     path: ['materialId'],
+    ...whenValid(anyObject),
   })
   .refine((d) => !(d.referenceId && d.reference), {
     message: 'Choose an existing reference or describe a new one (not both)',
     path: ['referenceId'],
+    ...whenValid(anyObject),
   })
   .refine((d) => d.tensileYield == null || d.tensileYield <= d.tensileStrength, {
     message: 'Tensile yield cannot exceed tensile strength',
     path: ['tensileYield'],
+    ...whenValid(yieldAndStrength),
   });
 export type DraftInput = z.input<typeof draftInputSchema>;
 export type DraftData = z.output<typeof draftInputSchema>;
