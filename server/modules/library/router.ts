@@ -25,7 +25,7 @@ import {
   updateDraft,
   type Actor,
 } from './service';
-import { previewImport, runImport, templateCsv } from './csv-import';
+import { previewImport, runImport, templateCsv } from './import';
 
 const actor = (req: Express.Request): Actor => ({ id: req.user!.id, name: req.user!.name });
 const body = (req: Express.Request & { body?: unknown }) => req.body ?? {};
