@@ -82,5 +82,3 @@ export function unitOfColumn(column: ImportColumn): UnitDef | undefined {
   return unit;
 }
 
-/** What the import page shows beside a column: the unit, then the help. */
-export const columnHint = (column: ImportColumn): string => (column.unit ? `${column.unit} — ${column.help}` : column.help);
