@@ -20,7 +20,9 @@ export const notFoundApi: RequestHandler = (_req, res) => {
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   if (res.headersSent) return;
   if (err instanceof AppError) {
-    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    res.status(err.status).json({
+      error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}), ...(err.rows ? { issues: err.rows.issues, issueCount: err.rows.issueCount } : {}) },
+    });
     return;
   }
   const status = (err as { status?: number; statusCode?: number }).status ?? (err as { statusCode?: number }).statusCode;

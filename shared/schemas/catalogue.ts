@@ -94,7 +94,8 @@ export type ValueDetail = z.infer<typeof valueDetailSchema>;
 
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
 const positive = finite.refine((v) => v > 0, 'must be greater than zero');
-const fraction = finite.refine((v) => v >= 0 && v <= 1, 'must be between 0 and 1');
+const fraction = finite.refine((v) => v >= 0 && v <= 1, 'must be between 0 and 1 (0 to 100 %)');
+const temperatureC = finite.refine((v) => v >= -273.15, 'must not be below absolute zero (-273.15 °C)');
 
 /** Strength factor (multiplier on the reference-condition strength) against a variable. */
 export const temperaturePointSchema = z.object({ temperature: finite, factor: positive });
@@ -103,6 +104,8 @@ export const cyclesPointSchema = z.object({ cycles: finite.refine((v) => v >= 0,
 export type TemperaturePoint = z.infer<typeof temperaturePointSchema>;
 export type HoursPoint = z.infer<typeof hoursPointSchema>;
 export type CyclesPoint = z.infer<typeof cyclesPointSchema>;
+
+const bothNumbers = z.object({ min: finite, max: finite });
 
 /** The values of a property set, as stored and exchanged (SI). */
 export const propertyValuesSchema = z.object({
@@ -117,9 +120,12 @@ export const propertyValuesSchema = z.object({
   shearYield: positive.nullish(),
   elongation: fraction.nullish(),
   luminousTransmittance: fraction.nullish(),
-  serviceTemperature: z
-    .object({ min: finite, max: finite })
-    .refine((r) => r.min <= r.max, { message: 'min must not exceed max', path: ['max'] }),
+  serviceTemperature: z.object({ min: temperatureC, max: temperatureC }).refine((r) => r.min <= r.max, {
+    message: 'min must not exceed max',
+    path: ['max'],
+    // Compared whenever both ends are numbers, even if one is below absolute zero.
+    when: (payload) => bothNumbers.safeParse(payload.value).success,
+  }),
   valueDetails: z.partialRecord(z.enum(QUANTITIES), valueDetailSchema).default({}),
   temperatureFactors: z.array(temperaturePointSchema).max(50).default([]),
   sustainedLoadFactors: z.array(hoursPointSchema).max(50).default([]),

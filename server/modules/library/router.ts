@@ -13,7 +13,7 @@ import {
   transitionSchema,
 } from '../../../shared/schemas/library';
 import { createDraft, getChanges, getLibrarySet, listQueue, stepSet, updateDraft, type Actor } from './service';
-import { previewImport, runImport, templateCsv } from './csv-import';
+import { previewImport, runImport, templateCsv } from './import';
 
 const actor = (req: Express.Request): Actor => ({ id: req.user!.id, name: req.user!.name, role: req.user!.role });
 const body = (req: Express.Request & { body?: unknown }) => req.body ?? {};

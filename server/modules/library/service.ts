@@ -106,8 +106,8 @@ export async function getChanges(id: number): Promise<{ previous: LibrarySetDto 
 // ---------------------------------------------------------------------------------------------
 // Writing helpers
 
-/** A new id from the table's sequence, so a new lineage can be its own first id in one insert. */
-async function nextSetIds(transaction: Transaction, count: number): Promise<number[]> {
+/** New ids from the table's sequence, so a new lineage can be its own first id in one insert. */
+export async function nextSetIds(transaction: Transaction, count: number): Promise<number[]> {
   const [rows] = await sequelize().query(
     `SELECT nextval(pg_get_serial_sequence('property_sets', 'id'))::integer AS id FROM generate_series(1, :count)`,
     { transaction, replacements: { count } },
@@ -115,7 +115,8 @@ async function nextSetIds(transaction: Transaction, count: number): Promise<numb
   return (rows as { id: number }[]).map((r) => r.id);
 }
 
-function valuesOf(d: DraftData) {
+/** A draft's values as PropertySet attributes: the one mapping of draft fields to the table (desk and import). */
+export function valuesOf(d: DraftData) {
   return {
     condition: d.condition,
     density: d.density,
