@@ -8,7 +8,7 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { LoadCase } from '../../../shared/schemas/evaluate';
-import type { DesignRecordContent, ShortlistStatus } from '../../../shared/schemas/projects';
+import type { DesignRecordContent, ShortlistRoundDto, ShortlistStatus, ShortlistSubmission } from '../../../shared/schemas/projects';
 import type { Role } from '../../../shared/schemas/auth';
 import { PropertySet, User } from './index';
 
@@ -57,6 +57,10 @@ export class Shortlist extends Model<InferAttributes<Shortlist>, InferCreationAt
   declare checkedAt: Date | null;
   declare returnedComment: string | null;
   declare checkComment: string | null;
+  /** What the current submission froze; null while open or returned. */
+  declare submission: CreationOptional<ShortlistSubmission | null>;
+  /** Every round of submit → return or check, oldest first. */
+  declare rounds: CreationOptional<ShortlistRoundDto[]>;
   declare lockVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -157,6 +161,8 @@ export function initProjectModels(db: Sequelize): void {
       checkedAt: { type: DataTypes.DATE },
       returnedComment: { type: DataTypes.TEXT },
       checkComment: { type: DataTypes.TEXT },
+      submission: { type: DataTypes.JSONB },
+      rounds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       createdAt: stamp,
       updatedAt: stamp,

@@ -169,6 +169,13 @@ export async function updateLoadCase(actor: Actor, loadCaseId: number, input: z.
       { name: input.name, loadCase: input.loadCase, filters: input.filters ?? null, notes: input.notes },
       { transaction },
     );
+    // A shortlist read before this edit must not be submitted or checked on the strength of that
+    // read: every live shortlist on this load case moves to a new version (a stale step gets 409).
+    // (Raw SQL: Model.increment does not map lockVersion to its underscored column.)
+    await sequelize().query(
+      `UPDATE shortlists SET lock_version = lock_version + 1, updated_at = now() WHERE load_case_id = :id AND status IN ('open', 'submitted', 'returned')`,
+      { replacements: { id: lc.id }, transaction },
+    );
     await recordAudit(transaction, { actorId: actor.id, action: 'update', entityType: 'load-case', entityId: String(lc.id), before, after: input });
     return loadCaseDto(await lc.reload({ include: withCreator, transaction }));
   });

@@ -6,6 +6,7 @@ import { DesignRecord, LoadCaseRecord, Shortlist, ShortlistItem } from '../../db
 import type {
   ShortlistDto,
   ShortlistItemDto,
+  ShortlistSubmission,
   shortlistCreateSchema,
   shortlistItemAddSchema,
   shortlistReorderSchema,
@@ -81,30 +82,43 @@ async function evaluateItems(shortlist: Shortlist, sets: PropertySetDto[]) {
   return evaluate({ loadCase: shortlist.loadCaseRecord!.loadCase, candidates, limit: sets.length });
 }
 
-export async function shortlistDto(shortlist: Shortlist): Promise<ShortlistDto> {
+/** The items, load case and evaluation as evaluated now, against today's catalogue. */
+async function liveInputs(shortlist: Shortlist): Promise<Omit<ShortlistSubmission, 'round' | 'submittedAt'>> {
   const items = shortlist.items ?? [];
   const sets = items.map((i) => propertySetDto(i.propertySet!));
-  const lineages = new Map(items.map((i) => [i.propertySetId, i.propertySet!.lineageId]));
-  const [newer, record] = await Promise.all([
-    newerVersions(sets, lineages),
-    DesignRecord.findOne({ where: { shortlistId: shortlist.id }, attributes: ['id'] }),
-  ]);
   const evaluation = await evaluateItems(shortlist, sets);
   const resultFor = (id: number): CandidateResult | null => evaluation?.results.find((r) => r.propertySetId === id) ?? null;
-  const itemDtos: ShortlistItemDto[] = items.map((item, i) => ({
-    id: item.id,
-    position: item.position,
-    note: item.note,
-    propertySet: sets[i],
-    result: resultFor(item.propertySetId),
-    newerVersionId: newer.get(item.propertySetId) ?? null,
-  }));
+  return {
+    loadCase: loadCaseDto(shortlist.loadCaseRecord!),
+    evaluation: evaluation ? { pressure: evaluation.pressure, proofTestPressure: evaluation.proofTestPressure, pressureMethod: evaluation.pressureMethod } : null,
+    items: items.map((item, i) => ({ id: item.id, position: item.position, note: item.note, propertySet: sets[i], result: resultFor(item.propertySetId) })),
+  };
+}
+
+/** What a submission freezes: the shortlist's inputs and results as they are at this moment. */
+export async function submissionOf(shortlist: Shortlist, round: number, now: Date): Promise<ShortlistSubmission> {
+  return { round, submittedAt: now.toISOString(), ...(await liveInputs(shortlist)) };
+}
+
+/**
+ * The shortlist as its reader sees it. While it is submitted or checked, the load case, the items
+ * and their results are those it was submitted with: what the checker reviews is what is signed.
+ */
+export async function shortlistDto(shortlist: Shortlist): Promise<ShortlistDto> {
+  const frozen = shortlist.submission && (shortlist.status === 'submitted' || shortlist.status === 'checked') ? shortlist.submission : null;
+  const inputs = frozen ?? (await liveInputs(shortlist));
+  const sets = inputs.items.map((i) => i.propertySet);
+  const [newer, record] = await Promise.all([
+    newerVersions(sets, new Map(sets.map((s) => [s.id, s.lineageId ?? null]))),
+    DesignRecord.findOne({ where: { shortlistId: shortlist.id }, attributes: ['id'] }),
+  ]);
+  const itemDtos: ShortlistItemDto[] = inputs.items.map((item) => ({ ...item, newerVersionId: newer.get(item.propertySet.id) ?? null }));
   return {
     id: shortlist.id,
     projectId: shortlist.projectId,
     name: shortlist.name,
     status: shortlist.status,
-    loadCase: loadCaseDto(shortlist.loadCaseRecord!),
+    loadCase: inputs.loadCase,
     author: userSummary(shortlist.author!),
     checker: shortlist.checker ? userSummary(shortlist.checker) : null,
     submittedAt: shortlist.submittedAt?.toISOString() ?? null,
@@ -113,7 +127,9 @@ export async function shortlistDto(shortlist: Shortlist): Promise<ShortlistDto> 
     checkComment: shortlist.checkComment,
     lockVersion: shortlist.lockVersion,
     items: itemDtos,
-    evaluation: evaluation ? { pressure: evaluation.pressure, proofTestPressure: evaluation.proofTestPressure, pressureMethod: evaluation.pressureMethod } : null,
+    evaluation: inputs.evaluation,
+    frozenInputs: frozen !== null,
+    rounds: shortlist.rounds ?? [],
     designRecordId: record?.id ?? null,
   };
 }
