@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { ListDto } from './responses';
 
 /** Material families in the catalogue. Slugs are stable API values; labels are for screens. */
 export const FAMILIES = [
@@ -241,3 +242,11 @@ export interface PropertySetListDto {
   items: PropertySetDto[];
   total: number;
 }
+
+/** GET /api/materials/:id: a material with the property sets the caller may read. */
+export interface MaterialDetailDto extends MaterialDto {
+  propertySets: PropertySetDto[];
+}
+
+/** GET /api/materials: every material, by family then name. */
+export type MaterialListDto = ListDto<MaterialDto>;

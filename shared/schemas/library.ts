@@ -11,6 +11,7 @@ import {
   type PropertySetDto,
   type ReferenceDto,
 } from './catalogue';
+import type { ItemsDto, ListDto } from './responses';
 
 const id = z.number().int().positive().max(2_147_483_647);
 /** Optimistic lock: the version the client last read; a stale one gets 409. */
@@ -99,6 +100,9 @@ export interface LibrarySetDto extends PropertySetDto {
   submittedAt: string | null;
 }
 
+/** GET /api/library/sets: the desk's queue. */
+export type LibrarySetListDto = ListDto<LibrarySetDto>;
+
 export interface ReferenceDetailDto extends ReferenceDto {
   lockVersion: number;
   document: { name: string; size: number; uploadedAt: string } | null;
@@ -106,11 +110,20 @@ export interface ReferenceDetailDto extends ReferenceDto {
   usedBy: number;
 }
 
+/** GET /api/references. */
+export type ReferenceListDto = ListDto<ReferenceDetailDto>;
+
 /** One changed value between a set and the version it supersedes. */
 export interface ValueChangeDto {
   field: string;
   before: unknown;
   after: unknown;
+}
+
+/** GET /api/library/sets/:id/changes: what differs from the version the set supersedes (none: previous is null). */
+export interface SetChangesDto {
+  previous: LibrarySetDto | null;
+  changes: ValueChangeDto[];
 }
 
 /** CSV import: one problem in one cell (row is the 1-based data row, header excluded). */
@@ -155,6 +168,14 @@ export interface CaughtMailDto {
   to: string[];
   subject: string;
   text: string;
+}
+
+/** GET /api/admin/audit: one page, newest first. */
+export type AuditPageDto = ItemsDto<AuditEntryDto>;
+
+/** GET /api/admin/mail; enabled = the app knows where the local catcher saves mail. */
+export interface CaughtMailListDto extends ItemsDto<CaughtMailDto> {
+  enabled: boolean;
 }
 
 /** The CSV template's columns: units are part of the header, values convert to SI on import. */

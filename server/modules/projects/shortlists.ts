@@ -9,6 +9,8 @@ import type {
   DesignRecordDto,
   ShortlistDto,
   ShortlistItemDto,
+  ShortlistSummaryDto,
+  DesignRecordSummaryDto,
   shortlistCreateSchema,
   shortlistItemAddSchema,
   shortlistReorderSchema,
@@ -123,18 +125,7 @@ async function shortlistDto(shortlist: Shortlist): Promise<ShortlistDto> {
   };
 }
 
-export interface ShortlistSummary {
-  id: number;
-  name: string;
-  status: Shortlist['status'];
-  loadCaseId: number;
-  author: { id: number; name: string };
-  itemCount: number;
-  designRecordId: number | null;
-  updatedAt: string;
-}
-
-export async function listShortlists(actor: Actor, projectId: number): Promise<ShortlistSummary[]> {
+export async function listShortlists(actor: Actor, projectId: number): Promise<ShortlistSummaryDto[]> {
   await visibleProject(actor, projectId);
   const rows = await Shortlist.findAll({
     where: { projectId },
@@ -372,7 +363,7 @@ export async function getDesignRecord(actor: Actor, recordId: number): Promise<D
   };
 }
 
-export async function listDesignRecords(actor: Actor, projectId: number) {
+export async function listDesignRecords(actor: Actor, projectId: number): Promise<DesignRecordSummaryDto[]> {
   await visibleProject(actor, projectId);
   const rows = await DesignRecord.findAll({ where: { projectId }, order: [['createdAt', 'DESC']] });
   return rows.map((r) => ({

@@ -5,6 +5,7 @@ import { User } from '../../db/models';
 import { Invitation, PasswordReset } from '../../db/models/projects';
 import type { Role } from '../../../shared/schemas/auth';
 import { ROLE_LABELS } from '../../../shared/schemas/auth';
+import type { AdminUserDto, InvitationCreatedDto, InvitationDto } from '../../../shared/schemas/projects';
 import { AppError, badRequest, conflict, notFound } from '../../errors';
 import { hashPassword, verifyPassword } from '../../auth/passwords';
 import { recordAudit } from '../../services/audit';
@@ -19,16 +20,6 @@ export const RESET_HOURS = 1;
 const newToken = () => randomBytes(32).toString('base64url');
 const tokenHash = (token: string) => createHash('sha256').update(token).digest('hex');
 const link = (path: string) => `${env().APP_URL.replace(/\/$/, '')}${path}`;
-
-export interface AdminUserDto {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  active: boolean;
-  lastLoginAt: string | null;
-  createdAt: string;
-}
 
 const adminUserDto = (u: User): AdminUserDto => ({
   id: u.id,
@@ -70,7 +61,7 @@ export async function updateUser(actorId: number, userId: number, change: { role
   return adminUserDto(user);
 }
 
-export async function listInvitations() {
+export async function listInvitations(): Promise<InvitationDto[]> {
   const rows = await Invitation.findAll({ order: [['createdAt', 'DESC']], limit: 200 });
   const now = Date.now();
   return rows.map((i) => ({
@@ -84,7 +75,7 @@ export async function listInvitations() {
 }
 
 /** Invites by e-mail with a one-time link; an address that already has an account is refused. */
-export async function invite(actorId: number, email: string, role: Role): Promise<{ id: number; email: string; role: Role; expiresAt: string }> {
+export async function invite(actorId: number, email: string, role: Role): Promise<InvitationCreatedDto> {
   const token = newToken();
   const invitation = await sequelize().transaction(async (transaction) => {
     if (await User.findOne({ where: { email }, transaction })) {
