@@ -38,14 +38,6 @@ export const REFERENCE_KINDS = ['standard', 'handbook', 'paper', 'test-report', 
 export const referenceKindSchema = z.enum(REFERENCE_KINDS);
 export type ReferenceKind = z.infer<typeof referenceKindSchema>;
 
-export const REFERENCE_KIND_LABELS: Record<ReferenceKind, string> = {
-  standard: 'Standard',
-  handbook: 'Handbook',
-  paper: 'Paper',
-  'test-report': 'Test report',
-  'supplier-data-sheet': 'Supplier data sheet',
-};
-
 /** How a value was established. */
 export const VALUE_BASES = ['minimum', 'typical', 'statistical-allowable'] as const;
 export const valueBasisSchema = z.enum(VALUE_BASES);

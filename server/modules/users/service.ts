@@ -10,7 +10,7 @@ import { AppError, badRequest, conflict, notFound } from '../../errors';
 import { hashPassword, verifyPassword } from '../../auth/passwords';
 import { recordAudit } from '../../services/audit';
 import { sendMailSafely } from '../../services/mail';
-import { env } from '../../config/env';
+import { appLink } from '../../services/app-link';
 import { forgetSessionsOf } from '../../auth/session-cache';
 
 export const INVITATION_HOURS = 72;
@@ -19,7 +19,6 @@ export const RESET_HOURS = 1;
 /** Tokens travel by e-mail; only their SHA-256 is stored, so a database leak reveals none. */
 const newToken = () => randomBytes(32).toString('base64url');
 const tokenHash = (token: string) => createHash('sha256').update(token).digest('hex');
-const link = (path: string) => `${env().APP_URL.replace(/\/$/, '')}${path}`;
 
 const adminUserDto = (u: User): AdminUserDto => ({
   id: u.id,
@@ -93,7 +92,7 @@ export async function invite(actorId: number, email: string, role: Role): Promis
     subject: 'You are invited to Isobath',
     text:
       `You have been invited to Isobath as ${ROLE_LABELS[role].toLowerCase()}.\n\n` +
-      `Choose your password within ${INVITATION_HOURS} hours: ${link(`/welcome?token=${token}`)}\n\n` +
+      `Choose your password within ${INVITATION_HOURS} hours: ${appLink(`/welcome?token=${token}`)}\n\n` +
       `The link works once. If you did not expect this, ignore this message.\n\n— Isobath`,
   });
   return { id: invitation.id, email, role, expiresAt: invitation.expiresAt.toISOString() };
@@ -129,7 +128,7 @@ export async function requestPasswordReset(email: string): Promise<void> {
     subject: 'Reset your Isobath password',
     text:
       `Someone asked to reset the password of your Isobath account.\n\n` +
-      `Choose a new one within ${RESET_HOURS} hour: ${link(`/reset-password?token=${token}`)}\n\n` +
+      `Choose a new one within ${RESET_HOURS} hour: ${appLink(`/reset-password?token=${token}`)}\n\n` +
       `The link works once. If it was not you, ignore this message; your password stays as it is.\n\n— Isobath`,
   });
 }

@@ -3,7 +3,7 @@ import type { PropertySetDto } from '@shared/schemas/catalogue';
 import type { Permission, Role } from '@shared/schemas/auth';
 import type { ShortlistStatus } from '@shared/schemas/projects';
 import { formatQuantity, unitOf, type QuantityKind, type UnitSystem } from '@/lib/units';
-import { formatMargin } from '@/components/failure-modes';
+import { formatMargin } from '@shared/labels';
 
 export const SHORTLIST_STATUS_LABELS: Record<ShortlistStatus, string> = {
   open: 'open',
