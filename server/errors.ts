@@ -1,6 +1,7 @@
 import type { ZodError } from 'zod';
+import type { ErrorCode, FieldErrors } from '../shared/errors';
 
-export type FieldErrors = Record<string, string>;
+export type { ErrorCode, FieldErrors };
 
 /** Problems in the rows of an uploaded file, kept structured (row 1 = first data row). */
 export interface RowIssues {
@@ -16,7 +17,7 @@ export interface RowIssues {
 export class AppError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    readonly code: ErrorCode,
     message: string,
     readonly fields?: FieldErrors,
     readonly rows?: RowIssues,
@@ -25,12 +26,12 @@ export class AppError extends Error {
   }
 }
 
-export const badRequest = (message: string, fields?: FieldErrors, code = 'invalid_input', rows?: RowIssues) =>
+export const badRequest = (message: string, fields?: FieldErrors, code: ErrorCode = 'invalid_input', rows?: RowIssues) =>
   new AppError(400, code, message, fields, rows);
 export const unauthorized = (message = 'Sign in to continue.') => new AppError(401, 'unauthenticated', message);
 export const forbidden = (message = 'Your role does not allow this.') => new AppError(403, 'forbidden', message);
 export const notFound = (what = 'The requested item') => new AppError(404, 'not_found', `${what} was not found.`);
-export const conflict = (message: string, code = 'conflict') => new AppError(409, code, message);
+export const conflict = (message: string, code: ErrorCode = 'conflict') => new AppError(409, code, message);
 export const unavailable = (message = 'The database is unavailable. Try again in a moment.') =>
   new AppError(503, 'unavailable', message);
 

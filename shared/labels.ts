@@ -2,6 +2,8 @@
  * Words shown for the domain's values, written once for the client, the record and its PDF.
  */
 import type { ComponentType } from './schemas/evaluate';
+import type { ReferenceKind, ValueBasis } from './schemas/catalogue';
+import type { FailureMode } from './engine/types';
 
 export const COMPONENT_LABELS: Record<ComponentType, string> = {
   'flat-disc': 'Flat disc window',
@@ -11,6 +13,34 @@ export const COMPONENT_LABELS: Record<ComponentType, string> = {
   cylinder: 'Cylindrical shell between stiffeners',
   'ring-stiffened-cylinder': 'Ring-stiffened cylinder',
 };
+
+export const FAILURE_MODE_LABELS: Record<FailureMode, string> = {
+  tension: 'Tension',
+  compression: 'Compression',
+  shear: 'Shear',
+  buckling: 'Buckling',
+};
+
+/** How a property value was established. */
+export const VALUE_BASIS_LABELS: Record<ValueBasis, string> = {
+  minimum: 'Minimum',
+  typical: 'Typical',
+  'statistical-allowable': 'Statistical allowable',
+};
+
+/** What kind of source a reference is. */
+export const REFERENCE_KIND_LABELS: Record<ReferenceKind, string> = {
+  standard: 'Standard',
+  handbook: 'Handbook',
+  paper: 'Paper',
+  'test-report': 'Test report',
+  'supplier-data-sheet': 'Supplier data sheet',
+};
+
+/** Margin = safety factor / target − 1, as a signed whole percentage ("+15 %", "-20 %"). */
+export function formatMargin(margin: number): string {
+  return `${margin >= 0 ? '+' : ''}${(margin * 100).toFixed(0)} %`;
+}
 
 /** Which components are windows (a rating table can cover them; human-occupancy rules apply). */
 export const WINDOW_COMPONENTS: readonly ComponentType[] = ['flat-disc', 'conical-frustum', 'spherical-sector'];

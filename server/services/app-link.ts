@@ -1,6 +1,9 @@
 import { env } from '../config/env';
 
-/** The app's address for a path, for links in e-mails: `appLink('/records/4')`. */
+/**
+ * An absolute link into the app, for e-mails: APP_URL without its trailing slashes, then the
+ * path, which starts with "/" (e.g. appLink(`/shortlists/${id}`)).
+ */
 export function appLink(path: string): string {
   return `${env().APP_URL.replace(/\/+$/, '')}${path.startsWith('/') ? path : `/${path}`}`;
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { ListDto } from './responses';
 
 /** Material families in the catalogue. Slugs are stable API values; labels are for screens. */
 export const FAMILIES = [
@@ -36,14 +37,6 @@ export type PropertySetStatus = z.infer<typeof propertySetStatusSchema>;
 export const REFERENCE_KINDS = ['standard', 'handbook', 'paper', 'test-report', 'supplier-data-sheet'] as const;
 export const referenceKindSchema = z.enum(REFERENCE_KINDS);
 export type ReferenceKind = z.infer<typeof referenceKindSchema>;
-
-export const REFERENCE_KIND_LABELS: Record<ReferenceKind, string> = {
-  standard: 'Standard',
-  handbook: 'Handbook',
-  paper: 'Paper',
-  'test-report': 'Test report',
-  'supplier-data-sheet': 'Supplier data sheet',
-};
 
 /** How a value was established. */
 export const VALUE_BASES = ['minimum', 'typical', 'statistical-allowable'] as const;
@@ -247,3 +240,11 @@ export interface PropertySetListDto {
   items: PropertySetDto[];
   total: number;
 }
+
+/** GET /api/materials/:id: a material with the property sets the caller may read. */
+export interface MaterialDetailDto extends MaterialDto {
+  propertySets: PropertySetDto[];
+}
+
+/** GET /api/materials: every material, by family then name. */
+export type MaterialListDto = ListDto<MaterialDto>;

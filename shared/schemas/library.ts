@@ -10,6 +10,7 @@ import {
   type PropertySetDto,
   type ReferenceDto,
 } from './catalogue';
+import type { ItemsDto, ListDto } from './responses';
 
 const id = z.number().int().positive().max(2_147_483_647);
 /** Optimistic lock: the version the client last read; a stale one gets 409. */
@@ -109,6 +110,9 @@ export interface LibrarySetDto extends PropertySetDto {
   submittedAt: string | null;
 }
 
+/** GET /api/library/sets: the desk's queue. */
+export type LibrarySetListDto = ListDto<LibrarySetDto>;
+
 export interface ReferenceDetailDto extends ReferenceDto {
   lockVersion: number;
   document: { name: string; size: number; uploadedAt: string } | null;
@@ -116,11 +120,20 @@ export interface ReferenceDetailDto extends ReferenceDto {
   usedBy: number;
 }
 
+/** GET /api/references. */
+export type ReferenceListDto = ListDto<ReferenceDetailDto>;
+
 /** One changed value between a set and the version it supersedes. */
 export interface ValueChangeDto {
   field: string;
   before: unknown;
   after: unknown;
+}
+
+/** GET /api/library/sets/:id/changes: what differs from the version the set supersedes (none: previous is null). */
+export interface SetChangesDto {
+  previous: LibrarySetDto | null;
+  changes: ValueChangeDto[];
 }
 
 /**
@@ -168,6 +181,14 @@ export interface CaughtMailDto {
   to: string[];
   subject: string;
   text: string;
+}
+
+/** GET /api/admin/audit: one page, newest first. */
+export type AuditPageDto = ItemsDto<AuditEntryDto>;
+
+/** GET /api/admin/mail; enabled = the app knows where the local catcher saves mail. */
+export interface CaughtMailListDto extends ItemsDto<CaughtMailDto> {
+  enabled: boolean;
 }
 
 /** The CSV import's columns, each declared once (name, draft path, unit, required, help). */

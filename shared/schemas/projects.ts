@@ -187,3 +187,54 @@ export interface DesignRecordDto {
   newerData: { propertySetId: number; newerVersionId: number; name: string }[];
   createdAt: string;
 }
+
+/** A row of GET /api/projects/:id/shortlists. */
+export interface ShortlistSummaryDto {
+  id: number;
+  name: string;
+  status: ShortlistStatus;
+  loadCaseId: number;
+  author: { id: number; name: string };
+  itemCount: number;
+  designRecordId: number | null;
+  updatedAt: string;
+}
+
+/** A row of GET /api/projects/:id/records. */
+export interface DesignRecordSummaryDto {
+  id: number;
+  shortlistId: number;
+  name: string;
+  loadCase: string;
+  author: string;
+  checker: string;
+  checkedAt: string;
+}
+
+// ---- Team administration ---------------------------------------------------------------------
+
+/** A row of GET /api/admin/users, and the answer to changing one. */
+export interface AdminUserDto {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+  lastLoginAt: string | null;
+  createdAt: string;
+}
+
+export type InvitationState = 'waiting' | 'accepted' | 'expired';
+
+/** A row of GET /api/admin/invitations. */
+export interface InvitationDto {
+  id: number;
+  email: string;
+  role: Role;
+  createdAt: string;
+  expiresAt: string;
+  state: InvitationState;
+}
+
+/** The answer to POST /api/admin/invitations. */
+export type InvitationCreatedDto = Pick<InvitationDto, 'id' | 'email' | 'role' | 'expiresAt'>;

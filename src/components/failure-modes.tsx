@@ -1,14 +1,7 @@
-import type { CandidateResult, FailureMode } from '@shared/engine';
+import type { CandidateResult } from '@shared/engine';
 import { MODE_COLOURS } from '@shared/design-tokens';
 import { useUnits } from '@/lib/unit-system';
-import { sizedByText } from '@shared/labels';
-
-export const MODE_LABELS: Record<FailureMode, string> = {
-  tension: 'Tension',
-  compression: 'Compression',
-  shear: 'Shear',
-  buckling: 'Buckling',
-};
+import { FAILURE_MODE_LABELS, formatMargin, sizedByText } from '@shared/labels';
 
 /** One colour per failure mode, used in tables, charts and the design record. */
 export { MODE_COLOURS };
@@ -17,14 +10,9 @@ export function ModeTag({ mode }: { mode: CandidateResult['governingMode'] }) {
   return (
     <span className="inline-flex items-center gap-1.5 text-sm font-bold" style={{ color: MODE_COLOURS[mode] }}>
       <span aria-hidden className="inline-block h-2.5 w-2.5 rounded-full" style={{ background: MODE_COLOURS[mode] }} />
-      {MODE_LABELS[mode]}
+      {FAILURE_MODE_LABELS[mode]}
     </span>
   );
-}
-
-/** Margin = safety factor / target − 1, as a signed percentage. */
-export function formatMargin(margin: number): string {
-  return `${margin >= 0 ? '+' : ''}${(margin * 100).toFixed(0)} %`;
 }
 
 export function MarginCell({ margin }: { margin: number }) {

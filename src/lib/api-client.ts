@@ -1,3 +1,5 @@
+import type { ClientErrorCode, ErrorBodyDto, ErrorCode } from '@shared/errors';
+
 /**
  * The only module that talks to the server (fetch, and XMLHttpRequest for uploads that report
  * progress). Errors arrive as ApiError with the server's field errors.
@@ -12,7 +14,8 @@ export interface RowIssue {
 export class ApiError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    /** One of the server's codes (shared/errors.ts), or the client's own when no answer carried one. */
+    readonly code: ErrorCode | ClientErrorCode,
     message: string,
     readonly fields: Record<string, string> = {},
     /** Row problems of an uploaded file (e.g. 400 import_invalid), structured; absent otherwise. */
@@ -40,7 +43,8 @@ export function setUnauthenticatedHandler(fn: () => void): void {
   onUnauthenticated = fn;
 }
 
-type ErrorBody = { error?: { code?: string; message?: string; fields?: Record<string, string>; issues?: RowIssue[]; issueCount?: number } } | null;
+/** What came back with an error status: normally an ErrorBodyDto, but a proxy may answer with anything. */
+type ErrorBody = Partial<ErrorBodyDto> | null;
 
 function apiErrorFrom(status: number, path: string, data: ErrorBody): ApiError {
   const err = data?.error;

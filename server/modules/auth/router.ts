@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import passport from 'passport';
-import { loginSchema } from '../../../shared/schemas/auth';
+import { loginSchema, type SessionDto } from '../../../shared/schemas/auth';
 import { parse } from '../../middleware/validate';
 import { AppError, unauthorized } from '../../errors';
 import { toSessionUser } from '../../auth/passport';
@@ -44,7 +44,7 @@ export function authRouter(): Router {
       req.logIn(user, (loginErr) => {
         if (loginErr) return next(loginErr);
         recordSignIn(user.id)
-          .then(() => res.json({ user: toSessionUser(user) }))
+          .then(() => res.json({ user: toSessionUser(user) } satisfies SessionDto))
           .catch(next);
       });
     })(req, res, next);
@@ -65,7 +65,7 @@ export function authRouter(): Router {
     if (!req.user) return next(unauthorized());
     next();
   }, (req, res) => {
-    res.json({ user: toSessionUser(req.user!) });
+    res.json({ user: toSessionUser(req.user!) } satisfies SessionDto);
   });
 
   return router;

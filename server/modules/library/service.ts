@@ -10,7 +10,7 @@ import { auditSnapshot as snapshot, lockCurrent } from '../../services/optimisti
 import { runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
 import type { CuratedStepName } from '../../../shared/workflows/curated';
 import { QUANTITIES } from '../../../shared/schemas/catalogue';
-import type { DraftData, LibrarySetDto, ValueChangeDto } from '../../../shared/schemas/library';
+import type { DraftData, LibrarySetDto, LibrarySetListDto, SetChangesDto, ValueChangeDto } from '../../../shared/schemas/library';
 import { createMaterialIn, include, librarySetDto, referenceDto } from '../property-sets/service';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
 
@@ -37,7 +37,7 @@ export interface QueueQuery {
 }
 
 /** Drafts and sets in review (or one of the two); mine = drafted or last edited by the caller. */
-export async function listQueue(query: QueueQuery, actor: Actor): Promise<{ items: LibrarySetDto[]; total: number }> {
+export async function listQueue(query: QueueQuery, actor: Actor): Promise<LibrarySetListDto> {
   const where: WhereOptions<PropertySet>[] = [{ status: query.status ? [query.status] : ['draft', 'in-review'] }];
   if (query.mine === 'true') where.push({ [Op.or]: [{ draftedById: actor.id }, { lastEditedById: actor.id }] });
   const total = await PropertySet.count({ where: { [Op.and]: where } });
@@ -96,7 +96,7 @@ export function diffSets(previous: LibrarySetDto, current: LibrarySetDto): Value
 }
 
 /** What a set changes against the version it supersedes (none for a first version). */
-export async function getChanges(id: number): Promise<{ previous: LibrarySetDto | null; changes: ValueChangeDto[] }> {
+export async function getChanges(id: number): Promise<SetChangesDto> {
   const current = await loadDto(id);
   if (!current.supersedesId) return { previous: null, changes: [] };
   const previous = await loadDto(current.supersedesId);

@@ -2,7 +2,7 @@
 // note where the catalogue has newer data for one of its candidates.
 import { DesignRecord } from '../../db/models/projects';
 import { PropertySet } from '../../db/models';
-import type { DesignRecordDto } from '../../../shared/schemas/projects';
+import type { DesignRecordDto, DesignRecordSummaryDto } from '../../../shared/schemas/projects';
 import { notFound } from '../../errors';
 import { visibleProject, type Actor } from './access';
 import { newerVersions } from './shortlists';
@@ -28,7 +28,7 @@ export async function getDesignRecord(actor: Actor, recordId: number): Promise<D
   };
 }
 
-export async function listDesignRecords(actor: Actor, projectId: number) {
+export async function listDesignRecords(actor: Actor, projectId: number): Promise<DesignRecordSummaryDto[]> {
   await visibleProject(actor, projectId);
   const rows = await DesignRecord.findAll({ where: { projectId }, order: [['createdAt', 'DESC']] });
   return rows.map((r) => ({

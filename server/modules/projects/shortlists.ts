@@ -7,6 +7,7 @@ import type {
   ShortlistDto,
   ShortlistItemDto,
   ShortlistSubmission,
+  ShortlistSummaryDto,
   shortlistCreateSchema,
   shortlistItemAddSchema,
   shortlistReorderSchema,
@@ -134,18 +135,7 @@ export async function shortlistDto(shortlist: Shortlist): Promise<ShortlistDto> 
   };
 }
 
-export interface ShortlistSummary {
-  id: number;
-  name: string;
-  status: Shortlist['status'];
-  loadCaseId: number;
-  author: { id: number; name: string };
-  itemCount: number;
-  designRecordId: number | null;
-  updatedAt: string;
-}
-
-export async function listShortlists(actor: Actor, projectId: number): Promise<ShortlistSummary[]> {
+export async function listShortlists(actor: Actor, projectId: number): Promise<ShortlistSummaryDto[]> {
   await visibleProject(actor, projectId);
   const rows = await Shortlist.findAll({
     where: { projectId },

@@ -4,8 +4,10 @@ import { sequelize } from '../../db/sequelize';
 import { recordAudit } from '../../services/audit';
 import type { LibrarySetDto } from '../../../shared/schemas/library';
 import type {
+  MaterialDetailDto,
   MaterialDto,
   MaterialInput,
+  MaterialListDto,
   PropertySetDto,
   PropertySetListDto,
   PropertySetQuery,
@@ -155,10 +157,6 @@ export async function getPropertySet(id: number, caller: Caller): Promise<Proper
   return propertySetDto(ps);
 }
 
-export interface MaterialDetailDto extends MaterialDto {
-  propertySets: PropertySetDto[];
-}
-
 export async function getMaterial(id: number, caller: Caller): Promise<MaterialDetailDto> {
   const material = await Material.findByPk(id);
   if (!material) throw notFound('Material');
@@ -172,7 +170,7 @@ export async function getMaterial(id: number, caller: Caller): Promise<MaterialD
 }
 
 /** All materials, by family then name. */
-export async function listMaterials(): Promise<{ items: MaterialDto[]; total: number }> {
+export async function listMaterials(): Promise<MaterialListDto> {
   const rows = await Material.findAll({ order: [['family', 'ASC'], ['name', 'ASC']] });
   return { items: rows.map(materialDto), total: rows.length };
 }

@@ -8,7 +8,7 @@ import { badRequest, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
 import { auditSnapshot, lockCurrent, runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
 import type { RatingTable as EngineRatingTable } from '../../../shared/engine';
-import { ratingTableContentSchema, type RatingTableDraft, type RatingTableDto, type RatingTableStepInput } from '../../../shared/schemas/rating-tables';
+import { ratingTableContentSchema, type RatingTableDraft, type RatingTableDto, type RatingTableListDto, type RatingTableStepInput } from '../../../shared/schemas/rating-tables';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
 
 export interface Caller {
@@ -87,7 +87,7 @@ async function loadDto(id: number, caller: Caller, transaction?: Transaction): P
 
 export const getRatingTable = (id: number, caller: Caller) => loadDto(id, caller);
 
-export async function listRatingTables(query: { materialId?: number; status?: string }, caller: Caller): Promise<{ items: RatingTableDto[]; total: number }> {
+export async function listRatingTables(query: { materialId?: number; status?: string }, caller: Caller): Promise<RatingTableListDto> {
   const readable = caller.canDraft ? ['draft', 'in-review', 'published', 'retired'] : ['published', 'retired'];
   const wanted = query.status === 'open' ? ['draft', 'in-review'] : query.status ? [query.status] : caller.canDraft ? readable : ['published'];
   const where: WhereOptions<RatingTable> = { status: { [Op.in]: wanted.filter((s) => readable.includes(s)) } as never };

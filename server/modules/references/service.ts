@@ -11,7 +11,7 @@ import { recordAudit } from '../../services/audit';
 import { deleteDocument, getDocument, putDocument } from '../../services/storage';
 import { isPdf, safeStoredName } from '../../services/pdf-check';
 import type { ReferenceInput } from '../../../shared/schemas/catalogue';
-import type { ReferenceDetailDto } from '../../../shared/schemas/library';
+import type { ReferenceDetailDto, ReferenceListDto } from '../../../shared/schemas/library';
 import { referenceDto } from '../property-sets/service';
 
 export interface Actor {
@@ -47,7 +47,7 @@ async function usedByCounts(ids: number[]): Promise<Map<number, number>> {
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** Every word of q must appear in the title, authors or identifier. By title. */
-export async function listReferences(query: { q?: string }): Promise<{ items: ReferenceDetailDto[]; total: number }> {
+export async function listReferences(query: { q?: string }): Promise<ReferenceListDto> {
   const where: WhereOptions<Reference>[] = [];
   for (const word of (query.q ?? '').split(/\s+/).filter(Boolean).slice(0, 8)) {
     const like = { [Op.iLike]: `%${escapeLike(word)}%` };

@@ -5,7 +5,7 @@ import type { ShortlistStatus } from '@shared/schemas/projects';
 import { SHORTLIST_STEPS } from '@shared/workflows/shortlist';
 import { allowedSteps, type RefusalCode, type WorkflowSubject } from '@shared/workflows/steps';
 import { formatQuantity, unitOf, type QuantityKind, type UnitSystem } from '@/lib/units';
-import { formatMargin } from '@/components/failure-modes';
+import { formatMargin } from '@shared/labels';
 
 export const SHORTLIST_STATUS_LABELS: Record<ShortlistStatus, string> = {
   open: 'open',

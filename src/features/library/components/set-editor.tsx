@@ -23,7 +23,7 @@ import {
   type DraftErrors,
   type DraftForm,
 } from '../draft-form';
-import { BASIS_LABELS, REFERENCE_KIND_LABELS } from '../labels';
+import { REFERENCE_KIND_LABELS, VALUE_BASIS_LABELS } from '../labels';
 import { CellInput, CellSelect } from './cells';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { SetHistory } from './set-history';
@@ -222,7 +222,7 @@ function ValuesSection({ form, err }: { form: UseFormReturn<DraftForm>; err: (p:
                       <option value="">—</option>
                       {VALUE_BASES.map((b) => (
                         <option key={b} value={b}>
-                          {BASIS_LABELS[b]}
+                          {VALUE_BASIS_LABELS[b]}
                         </option>
                       ))}
                     </CellSelect>

@@ -2,26 +2,18 @@ import { lazy, Suspense } from 'react';
 import { Link } from 'react-router-dom';
 import type { CandidateResult } from '@shared/engine';
 import type { DesignRecordContent, DesignRecordDto } from '@shared/schemas/projects';
-import { FAMILY_LABELS, type ReferenceDto } from '@shared/schemas/catalogue';
+import { FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
 import { Button } from '@/components/ui/button';
 import { ErrorState, Spinner, Tag } from '@/components/ui/states';
 import { formatDateTime } from '@/lib/dates';
 import { useUnits } from '@/lib/unit-system';
-import { factorsText } from '@shared/labels';
+import { REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
 import { designRecordPdfUrl, useDesignRecord } from '../api/shortlists';
 import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
 import './record-print.css';
 
 const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
-
-const REFERENCE_KINDS: Record<ReferenceDto['kind'], string> = {
-  standard: 'Standard',
-  handbook: 'Handbook',
-  paper: 'Paper',
-  'test-report': 'Test report',
-  'supplier-data-sheet': 'Supplier data sheet',
-};
 
 /** A titled part of the record; short ones are kept on one printed page. */
 function Section({ title, children, className = '', keepTogether = false }: { title: string; children: React.ReactNode; className?: string; keepTogether?: boolean }) {
@@ -171,7 +163,7 @@ function Sources({ content }: { content: DesignRecordContent }) {
             </div>
             {r ? (
               <div>
-                <Tag tone="brass">{REFERENCE_KINDS[r.kind]}</Tag> {r.identifier ? <span className="font-mono text-xs">{r.identifier}</span> : null}
+                <Tag tone="brass">{REFERENCE_KIND_LABELS[r.kind]}</Tag> {r.identifier ? <span className="font-mono text-xs">{r.identifier}</span> : null}
                 <p className="font-bold">{r.title}</p>
                 <p className="text-ink-soft">
                   {[r.authors, r.year].filter(Boolean).join(', ')}
