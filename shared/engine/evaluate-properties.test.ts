@@ -124,9 +124,9 @@ describe('properties (fast-check)', () => {
         model.fill(component, t, p, mm, stress, allowable);
         const before = model.modes.map((_, i) => allowable[i] / stress[i]);
         model.fill(component, t * growth, p, mm, stress, allowable);
-        // Bryant's frame term (n² − 1)·E·Ie/(R³·Lf) takes the mean radius, which grows with the shell: for frames far
-        // stiffer than the plating a thicker shell can lower the overall pressure by parts in a million — noise, not weakness.
-        const slack = component.type === 'ring-stiffened-cylinder' ? 1e-5 : 1e-9;
+        // Rounding only. (A ring-stiffened frame of vanishing out-of-roundness once lost 99.8 % here: the
+        // perfectly round case skipped the n-lobe limit that any out-of-roundness, however small, reaches.)
+        const slack = 1e-9;
         model.modes.forEach((mode, i) => {
           expect(allowable[i] / stress[i], `${component.type} ${mode}`).toBeGreaterThanOrEqual(before[i] * (1 - slack));
         });
