@@ -4,6 +4,7 @@
 import type { ComponentType } from './schemas/evaluate';
 import type { ReferenceKind, ValueBasis } from './schemas/catalogue';
 import type { FailureMode } from './engine/types';
+import type { ShortlistRoundDto } from './schemas/projects';
 
 export const COMPONENT_LABELS: Record<ComponentType, string> = {
   'flat-disc': 'Flat disc window',
@@ -62,4 +63,13 @@ export function factorsText(
       ? `sustained load ${f.sustainedLoad.toFixed(2)} × cycles ${f.cyclic.toFixed(2)} (multiplied, as before the life rule)`
       : `life ${f.life.toFixed(2)}, the lower of sustained load ${f.sustainedLoad.toFixed(2)} and cycles ${f.cyclic.toFixed(2)}`;
   return `Strength factors applied: ${t}; ${life}.`;
+}
+
+/** One round of checking in words: who submitted it and how it ended; `date` formats the times. */
+export function roundText(r: ShortlistRoundDto, date: (iso: string) => string): { heading: string; outcome: string } {
+  const heading = `Round ${r.round}: submitted by ${r.submittedBy.name} on ${date(r.submittedAt)}, ${r.candidates.length} candidate${r.candidates.length === 1 ? '' : 's'}`;
+  if (!r.outcome || !r.decidedAt) return { heading, outcome: 'Waiting for a check.' };
+  const who = `${r.decidedBy?.name ?? 'a checker'} on ${date(r.decidedAt)}`;
+  const said = r.comment ? `: “${r.comment}”` : '.';
+  return { heading, outcome: `${r.outcome === 'returned' ? 'Returned' : 'Checked'} by ${who}${said}` };
 }

@@ -4,6 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, signIn, type Agent } from '../helpers/app';
 import { User } from '../../server/db/models';
+import { pdfText } from '../helpers/pdf-text';
 import type { PropertySetDto } from '../../shared/schemas/catalogue';
 import type { DesignRecordDto, ShortlistDto } from '../../shared/schemas/projects';
 
@@ -100,5 +101,18 @@ describe('a submitted shortlist freezes its inputs', () => {
     const record = (await checker.get(`/api/records/${checked.body.designRecordId}`)).body as DesignRecordDto;
     expect(record.content.formatVersion).toBe(2);
     expect(record.content.rounds).toEqual(rounds);
+
+    // …and in its PDF.
+    const pdf = await engineer.get(`/api/records/${checked.body.designRecordId}/pdf`).buffer(true).parse((res, cb) => {
+      const chunks: Buffer[] = [];
+      res.on('data', (c: Buffer) => chunks.push(c));
+      res.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    const { text } = await pdfText(pdf.body as Buffer);
+    const flat = text.replace(/\s+/g, ' ');
+    expect(flat).toContain('Rounds of checking');
+    expect(flat).toContain('Round 1: submitted by');
+    expect(flat).toContain('“Add a fallback candidate.”');
+    expect(flat).toContain(`Added ${acrylic[1].material.name}`);
   });
 });

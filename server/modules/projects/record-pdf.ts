@@ -4,7 +4,7 @@ import path from 'node:path';
 import type { DesignRecordContent } from '../../../shared/schemas/projects';
 import { FAILURE_MODES, modeMargin } from '../../../shared/engine';
 import { colors, MODE_COLOURS } from '../../../shared/design-tokens';
-import { COMPONENT_LABELS, FAILURE_MODE_LABELS, factorsText, formatMargin, sizedByText } from '../../../shared/labels';
+import { COMPONENT_LABELS, FAILURE_MODE_LABELS, factorsText, formatMargin, roundText, sizedByText } from '../../../shared/labels';
 
 /**
  * The design record as a real, text-selectable PDF (pdfkit, DejaVu fonts embedded): sign-off,
@@ -102,6 +102,17 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
   pair('Checker', `${c.checker.name}, checked ${date(c.shortlist.checkedAt)}`);
   if (c.shortlist.checkComment) pair("Checker's comment", c.shortlist.checkComment);
   pair('Frozen', `${date(c.frozenAt)} — later catalogue changes do not alter this record`);
+
+  if (c.rounds?.length) {
+    heading('Rounds of checking');
+    for (const r of c.rounds) {
+      const text = roundText(r, date);
+      doc.font('Body-Bold').fontSize(9).fillColor(INK).text(text.heading);
+      for (const change of r.changes) doc.font('Body').fontSize(8.5).fillColor(SOFT).text(`  • ${change}`);
+      doc.font('Body').fontSize(9).fillColor(INK).text(text.outcome);
+      doc.moveDown(0.3);
+    }
+  }
 
   heading('Cautions');
   doc.font('Body').fontSize(9).fillColor(INK).text(c.cautions);

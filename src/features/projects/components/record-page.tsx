@@ -11,6 +11,7 @@ import { useUnits } from '@/lib/unit-system';
 import { REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
 import { designRecordPdfUrl, useDesignRecord } from '../api/shortlists';
 import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
+import { Rounds } from './rounds';
 import './record-print.css';
 
 const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
@@ -248,6 +249,12 @@ function RecordView({ record, canExport }: { record: DesignRecordDto; canExport:
       <Section title="Sign-off" keepTogether>
         <SignOff content={c} />
       </Section>
+
+      {c.rounds?.length ? (
+        <Section title="Rounds of checking" keepTogether>
+          <Rounds rounds={c.rounds} />
+        </Section>
+      ) : null}
 
       <Section title="Load case" keepTogether>
         <p className="mb-2 font-bold">{c.loadCase.name}</p>

@@ -14,6 +14,8 @@ import { moveItem, shortlistRights, type ShortlistRights, type Viewer } from '..
 import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
 import { ComparisonTable } from './comparison-table';
 import { SignOff, StatusBanner } from './sign-off';
+import { Rounds } from './rounds';
+import { formatDateTime } from '@/lib/dates';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 const isStale = (err: unknown) => err instanceof ApiError && err.status === 409 && (err.code === 'stale' || err.code === 'wrong_status');
@@ -267,6 +269,12 @@ export function ShortlistPage({ id, me }: { id: number; me: Viewer }) {
         </p>
       </div>
       <StatusBanner shortlist={s} />
+      {s.frozenInputs ? (
+        <p className="rounded-plate border border-chart-line bg-white px-4 py-2 text-sm" role="note" data-testid="frozen-inputs">
+          The load case, candidates and results below are those submitted on {formatDateTime(s.submittedAt)}: the check reviews and freezes exactly these. Later
+          edits to the load case apply to a new submission.
+        </p>
+      ) : null}
       {newer.length ? (
         <p className="rounded-plate border-l-4 border-brass bg-brass-light/60 px-4 py-2 text-sm" role="note">
           <strong>Newer data exists</strong> for {newer.length === 1 ? 'one candidate' : `${newer.length} candidates`}: the catalogue has published a newer version since
@@ -305,6 +313,12 @@ export function ShortlistPage({ id, me }: { id: number; me: Viewer }) {
           {s.loadCase.notes ? <p className="mt-2 whitespace-pre-line text-sm text-ink-soft">{s.loadCase.notes}</p> : null}
         </Panel>
       </div>
+
+      {s.rounds.length ? (
+        <Panel title="Rounds of checking">
+          <Rounds rounds={s.rounds} />
+        </Panel>
+      ) : null}
 
       {s.items.length ? (
         <Panel title="Side by side">
