@@ -11,6 +11,7 @@ import type { LoadCase } from '../../../shared/schemas/evaluate';
 import type { DesignRecordContent, ShortlistRoundDto, ShortlistStatus, ShortlistSubmission } from '../../../shared/schemas/projects';
 import type { Role } from '../../../shared/schemas/auth';
 import { PropertySet, User } from './index';
+import { lockVersionColumn, serialId, stamp, timestamps } from './columns';
 
 export class Project extends Model<InferAttributes<Project>, InferCreationAttributes<Project>> {
   declare id: CreationOptional<number>;
@@ -109,18 +110,16 @@ export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCr
   declare createdAt: CreationOptional<Date>;
 }
 
-const stamp = { type: DataTypes.DATE, allowNull: false };
 
 export function initProjectModels(db: Sequelize): void {
   Project.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       name: { type: DataTypes.TEXT, allowNull: false },
       description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       ownerId: { type: DataTypes.INTEGER, allowNull: false },
-      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      createdAt: stamp,
-      updatedAt: stamp,
+      ...lockVersionColumn(),
+      ...timestamps(),
     },
     { sequelize: db, tableName: 'projects', version: 'lockVersion' },
   );
@@ -129,28 +128,27 @@ export function initProjectModels(db: Sequelize): void {
       projectId: { type: DataTypes.INTEGER, primaryKey: true },
       userId: { type: DataTypes.INTEGER, primaryKey: true },
       addedById: { type: DataTypes.INTEGER },
-      createdAt: stamp,
+      createdAt: stamp(),
     },
     { sequelize: db, tableName: 'project_members', updatedAt: false },
   );
   LoadCaseRecord.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.TEXT, allowNull: false },
       loadCase: { type: DataTypes.JSONB, allowNull: false },
       filters: { type: DataTypes.JSONB },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       createdById: { type: DataTypes.INTEGER },
-      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      createdAt: stamp,
-      updatedAt: stamp,
+      ...lockVersionColumn(),
+      ...timestamps(),
     },
     { sequelize: db, tableName: 'load_cases', version: 'lockVersion' },
   );
   Shortlist.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       loadCaseId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.TEXT, allowNull: false },
@@ -163,55 +161,53 @@ export function initProjectModels(db: Sequelize): void {
       checkComment: { type: DataTypes.TEXT },
       submission: { type: DataTypes.JSONB },
       rounds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      createdAt: stamp,
-      updatedAt: stamp,
+      ...lockVersionColumn(),
+      ...timestamps(),
     },
     { sequelize: db, tableName: 'shortlists', version: 'lockVersion' },
   );
   ShortlistItem.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       shortlistId: { type: DataTypes.INTEGER, allowNull: false },
       propertySetId: { type: DataTypes.INTEGER, allowNull: false },
       position: { type: DataTypes.INTEGER, allowNull: false },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-      createdAt: stamp,
-      updatedAt: stamp,
+      ...timestamps(),
     },
     { sequelize: db, tableName: 'shortlist_items' },
   );
   DesignRecord.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       shortlistId: { type: DataTypes.INTEGER, allowNull: false, unique: true },
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       content: { type: DataTypes.JSONB, allowNull: false },
-      createdAt: stamp,
+      createdAt: stamp(),
     },
     { sequelize: db, tableName: 'design_records', updatedAt: false },
   );
   Invitation.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       email: { type: DataTypes.TEXT, allowNull: false },
       role: { type: DataTypes.TEXT, allowNull: false },
       tokenHash: { type: DataTypes.TEXT, allowNull: false, unique: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: { type: DataTypes.DATE },
       invitedById: { type: DataTypes.INTEGER },
-      createdAt: stamp,
+      createdAt: stamp(),
     },
     { sequelize: db, tableName: 'invitations', updatedAt: false },
   );
   PasswordReset.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       userId: { type: DataTypes.INTEGER, allowNull: false },
       tokenHash: { type: DataTypes.TEXT, allowNull: false, unique: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: { type: DataTypes.DATE },
-      createdAt: stamp,
+      createdAt: stamp(),
     },
     { sequelize: db, tableName: 'password_resets', updatedAt: false },
   );
