@@ -56,6 +56,24 @@ export interface CuratedKind<M extends CuratedRow> {
 }
 
 const capital = (s: string) => s[0].toUpperCase() + s.slice(1);
+
+/** The workflow columns of a new draft by `actorId`: version 1 of a new lineage unless told otherwise. */
+export function draftWorkflowColumns(actorId: number, of: { version?: number; lineageId?: number | null; supersedesId?: number | null } = {}) {
+  return {
+    status: 'draft' as const,
+    version: of.version ?? 1,
+    lineageId: of.lineageId ?? null,
+    supersedesId: of.supersedesId ?? null,
+    supersededById: null,
+    draftedById: actorId,
+    lastEditedById: actorId,
+    approvedById: null,
+    publishedAt: null,
+    retiredAt: null,
+    returnedComment: null,
+    submittedAt: null,
+  };
+}
 const revisionOpen = (noun: string) => conflict(`This ${noun} already has a revision in draft or in review. Open that one instead of starting another.`, 'revision_open');
 
 /** A new draft copying a published record: version + 1, same lineage, supersedes it. */
@@ -65,21 +83,7 @@ async function revise<M extends CuratedRow>(kind: CuratedKind<M>, row: M, actor:
   if (open > 0) throw revisionOpen(kind.noun);
   const latest = (await kind.model.max<number, M>('version', { where: { lineageId } as never, transaction })) ?? row.version;
   const copy = await kind.model.create(
-    {
-      ...kind.revisionOf(row),
-      status: 'draft',
-      version: Math.max(latest, row.version) + 1,
-      lineageId,
-      supersedesId: row.id,
-      supersededById: null,
-      draftedById: actor.id,
-      lastEditedById: actor.id,
-      approvedById: null,
-      publishedAt: null,
-      retiredAt: null,
-      returnedComment: null,
-      submittedAt: null,
-    } as never,
+    { ...kind.revisionOf(row), ...draftWorkflowColumns(actor.id, { version: Math.max(latest, row.version) + 1, lineageId, supersedesId: row.id }) } as never,
     { transaction },
   );
   await recordAudit(transaction, { actorId: actor.id, action: 'revise', entityType: kind.entityType, entityId: copy.id, before: auditSnapshot(row), after: auditSnapshot(copy) });

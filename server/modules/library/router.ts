@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { authorize } from '../../auth/authorize';
+import { actorOf } from '../../auth/actor';
 import { parse, parseId } from '../../middleware/validate';
 import { singleFile } from '../../middleware/upload';
 import {
@@ -12,10 +13,10 @@ import {
   returnSchema,
   transitionSchema,
 } from '../../../shared/schemas/library';
-import { createDraft, getChanges, getLibrarySet, listQueue, stepSet, updateDraft, type Actor } from './service';
+import { createDraft, getChanges, getLibrarySet, listQueue, stepSet, updateDraft } from './service';
 import { previewImport, runImport, templateCsv } from './import';
 
-const actor = (req: Express.Request): Actor => ({ id: req.user!.id, name: req.user!.name, role: req.user!.role });
+const actor = actorOf;
 const body = (req: Express.Request & { body?: unknown }) => req.body ?? {};
 const noQuery = z.strictObject({});
 

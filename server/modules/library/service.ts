@@ -7,12 +7,13 @@ import { sequelize } from '../../db/sequelize';
 import { badRequest, conflict, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
 import { auditSnapshot as snapshot, lockCurrent } from '../../services/optimistic-lock';
-import { runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
+import { draftWorkflowColumns, runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
 import type { CuratedStepName } from '../../../shared/workflows/curated';
 import { QUANTITIES } from '../../../shared/schemas/catalogue';
 import type { DraftData, LibrarySetDto, LibrarySetListDto, SetChangesDto, ValueChangeDto } from '../../../shared/schemas/library';
 import { createMaterialIn, include, librarySetDto, referenceDto } from '../property-sets/service';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
+import { referenceFields } from '../references/service';
 
 export type { Actor } from '../../workflows/curated-steps';
 
@@ -151,19 +152,7 @@ async function resolveMaterial(transaction: Transaction, d: DraftData, actor: Ac
 async function resolveReference(transaction: Transaction, d: DraftData, actor: Actor): Promise<number | null> {
   if (d.reference) {
     const r = d.reference;
-    const created = await Reference.create(
-      {
-        kind: r.kind,
-        title: r.title,
-        authors: r.authors ?? null,
-        year: r.year ?? null,
-        identifier: r.identifier ?? null,
-        location: r.location ?? null,
-        note: r.note ?? null,
-        createdById: actor.id,
-      },
-      { transaction },
-    );
+    const created = await Reference.create({ ...referenceFields(r), createdById: actor.id }, { transaction });
     await recordAudit(transaction, { actorId: actor.id, action: 'create', entityType: 'reference', entityId: created.id, before: null, after: referenceDto(created) });
     return created.id;
   }
@@ -188,16 +177,7 @@ export async function createDraft(d: DraftData, actor: Actor): Promise<LibrarySe
         ...valuesOf(d),
         materialId,
         referenceId,
-        status: 'draft',
-        version: 1,
-        lineageId: newId,
-        supersedesId: null,
-        supersededById: null,
-        draftedById: actor.id,
-        lastEditedById: actor.id,
-        approvedById: null,
-        publishedAt: null,
-        retiredAt: null,
+        ...draftWorkflowColumns(actor.id, { lineageId: newId }),
       },
       { transaction },
     );

@@ -1,5 +1,6 @@
 import { Router, type Request } from 'express';
 import { authorize } from '../../auth/authorize';
+import { actorOf } from '../../auth/actor';
 import { parse, parseId } from '../../middleware/validate';
 import {
   loadCaseSaveSchema,
@@ -14,14 +15,13 @@ import {
   shortlistReturnSchema,
   shortlistTransitionSchema,
 } from '../../../shared/schemas/projects';
-import type { Actor } from './access';
 import * as projects from './service';
 import * as shortlists from './shortlists';
 import { getDesignRecord, listDesignRecords } from './design-records';
 import { stepShortlist } from './shortlist-steps';
 import { renderDesignRecordPdf } from './record-pdf';
 
-const actor = (req: Request): Actor & { name: string } => ({ id: req.user!.id, name: req.user!.name, role: req.user!.role });
+const actor = actorOf;
 const idParam = (req: Request, name = 'id') => parseId(req.params[name], name);
 
 export function projectsRouter(): Router {

@@ -2,6 +2,7 @@ import { Op, UniqueConstraintError, type Transaction, type WhereOptions, type In
 import { Material, PropertySet, Reference, User } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { recordAudit } from '../../services/audit';
+import { mechanicalValues } from '../../../shared/engine/candidates';
 import type { LibrarySetDto } from '../../../shared/schemas/library';
 import type {
   MaterialDetailDto,
@@ -50,15 +51,7 @@ export function propertySetDto(ps: PropertySet): PropertySetDto {
     condition: ps.condition,
     material: materialDto(ps.material!),
     reference: ps.reference ? referenceDto(ps.reference) : null,
-    density: ps.density,
-    youngsModulus: ps.youngsModulus,
-    poissonsRatio: ps.poissonsRatio,
-    tensileStrength: ps.tensileStrength,
-    tensileYield: ps.tensileYield,
-    compressiveStrength: ps.compressiveStrength,
-    compressiveYield: ps.compressiveYield,
-    shearStrength: ps.shearStrength,
-    shearYield: ps.shearYield ?? null,
+    ...mechanicalValues(ps),
     elongation: ps.elongation,
     luminousTransmittance: ps.luminousTransmittance,
     serviceTemperature: { min: ps.serviceTempMin, max: ps.serviceTempMax },

@@ -6,10 +6,11 @@ import { Material, PropertySet, RatingTable, Reference, User } from '../../db/mo
 import { sequelize } from '../../db/sequelize';
 import { badRequest, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
-import { auditSnapshot, lockCurrent, runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
+import { auditSnapshot, draftWorkflowColumns, lockCurrent, runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
 import type { RatingTable as EngineRatingTable } from '../../../shared/engine';
 import { ratingTableContentSchema, type RatingTableDraft, type RatingTableDto, type RatingTableListDto, type RatingTableStepInput } from '../../../shared/schemas/rating-tables';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
+import { referenceDto } from '../property-sets/service';
 
 export interface Caller {
   canDraft: boolean;
@@ -55,7 +56,7 @@ export function ratingTableDto(r: RatingTable, covered: Map<number, { propertySe
     lineageId: r.lineageId ?? r.id,
     lockVersion: r.lockVersion,
     material: { id: r.material!.id, name: r.material!.name, family: r.material!.family },
-    reference: ref ? { id: ref.id, kind: ref.kind, title: ref.title, authors: ref.authors, year: ref.year, identifier: ref.identifier, location: ref.location } : null,
+    reference: ref ? referenceDto(ref) : null,
     covers: (r.coversLineageIds ?? []).map((lineageId) => ({ lineageId, ...(covered.get(lineageId) ?? { propertySetId: lineageId, condition: `lineage ${lineageId}` }) })),
     content: {
       name: r.name,
@@ -134,16 +135,7 @@ export async function createRatingTableDraft(d: RatingTableDraft, actor: Actor):
     const row = await RatingTable.create(
       {
         ...valuesOf(d),
-        status: 'draft',
-        version: 1,
-        lineageId: null,
-        supersedesId: null,
-        supersededById: null,
-        draftedById: actor.id,
-        lastEditedById: actor.id,
-        approvedById: null,
-        publishedAt: null,
-        retiredAt: null,
+        ...draftWorkflowColumns(actor.id),
       },
       { transaction },
     );

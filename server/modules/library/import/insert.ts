@@ -5,6 +5,7 @@
 // and the SQL names and types come from the PropertySet model.
 import type { Transaction } from 'sequelize';
 import { Material, PropertySet, Reference } from '../../../db/models';
+import { referenceFields } from '../../references/service';
 import { sequelize } from '../../../db/sequelize';
 import { nextSetIds, valuesOf, type Actor } from '../service';
 import { materialKey, referenceKey, type Analysis, type PlannedRow } from './plan';
@@ -63,16 +64,7 @@ export async function insertPlanned(a: Analysis, actor: Actor, transaction: Tran
   const referenceIds = new Map(a.existingReferences);
   if (a.newReferences.size) {
     const created = await Reference.bulkCreate(
-      [...a.newReferences.values()].map((r) => ({
-        kind: r.kind,
-        title: r.title,
-        authors: r.authors ?? null,
-        year: r.year ?? null,
-        identifier: r.identifier ?? null,
-        location: r.location ?? null,
-        note: null,
-        createdById: actor.id,
-      })),
+      [...a.newReferences.values()].map((r) => ({ ...referenceFields({ ...r, note: undefined }), createdById: actor.id })),
       { transaction, returning: true },
     );
     for (const r of created) referenceIds.set(referenceKey(r.title, r.identifier), r.id);
