@@ -49,6 +49,8 @@ export interface CuratedKind<M extends CuratedRow> {
   path(id: number): string;
   /** Refuses publishing what may not be published (a reference is required by the table). */
   checkPublishable?(row: M, transaction: Transaction): Promise<void>;
+  /** Work of its own when the record is published, in the approval's transaction (before it is saved). */
+  onPublish?(row: M, actor: Actor, transaction: Transaction): Promise<void>;
   /** The attributes of a new draft revising `row` (content only: the runner sets the workflow columns). */
   revisionOf(row: M): Record<string, unknown>;
   /** After any committed step (e.g. drop the catalogue snapshot). */
@@ -101,6 +103,7 @@ async function publish<M extends CuratedRow>(kind: CuratedKind<M>, row: M, actor
     await old.save({ transaction });
     await recordAudit(transaction, { actorId: actor.id, action: 'supersede', entityType: kind.entityType, entityId: old.id, before: oldBefore, after: auditSnapshot(old) });
   }
+  await kind.onPublish?.(row, actor, transaction);
   row.set({ status: 'published', approvedById: actor.id, publishedAt: now, returnedComment: null } as never);
 }
 

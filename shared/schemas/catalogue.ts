@@ -43,39 +43,9 @@ export const VALUE_BASES = ['minimum', 'typical', 'statistical-allowable'] as co
 export const valueBasisSchema = z.enum(VALUE_BASES);
 export type ValueBasis = z.infer<typeof valueBasisSchema>;
 
-/**
- * Scalar quantities a property set may carry, all SI:
- * density kg/m³; moduli and strengths Pa; Poisson's ratio, elongation and
- * luminous transmittance as fractions (0.02 = 2 %).
- */
-export const QUANTITIES = [
-  'density',
-  'youngsModulus',
-  'poissonsRatio',
-  'tensileStrength',
-  'tensileYield',
-  'compressiveStrength',
-  'compressiveYield',
-  'shearStrength',
-  'shearYield',
-  'elongation',
-  'luminousTransmittance',
-] as const;
-export type Quantity = (typeof QUANTITIES)[number];
-
-export const QUANTITY_LABELS: Record<Quantity, string> = {
-  density: 'Density',
-  youngsModulus: "Young's modulus",
-  poissonsRatio: "Poisson's ratio",
-  tensileStrength: 'Tensile strength',
-  tensileYield: 'Tensile yield',
-  compressiveStrength: 'Compressive strength',
-  compressiveYield: 'Compressive yield',
-  shearStrength: 'Shear strength',
-  shearYield: 'Shear yield',
-  elongation: 'Elongation at break',
-  luminousTransmittance: 'Luminous transmittance',
-};
+export { QUANTITIES, QUANTITY_LABELS, type Quantity } from './quantities';
+import { QUANTITIES, type Quantity } from './quantities';
+import { provenanceInputSchema, type Provenance } from './provenance';
 
 /** Basis, test method and test temperature of one value. */
 export const valueDetailSchema = z.object({
@@ -123,6 +93,8 @@ export const propertyValuesSchema = z.object({
   temperatureFactors: z.array(temperaturePointSchema).max(50).default([]),
   sustainedLoadFactors: z.array(hoursPointSchema).max(50).default([]),
   cyclicFactors: z.array(cyclesPointSchema).max(50).default([]),
+  /** The status of each value: confirmed, recalled, derived or demo (shared/schemas/provenance.ts). */
+  provenance: provenanceInputSchema,
 });
 export type PropertyValues = z.infer<typeof propertyValuesSchema>;
 
@@ -222,6 +194,8 @@ export interface PropertySetDto {
   luminousTransmittance: number | null;
   serviceTemperature: { min: number; max: number };
   valueDetails: Partial<Record<Quantity, ValueDetail>>;
+  /** Each value's status; a value with no entry is recalled. Optional only for hand-built fixtures. */
+  provenance?: Provenance;
   temperatureFactors: TemperaturePoint[];
   sustainedLoadFactors: HoursPoint[];
   cyclicFactors: CyclesPoint[];

@@ -21,6 +21,7 @@ import type {
   ValueDetail,
 } from '../../../shared/schemas/catalogue';
 import type { Role } from '../../../shared/schemas/auth';
+import type { Provenance } from '../../../shared/schemas/provenance';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
@@ -83,6 +84,7 @@ export class PropertySet extends CuratedModel<InferAttributes<PropertySet>, Infe
   declare temperatureFactors: CreationOptional<TemperaturePoint[]>;
   declare sustainedLoadFactors: CreationOptional<HoursPoint[]>;
   declare cyclicFactors: CreationOptional<CyclesPoint[]>;
+  declare provenance: CreationOptional<Provenance>;
 }
 
 export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreationAttributes<AuditEntry>> {
@@ -178,6 +180,7 @@ export function initModels(): void {
       temperatureFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       sustainedLoadFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       cyclicFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      provenance: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       ...curatedColumns(),
     },
     { sequelize: db, tableName: 'property_sets', version: 'lockVersion' },

@@ -2,18 +2,20 @@
 // published version, and retirement. Every step runs in one transaction with a row lock, checks
 // the caller's lock version, and writes an audit entry; e-mails go out after the commit.
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
-import { Material, PropertySet, Reference } from '../../db/models';
+import { Material, PropertySet, Reference, User } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { badRequest, conflict, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
 import { auditSnapshot as snapshot, lockCurrent } from '../../services/optimistic-lock';
 import { draftWorkflowColumns, runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
 import type { CuratedStepName } from '../../../shared/workflows/curated';
+import { PROVENANCE_KEYS } from '../../../shared/schemas/provenance';
 import { QUANTITIES } from '../../../shared/schemas/catalogue';
 import type { DraftData, LibrarySetDto, LibrarySetListDto, SetChangesDto, ValueChangeDto } from '../../../shared/schemas/library';
 import { createMaterialIn, include, librarySetDto, referenceDto } from '../property-sets/service';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
 import { referenceFields } from '../references/service';
+import { keepApprovals, stampConfirmations } from './provenance';
 
 export type { Actor } from '../../workflows/curated-steps';
 
@@ -73,6 +75,7 @@ function comparable(dto: LibrarySetDto): Record<string, unknown> {
   fields['serviceTemperature.min'] = dto.serviceTemperature.min;
   fields['serviceTemperature.max'] = dto.serviceTemperature.max;
   for (const q of QUANTITIES) fields[`valueDetails.${q}`] = dto.valueDetails[q] ?? null;
+  for (const k of PROVENANCE_KEYS) fields[`provenance.${k}`] = dto.provenance?.[k] ?? null;
   fields.temperatureFactors = dto.temperatureFactors;
   fields.sustainedLoadFactors = dto.sustainedLoadFactors;
   fields.cyclicFactors = dto.cyclicFactors;
@@ -134,6 +137,7 @@ export function valuesOf(d: DraftData) {
     serviceTempMin: d.serviceTemperature.min,
     serviceTempMax: d.serviceTemperature.max,
     valueDetails: d.valueDetails ?? {},
+    provenance: d.provenance ?? {},
     temperatureFactors: d.temperatureFactors ?? [],
     sustainedLoadFactors: d.sustainedLoadFactors ?? [],
     cyclicFactors: d.cyclicFactors ?? [],
@@ -200,7 +204,8 @@ export async function updateDraft(id: number, lockVersion: number, d: DraftData,
     const before = snapshot(ps);
     const materialId = await resolveMaterial(transaction, d, actor);
     const referenceId = await resolveReference(transaction, d, actor);
-    ps.set({ ...valuesOf(d), materialId, referenceId, lastEditedById: actor.id });
+    const values = valuesOf(d);
+    ps.set({ ...values, provenance: keepApprovals(ps, values), materialId, referenceId, lastEditedById: actor.id });
     await ps.save({ transaction }); // increments lockVersion (the model's version attribute)
     await recordAudit(transaction, { actorId: actor.id, action: 'edit', entityType: 'property-set', entityId: id, before, after: snapshot(ps) });
   });
@@ -225,10 +230,16 @@ const propertySetKind: CuratedKind<PropertySet> = {
     serviceTempMin: ps.serviceTempMin,
     serviceTempMax: ps.serviceTempMax,
     valueDetails: ps.valueDetails,
+    provenance: ps.provenance,
     temperatureFactors: ps.temperatureFactors,
     sustainedLoadFactors: ps.sustainedLoadFactors,
     cyclicFactors: ps.cyclicFactors,
   }),
+  async onPublish(row, actor, transaction) {
+    const authorId = row.lastEditedById ?? row.draftedById;
+    const author = authorId ? await User.findByPk(authorId, { attributes: ['id', 'name'], transaction }) : null;
+    row.set({ provenance: stampConfirmations(row.provenance ?? {}, author ? { id: author.id, name: author.name } : { id: 0, name: 'unknown' }, { id: actor.id, name: actor.name }, new Date()) });
+  },
   // Publishing or retiring changes the catalogue every process serves.
   afterCommit: () => invalidateCatalogueSnapshot(),
 };

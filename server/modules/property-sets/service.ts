@@ -56,6 +56,7 @@ export function propertySetDto(ps: PropertySet): PropertySetDto {
     luminousTransmittance: ps.luminousTransmittance,
     serviceTemperature: { min: ps.serviceTempMin, max: ps.serviceTempMax },
     valueDetails: ps.valueDetails ?? {},
+    provenance: ps.provenance ?? {},
     temperatureFactors: ps.temperatureFactors ?? [],
     sustainedLoadFactors: ps.sustainedLoadFactors ?? [],
     cyclicFactors: ps.cyclicFactors ?? [],
