@@ -4,6 +4,7 @@
 import type { PropertySetDto } from '../schemas/catalogue';
 import type { InlineMaterial } from '../schemas/evaluate';
 import type { CandidateMaterial, RatingTable } from './types';
+import { engineInputKeys, inputStatus } from '../schemas/provenance';
 
 /** The mechanical values of a set, wherever they are copied (the catalogue DTO, an engine candidate). */
 export type MechanicalValues = Pick<
@@ -30,6 +31,7 @@ export function candidateFromPropertySet(ps: PropertySetDto, ratingTables?: read
   const condition = ps.condition?.trim();
   return {
     ...(ratingTables && ratingTables.length ? { ratingTables } : {}),
+    inputs: inputStatus(ps.provenance, engineInputKeys(ps)),
     name: condition ? `${ps.material.name} (${condition})` : ps.material.name,
     propertySetId: ps.id,
     family: ps.material.family,

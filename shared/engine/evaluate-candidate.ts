@@ -221,6 +221,7 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
   if (coverage) result.coverage = coverage;
   if (candidate.propertySetId !== undefined) result.propertySetId = candidate.propertySetId;
   if (candidate.family !== undefined) result.family = candidate.family;
+  if (candidate.inputs) result.inputs = candidate.inputs;
   if (deflection !== undefined) result.deflection = deflection;
   return result;
 }

@@ -32,6 +32,10 @@ export const evaluateFiltersSchema = strict('Filters', {
   transparent: z.boolean({ error: 'Transparent must be true or false.' }).optional(),
   /** Only property sets whose service temperature range covers the load case's design range. */
   coversTemperature: z.boolean({ error: 'Covers temperature must be true or false.' }).optional(),
+  /** Only property sets all of whose inputs to the calculation are confirmed against their source. */
+  confirmedOnly: z.boolean({ error: 'Confirmed inputs only must be true or false.' }).optional(),
+  /** Leave out property sets with demo data (the invented Harrow Sound records). */
+  excludeDemo: z.boolean({ error: 'Exclude demo data must be true or false.' }).optional(),
 });
 
 export const evaluateRequestSchema = strict('Request', {

@@ -97,3 +97,14 @@ export const inputStatusText = (s: InputStatus) => `${s.confirmed} of ${s.total}
 export function engineInputKeys(set: Parameters<typeof presentKeys>[0]): ProvenanceKey[] {
   return presentKeys(set).filter((k) => k !== 'elongation' && k !== 'luminousTransmittance');
 }
+
+/** Each input the calculation uses, with its status and where it was confirmed or how derived, for records. */
+export function describeInputs(set: Parameters<typeof presentKeys>[0] & { provenance?: Provenance }): { key: ProvenanceKey; label: string; status: ValueStatus; detail: string }[] {
+  return engineInputKeys(set).map((key) => {
+    const e = set.provenance?.[key];
+    const status = e?.status ?? 'recalled';
+    const who = e?.confirmedBy ? `confirmed by ${e.confirmedBy.name}${e.approvedBy ? `, approved by ${e.approvedBy.name}` : ''}` : '';
+    const detail = status === 'confirmed' ? [e?.location, e?.source, who].filter(Boolean).join('; ') : status === 'derived' ? (e?.rule ?? '') : '';
+    return { key, label: PROVENANCE_LABELS[key], status, detail };
+  });
+}

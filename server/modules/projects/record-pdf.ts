@@ -4,6 +4,7 @@ import path from 'node:path';
 import type { DesignRecordContent } from '../../../shared/schemas/projects';
 import { FAILURE_MODES, modeMargin } from '../../../shared/engine';
 import { colors, MODE_COLOURS } from '../../../shared/design-tokens';
+import { describeInputs, VALUE_STATUS_LABELS } from '../../../shared/schemas/provenance';
 import { COMPONENT_LABELS, FAILURE_MODE_LABELS, factorsText, formatMargin, roundText, sizedByText } from '../../../shared/labels';
 
 /**
@@ -243,6 +244,9 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     if (ref) {
       pair('Source', [ref.authors, ref.year, ref.title, ref.identifier, ref.location].filter(Boolean).join('; '));
     }
+    const inputs = describeInputs(set);
+    pair('Inputs', `${inputs.filter((v) => v.status === 'confirmed').length} of ${inputs.length} confirmed against their source`);
+    for (const v of inputs) doc.font('Body').fontSize(8).fillColor(v.status === 'confirmed' ? INK : colors.verdict.watch).text(`• ${v.label}: ${VALUE_STATUS_LABELS[v.status]}${v.detail ? ` — ${v.detail}` : ''}`, { indent: 6 });
   }
 
   heading('Models used');

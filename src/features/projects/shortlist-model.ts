@@ -3,6 +3,7 @@ import type { PropertySetDto } from '@shared/schemas/catalogue';
 import type { Permission, Role } from '@shared/schemas/auth';
 import type { ShortlistStatus } from '@shared/schemas/projects';
 import { SHORTLIST_STEPS } from '@shared/workflows/shortlist';
+import { inputStatusText } from '@shared/schemas/provenance';
 import { allowedSteps, type RefusalCode, type WorkflowSubject } from '@shared/workflows/steps';
 import { formatQuantity, unitOf, type QuantityKind, type UnitSystem } from '@/lib/units';
 import { formatMargin } from '@shared/labels';
@@ -145,6 +146,7 @@ export function comparisonRows(candidates: readonly ComparedCandidate[], system:
       unitOf('length', system).label,
     ),
     result('massPerArea', 'Mass per area', (r) => ({ text: formatQuantity('massPerArea', system, r.massPerArea, { unit: false }) }), unitOf('massPerArea', system).label),
+    result('inputs', 'Inputs confirmed', (r) => ({ text: r.inputs ? inputStatusText(r.inputs) : '—' })),
     result('warnings', 'Warnings', (r) => ({ text: r.warnings.length ? `${r.warnings.length}` : 'none', warnings: r.warnings })),
   ];
 }

@@ -12,6 +12,7 @@ import { REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
 import { designRecordPdfUrl, useDesignRecord } from '../api/shortlists';
 import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
 import { Rounds } from './rounds';
+import { describeInputs, VALUE_STATUS_LABELS } from '@shared/schemas/provenance';
 import './record-print.css';
 
 const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
@@ -161,6 +162,14 @@ function Sources({ content }: { content: DesignRecordContent }) {
               <Link to={`/sets/${s.id}`} className="no-print text-xs text-sounding underline">
                 Open in the catalogue
               </Link>
+              <ul className="mt-1 text-xs" aria-label={`Inputs of ${s.material.name}`} data-testid="record-inputs">
+                {describeInputs(s).map((v) => (
+                  <li key={v.key}>
+                    {v.label}: <span className={v.status === 'confirmed' ? 'text-verdict-pass' : v.status === 'demo' ? 'text-verdict-fail' : 'text-verdict-watch'}>{VALUE_STATUS_LABELS[v.status]}</span>
+                    {v.detail ? <span className="text-ink-faint"> — {v.detail}</span> : null}
+                  </li>
+                ))}
+              </ul>
             </div>
             {r ? (
               <div>

@@ -2,6 +2,7 @@
 import type { ReactNode } from 'react';
 import type { ShortlistDto } from '@shared/schemas/projects';
 import { SHORTLIST_STEPS, type ShortlistStepName } from '@shared/workflows/shortlist';
+import { PROVENANCE_LABELS, VALUE_STATUS_LABELS } from '@shared/schemas/provenance';
 import { LinkButton } from '@/components/ui/link-button';
 import { Panel } from '@/components/ui/states';
 import { WorkflowSteps } from '@/components/workflow-steps';
@@ -63,6 +64,24 @@ export function StatusBanner({ shortlist }: { shortlist: ShortlistDto }) {
   }
 }
 
+/** What the checker signs on trust: every input not confirmed against its source, per candidate. */
+function UnconfirmedInputs({ items }: { items: ShortlistDto['items'] }) {
+  const open = items.filter((i) => i.result?.inputs && i.result.inputs.unconfirmed.length);
+  if (!open.length) return <p data-testid="unconfirmed-inputs">Every input of every candidate is confirmed against its source.</p>;
+  return (
+    <div data-testid="unconfirmed-inputs">
+      <p className="font-bold">Inputs not confirmed against their source:</p>
+      <ul className="list-disc pl-5 text-sm">
+        {open.map((i) => (
+          <li key={i.id}>
+            {i.propertySet.material.name} — {i.propertySet.condition}: {i.result!.inputs!.unconfirmed.map((u) => `${PROVENANCE_LABELS[u.key]} (${VALUE_STATUS_LABELS[u.status]})`).join(', ')}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
 /** The sign-off steps of the shortlist, from the shared workflow table: submit; check or return. */
 export function SignOff({
   shortlist,
@@ -114,10 +133,13 @@ export function SignOff({
             title={(s) => (s.name === 'check' ? `Check “${name}”?` : `Return “${name}” to ${shortlist.author.name}?`)}
             describe={(s) =>
               s.name === 'check' ? (
-                <p>
-                  Checking freezes a design record: the load case, each candidate's results, the property set versions and both names, as they are now. It cannot be
-                  changed afterwards. A comment is kept in the record.
-                </p>
+                <>
+                  <p>
+                    Checking freezes a design record: the load case, each candidate's results, the property set versions and both names, as they are now. It cannot be
+                    changed afterwards. A comment is kept in the record.
+                  </p>
+                  <UnconfirmedInputs items={items} />
+                </>
               ) : (
                 <p>Say what must change; the author reads it on the shortlist and by e-mail.</p>
               )
