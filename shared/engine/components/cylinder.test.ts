@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate } from '../evaluate';
+import { hy80 } from '../test-materials';
 import type { CandidateMaterial } from '../types';
 import {
   bryanPressure,
@@ -98,18 +99,9 @@ describe('hoop compression', () => {
 });
 
 describe('cylinder results', () => {
-  const steel: CandidateMaterial = {
-    name: 'Quenched and tempered steel (demo)',
-    family: 'steel',
-    density: 7850,
-    youngsModulus: 207e9,
-    poissonsRatio: 0.3,
-    tensileStrength: 760e6,
-    tensileYield: 552e6,
-    compressiveStrength: 760e6,
-    compressiveYield: 552e6,
-    shearStrength: 450e6,
-  };
+  // Quenched and tempered steel (demo): HY-80's yield and stiffness (test-materials.ts) with an
+  // ultimate of 760 MPa in tension and compression and a shear strength of 450 MPa.
+  const steel: CandidateMaterial = { ...hy80, name: 'Quenched and tempered steel (demo)', tensileStrength: 760e6, compressiveStrength: 760e6, shearStrength: 450e6 };
   const bay = (thickness: number, length = 0.6) =>
     evaluate({
       loadCase: {

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate } from '../evaluate';
+import { titanium } from '../test-materials';
 import type { CandidateMaterial } from '../types';
 import {
   FABRICATED_SPHERE_FACTOR,
@@ -73,18 +74,7 @@ describe('sphere collapse: a whole-sphere method by fabrication, with yield–bu
 });
 
 describe('sphere results', () => {
-  const titanium: CandidateMaterial = {
-    name: 'Titanium alloy, annealed plate (demo)',
-    family: 'titanium-alloy',
-    density: 4430,
-    youngsModulus: 114e9,
-    poissonsRatio: 0.31,
-    tensileStrength: 896e6,
-    tensileYield: 827e6,
-    compressiveStrength: 896e6,
-    compressiveYield: 827e6,
-    shearStrength: 550e6,
-  };
+  // titanium: the demo annealed plate of test-materials.ts
   const sphere = (thickness: number, m: CandidateMaterial = titanium) =>
     evaluate({
       loadCase: {
