@@ -30,6 +30,11 @@ export const hullBay: LoadCaseInput = {
   ...hullSphere,
   component: { type: 'cylinder', innerRadius: 0.8, thickness: 0.025, length: 0.7 },
 };
+/** The submersible's 1,200 m dive as the hull component tests take it: pressure at depth, water at 2–25 °C. */
+export const dive1200 = {
+  pressure: { depth: 1200, latitude: 56, water: 'sea' },
+  temperature: { min: 2, max: 25 },
+} as const satisfies Pick<LoadCaseInput, 'pressure' | 'temperature'>;
 export const loadCases = { chamberViewport, cameraCone, hullSphere, hullBay };
 
 export const withThickness = (lc: LoadCaseInput, thickness: number): LoadCaseInput => ({
