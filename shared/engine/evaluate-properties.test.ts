@@ -5,7 +5,8 @@ import { FAMILIES } from '../schemas/catalogue';
 import { loadCaseSchema, type Component, type LoadCaseInput } from '../schemas/evaluate';
 import { modelFor } from './components/index';
 import { evaluate, evaluateCandidate, prepareLoadCase } from './evaluate';
-import { acrylic, withThickness } from './evaluate-fixtures';
+import { withThickness } from './evaluate-fixtures';
+import { pvhoAcrylic as acrylic } from './test-materials';
 import { jsonSafe } from './test-support';
 import type { CandidateMaterial } from './types';
 

@@ -3,8 +3,9 @@ import { FAMILIES } from '../schemas/catalogue';
 import { loadCaseSchema, type LoadCaseInput } from '../schemas/evaluate';
 import { DEFAULT_TARGET_SAFETY_FACTORS, FALLBACK_TARGET_SAFETY_FACTOR } from './defaults';
 import { evaluate, evaluateCandidate, prepareLoadCase } from './evaluate';
-import { acrylic, aluminium, cameraCone, chamberViewport, demo, glass, hullBay, hullSphere, loadCases, titanium, withThickness } from './evaluate-fixtures';
+import { cameraCone, chamberViewport, hullBay, hullSphere, loadCases, withThickness } from './evaluate-fixtures';
 import { pressureFromDepth } from './pressure';
+import { aluminium, demo, glass, pvhoAcrylic as acrylic, titanium } from './test-materials';
 import { jsonSafe } from './test-support';
 import type { CandidateMaterial } from './types';
 
