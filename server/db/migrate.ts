@@ -8,6 +8,7 @@ import * as m0004 from './migrations/0004-rating-tables';
 import * as m0005 from './migrations/0005-shear-yield';
 import * as m0006 from './migrations/0006-shortlist-rounds';
 import * as m0007 from './migrations/0007-value-provenance';
+import * as m0008 from './migrations/0008-value-confirmations';
 
 // Listed explicitly: vitest cannot glob-load .ts migrations. Add new ones at the end.
 const MIGRATIONS = [
@@ -18,6 +19,7 @@ const MIGRATIONS = [
   { name: '0005-shear-yield', ...m0005 },
   { name: '0006-shortlist-rounds', ...m0006 },
   { name: '0007-value-provenance', ...m0007 },
+  { name: '0008-value-confirmations', ...m0008 },
 ];
 
 export function migrator() {

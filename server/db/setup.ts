@@ -40,6 +40,7 @@ export async function setupDatabase(options: { demo?: boolean; demoProject?: boo
 /** Every application table, in an order TRUNCATE … CASCADE accepts. */
 export const TABLES = [
   'audit_log',
+  'value_confirmations',
   'session',
   'password_resets',
   'invitations',

@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { loginSchema } from '../../shared/schemas/auth';
 import { propertySetQuerySchema } from '../../shared/schemas/catalogue';
+import { confirmationProposalSchema, confirmationQuerySchema, confirmationStepSchema } from '../../shared/schemas/provenance';
 import { evaluateRequestSchema, pressureQuerySchema } from '../../shared/schemas/evaluate';
 import {
   ratingTableCsvQuerySchema,
@@ -95,6 +96,9 @@ export const OPERATIONS: Record<string, OperationDoc> = {
   'POST /api/library/sets/:id/return': { tag: 'Library desk', summary: 'Return to the author with a comment', body: returnSchema },
   'POST /api/library/sets/:id/revise': { tag: 'Library desk', summary: 'Start a new version of a published set', body: transitionSchema, responses: { 201: 'Revision draft created', 409: 'A revision is already open' } },
   'POST /api/library/sets/:id/retire': { tag: 'Library desk', summary: 'Retire a published set (never deleted)', body: retireSchema },
+  'GET /api/library/confirmations': { tag: 'Library desk', summary: 'Value confirmations: the review queue, or one set’s', query: confirmationQuerySchema },
+  'POST /api/library/sets/:id/confirmations': { tag: 'Library desk', summary: 'Propose that a value of a published set stands in its source at a location', body: confirmationProposalSchema, responses: { 201: 'Proposed', 409: 'Not published, or already proposed' } },
+  'POST /api/library/confirmations/:id/steps': { tag: 'Library desk', summary: 'Approve or reject a value confirmation (four-eyes)', body: confirmationStepSchema, responses: { 200: 'Done', 403: 'Own proposal', 409: 'Stale or decided' } },
   'GET /api/library/import/template.csv': { tag: 'Library desk', summary: 'The CSV import template', produces: 'text/csv' },
   'POST /api/library/import/preview': { tag: 'Library desk', summary: 'Check a CSV file row by row without writing anything', upload: { field: 'file', description: 'UTF-8 CSV, at most 20 MB and 50,000 rows' } },
   'POST /api/library/import': { tag: 'Library desk', summary: 'Import a CSV file as drafts, all or nothing', upload: { field: 'file', description: 'UTF-8 CSV, at most 20 MB and 50,000 rows' }, responses: { 201: 'Imported', 400: 'Row errors; nothing written' } },

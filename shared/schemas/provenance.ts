@@ -108,3 +108,43 @@ export function describeInputs(set: Parameters<typeof presentKeys>[0] & { proven
     return { key, label: PROVENANCE_LABELS[key], status, detail };
   });
 }
+
+/** POST /api/library/sets/:id/confirmations: propose that one value stands in the source at `location`. */
+export const confirmationProposalSchema = z.strictObject({
+  key: z.enum(PROVENANCE_KEYS, { error: 'Choose one of the set’s values.' }),
+  location: text(300),
+  source: text(300).optional(),
+  /** The page of the reference's stored document that shows the value. */
+  documentPage: z.number().int().positive().max(100000).optional(),
+});
+export type ConfirmationProposal = z.infer<typeof confirmationProposalSchema>;
+
+export const confirmationStepSchema = z.discriminatedUnion('step', [
+  z.strictObject({ step: z.literal('approve'), lockVersion: z.number().int().min(0) }),
+  z.strictObject({ step: z.literal('reject'), lockVersion: z.number().int().min(0), comment: z.string().trim().min(3, 'Say why it is rejected.').max(4000) }),
+]);
+export type ConfirmationStepInput = z.infer<typeof confirmationStepSchema>;
+
+export interface ValueConfirmationDto {
+  id: number;
+  propertySetId: number;
+  /** "Cast acrylic (PMMA) — PVHO-grade cast sheet…", for queues. */
+  setTitle: string;
+  key: ProvenanceKey;
+  location: string;
+  source: string | null;
+  documentPage: number | null;
+  status: 'proposed' | 'approved' | 'rejected';
+  proposedBy: { id: number; name: string };
+  decidedBy: { id: number; name: string } | null;
+  decidedAt: string | null;
+  comment: string | null;
+  lockVersion: number;
+  createdAt: string;
+}
+
+/** GET /api/library/confirmations: the review queue, or one set's confirmations. */
+export const confirmationQuerySchema = z.strictObject({
+  status: z.enum(['proposed', 'approved', 'rejected']).optional(),
+  propertySetId: z.coerce.number().int().positive().optional(),
+});

@@ -15,6 +15,7 @@ import { ratingTableDraftSchema } from '../../shared/schemas/rating-tables';
 import { Invitation, PasswordReset } from '../../server/db/models/projects';
 import { draftInputSchema } from '../../shared/schemas/library';
 import { createDraft, stepSet } from '../../server/modules/library/service';
+import { proposeConfirmation } from '../../server/modules/library/confirmations';
 import { createReference } from '../../server/modules/references/service';
 import { createLoadCase, createProject, addMember } from '../../server/modules/projects/service';
 import { addItem, createShortlist } from '../../server/modules/projects/shortlists';
@@ -177,6 +178,15 @@ const TABLE: Record<string, Entry> = {
   'POST /api/library/sets/:id/return': { build: async () => { const d = await inReviewBySecondLibrarian(); return { path: `/api/library/sets/${d.id}/return`, body: { lockVersion: d.lockVersion, comment: 'Add the test temperature.' } }; } },
   'POST /api/library/sets/:id/revise': { ok: 201, build: async () => { const s = await freshPublishedSet(); return { path: `/api/library/sets/${s.id}/revise`, body: { lockVersion: s.lockVersion } }; } },
   'POST /api/library/sets/:id/retire': { build: async () => { const s = await freshPublishedSet(); return { path: `/api/library/sets/${s.id}/retire`, body: { lockVersion: s.lockVersion, reason: 'Superseded by lot tests.' } }; } },
+  'GET /api/library/confirmations': { build: json('/api/library/confirmations?status=proposed') },
+  'POST /api/library/sets/:id/confirmations': { ok: 201, build: async () => { const s = await freshPublishedSet(); return { path: `/api/library/sets/${s.id}/confirmations`, body: { key: 'density', location: 'Table 1, specific gravity' } }; } },
+  'POST /api/library/confirmations/:id/steps': {
+    build: async () => {
+      const s = await freshPublishedSet();
+      const c = await proposeConfirmation(s.id, { key: 'density', location: 'Table 1, specific gravity' }, { ...f.secondLibrarian, role: 'librarian' });
+      return { path: `/api/library/confirmations/${c.id}/steps`, body: { step: 'approve', lockVersion: c.lockVersion } };
+    },
+  },
   'GET /api/library/import/template.csv': { build: json('/api/library/import/template.csv') },
   'POST /api/library/import/preview': { build: async () => ({ path: '/api/library/import/preview', attach: { field: 'file', data: csvFile(), filename: 'lots.csv', contentType: 'text/csv' } }) },
   'POST /api/library/import': { ok: 201, build: async () => ({ path: '/api/library/import', attach: { field: 'file', data: csvFile(), filename: 'lots.csv', contentType: 'text/csv' } }) },

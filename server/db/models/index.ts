@@ -10,6 +10,7 @@ import {
 import { sequelize } from '../sequelize';
 import { initProjectModels } from './projects';
 import { initRatingTableModels } from './rating-tables';
+import { initValueConfirmationModels } from './value-confirmations';
 import { CuratedModel, curatedAssociations, curatedColumns, lockVersionColumn, serialId, timestamps } from './columns';
 import type {
   CyclesPoint,
@@ -204,7 +205,9 @@ export function initModels(): void {
   AuditEntry.belongsTo(User, { as: 'actor', foreignKey: 'actorId', constraints: false });
   initProjectModels(db);
   initRatingTableModels(db);
+  initValueConfirmationModels(db);
   initialised = true;
 }
 
 export { RatingTable } from './rating-tables';
+export { ValueConfirmation } from './value-confirmations';

@@ -15,6 +15,8 @@ import {
 } from '../../../shared/schemas/library';
 import { createDraft, getChanges, getLibrarySet, listQueue, stepSet, updateDraft } from './service';
 import { previewImport, runImport, templateCsv } from './import';
+import { listConfirmations, proposeConfirmation, stepConfirmation } from './confirmations';
+import { confirmationProposalSchema, confirmationQuerySchema, confirmationStepSchema } from '../../../shared/schemas/provenance';
 
 const actor = actorOf;
 const body = (req: Express.Request & { body?: unknown }) => req.body ?? {};
@@ -56,6 +58,16 @@ export function libraryRouter(): Router {
       res.status(status).json(await stepSet(id, step, { lockVersion: input.lockVersion, comment: input.comment ?? input.reason }, actor(req)));
     });
   }
+  // Confirming a published set's values, one reviewed step per value.
+  router.get('/confirmations', authorize('catalogue:draft'), async (req, res) => {
+    res.json({ items: await listConfirmations(parse(confirmationQuerySchema, req.query, 'query')) });
+  });
+  router.post('/sets/:id/confirmations', authorize('catalogue:draft'), async (req, res) => {
+    res.status(201).json(await proposeConfirmation(parseId(req.params.id), parse(confirmationProposalSchema, body(req), 'confirmation'), actor(req)));
+  });
+  router.post('/confirmations/:id/steps', authorize('catalogue:approve'), async (req, res) => {
+    res.json(await stepConfirmation(parseId(req.params.id), parse(confirmationStepSchema, body(req), 'step'), actor(req)));
+  });
   router.get('/import/template.csv', authorize('catalogue:draft'), (req, res) => {
     parse(noQuery, req.query, 'query');
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');

@@ -1,0 +1,49 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { ConfirmationStatus } from '../../../shared/workflows/confirmation';
+import type { ProvenanceKey } from '../../../shared/schemas/provenance';
+import { PropertySet, User } from './index';
+import { lockVersionColumn, serialId, timestamps } from './columns';
+
+export class ValueConfirmation extends Model<InferAttributes<ValueConfirmation>, InferCreationAttributes<ValueConfirmation>> {
+  declare id: CreationOptional<number>;
+  declare propertySetId: number;
+  declare valueKey: ProvenanceKey;
+  declare location: string;
+  declare source: string | null;
+  declare documentPage: number | null;
+  declare status: CreationOptional<ConfirmationStatus>;
+  declare proposedById: number;
+  declare decidedById: CreationOptional<number | null>;
+  declare decidedAt: CreationOptional<Date | null>;
+  declare comment: CreationOptional<string | null>;
+  declare lockVersion: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare propertySet?: NonAttribute<PropertySet>;
+  declare proposedBy?: NonAttribute<User>;
+  declare decidedBy?: NonAttribute<User | null>;
+}
+
+export function initValueConfirmationModels(db: Sequelize): void {
+  ValueConfirmation.init(
+    {
+      ...serialId(),
+      propertySetId: { type: DataTypes.INTEGER, allowNull: false },
+      valueKey: { type: DataTypes.TEXT, allowNull: false },
+      location: { type: DataTypes.TEXT, allowNull: false },
+      source: { type: DataTypes.TEXT },
+      documentPage: { type: DataTypes.INTEGER },
+      status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'proposed' },
+      proposedById: { type: DataTypes.INTEGER, allowNull: false },
+      decidedById: { type: DataTypes.INTEGER },
+      decidedAt: { type: DataTypes.DATE },
+      comment: { type: DataTypes.TEXT },
+      ...lockVersionColumn(),
+      ...timestamps(),
+    },
+    { sequelize: db, tableName: 'value_confirmations', version: 'lockVersion' },
+  );
+  ValueConfirmation.belongsTo(PropertySet, { as: 'propertySet', foreignKey: 'propertySetId' });
+  ValueConfirmation.belongsTo(User, { as: 'proposedBy', foreignKey: 'proposedById' });
+  ValueConfirmation.belongsTo(User, { as: 'decidedBy', foreignKey: 'decidedById' });
+}

@@ -1,0 +1,79 @@
+// Confirming a value of a published set is a reviewed step: proposed by one librarian, approved
+// or rejected by another; approval marks the value confirmed on the set, and the audit log says so.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startTestApp, signIn, type Agent } from '../helpers/app';
+import { createAccount, signInAs } from '../helpers/library';
+import { AuditEntry, PropertySet } from '../../server/db/models';
+
+let handle: Awaited<ReturnType<typeof startTestApp>>;
+let librarian: Agent;
+let second: Agent;
+let engineer: Agent;
+
+beforeAll(async () => {
+  handle = await startTestApp();
+  await createAccount('confirm.reviewer@harrow.example', 'Lowena Hosking', 'librarian');
+  librarian = await signIn(handle.app, 'librarian');
+  second = await signInAs(handle.app, 'confirm.reviewer@harrow.example');
+  engineer = await signIn(handle.app, 'engineer');
+});
+afterAll(async () => {
+  await handle.stop();
+});
+
+async function publishedSetId(offset = 0): Promise<number> {
+  const rows = await PropertySet.findAll({ where: { status: 'published' }, order: [['id', 'ASC']], limit: 1, offset });
+  return rows[0].id;
+}
+
+describe('value confirmations', () => {
+  it('refuses the proposer approving their own confirmation (403 own_work); another librarian approves it and the value reads confirmed', async () => {
+    const id = await publishedSetId(2);
+    const before = (await engineer.get(`/api/property-sets/${id}`)).body;
+    const proposed = await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'poissonsRatio', location: 'Table 2, row 4 (Poisson’s ratio 0.35)' });
+    expect(proposed.status, JSON.stringify(proposed.body)).toBe(201);
+    expect(proposed.body).toMatchObject({ status: 'proposed', key: 'poissonsRatio', proposedBy: { name: 'Tamsin Oyelaran' } });
+
+    const own = await librarian.post(`/api/library/confirmations/${proposed.body.id}/steps`).send({ step: 'approve', lockVersion: proposed.body.lockVersion });
+    expect(own.status).toBe(403);
+    expect(own.body.error.code).toBe('own_work');
+    expect((await engineer.get(`/api/property-sets/${id}`)).body.provenance?.poissonsRatio?.status ?? 'recalled').not.toBe('confirmed');
+
+    const ok = await second.post(`/api/library/confirmations/${proposed.body.id}/steps`).send({ step: 'approve', lockVersion: proposed.body.lockVersion });
+    expect(ok.status, JSON.stringify(ok.body)).toBe(200);
+    expect(ok.body).toMatchObject({ status: 'approved', decidedBy: { name: 'Lowena Hosking' } });
+    const after = (await engineer.get(`/api/property-sets/${id}`)).body;
+    expect(after.provenance.poissonsRatio).toMatchObject({ status: 'confirmed', location: 'Table 2, row 4 (Poisson’s ratio 0.35)', confirmedBy: { name: 'Tamsin Oyelaran' }, approvedBy: { name: 'Lowena Hosking' } });
+    // The value itself and the set's version do not change: only what is known about it.
+    expect([after.poissonsRatio, after.version]).toEqual([before.poissonsRatio, before.version]);
+    const audit = await AuditEntry.findAll({ where: { entityType: 'property-set', entityId: String(id), action: 'confirm-value' } });
+    expect(audit).toHaveLength(1);
+    // A decided confirmation takes no more steps.
+    const again = await second.post(`/api/library/confirmations/${proposed.body.id}/steps`).send({ step: 'reject', lockVersion: ok.body.lockVersion, comment: 'Changed my mind.' });
+    expect(again.status).toBe(409);
+  });
+
+  it('rejects with a comment and leaves the value as it was; one open proposal per value', async () => {
+    const id = await publishedSetId(3);
+    const p = await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'density', location: 'p. 7' });
+    expect(p.status).toBe(201);
+    const dup = await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'density', location: 'p. 8' });
+    expect(dup.status).toBe(409);
+    const noComment = await second.post(`/api/library/confirmations/${p.body.id}/steps`).send({ step: 'reject', lockVersion: p.body.lockVersion });
+    expect(noComment.status).toBe(400);
+    const rej = await second.post(`/api/library/confirmations/${p.body.id}/steps`).send({ step: 'reject', lockVersion: p.body.lockVersion, comment: 'Page 7 gives the bulk density of the resin, not the sheet.' });
+    expect(rej.status).toBe(200);
+    expect(rej.body.status).toBe('rejected');
+    expect((await engineer.get(`/api/property-sets/${id}`)).body.provenance?.density?.status ?? 'recalled').not.toBe('confirmed');
+    const queue = await second.get('/api/library/confirmations?status=proposed');
+    expect(queue.body.items.map((c: { id: number }) => c.id)).not.toContain(p.body.id);
+  });
+
+  it('refuses a value the set does not have, a missing location, and a draft (400, 400, 409)', async () => {
+    const id = await publishedSetId(4);
+    expect((await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'notAValue', location: 'p. 1' })).status).toBe(400);
+    expect((await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'density' })).status).toBe(400);
+    const draft = await PropertySet.findOne({ where: { status: 'draft' } });
+    if (draft) expect((await librarian.post(`/api/library/sets/${draft.id}/confirmations`).send({ key: 'density', location: 'p. 1' })).status).toBe(409);
+  });
+});
