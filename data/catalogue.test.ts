@@ -299,14 +299,19 @@ describe('values against their published sources', () => {
     expect(at(32)).toBeLessThanOrEqual(0.9);
   });
 
-  it('Ti-6Al-4V annealed plate carries the AMS 4911 minimums', () => {
-    // Source: SAE AMS 4911 minimums (S-basis in MMPDS-01): Ftu 130 ksi = 896 MPa, Fty 120 ksi = 827 MPa.
-    const s = onlySet('ti-6al-4v', 'mmpds-01');
+  it('Ti-6Al-4V annealed plate carries the AMS 4911 minimums and the MIL-HDBK-5J elastic constants', () => {
+    // Source: SAE AMS 4911 minimums, as quoted from a metals distributor's AMS 4911 data sheet in a public
+    // file: Ftu 130 ksi = 896 MPa, Fty 120 ksi = 827 MPa (the S-basis label was not verified).
+    const s = onlySet('ti-6al-4v', 'mil-hdbk-5j');
     expect(s.tensileStrength).toBe(896 * MPa);
     expect(s.tensileYield).toBe(827 * MPa);
     expect(Math.abs(s.tensileStrength - 130 * KSI)).toBeLessThan(1 * MPa);
     expect(Math.abs(s.tensileYield! - 120 * KSI)).toBeLessThan(1 * MPa);
     expect(s.valueDetails.tensileStrength?.basis).toBe('minimum');
+    // Source: MIL-HDBK-5J Table 5.4.1.0(b), Ti-6Al-4V sheet, strip and plate: E 16.0 x 10^3 ksi, mu 0.31
+    // (quoted from the handbook's page text in public review files).
+    expect(s.youngsModulus / (1000 * KSI)).toBeCloseTo(16.0, 1);
+    expect(s.poissonsRatio).toBe(0.31);
   });
 
   it('HY-80 and HY-100 carry the MIL-S-16216 minimum yields', () => {
@@ -342,7 +347,9 @@ describe('values against their published sources', () => {
       [305, 215, 180, 180].map((v) => v * MPa),
     );
     expect(a5083.youngsModulus).toBe(71_700 * MPa);
-    // Source: ASM Handbook Vol. 2 (1990), 7075-T6 typical: Ftu 572, Fty 503, Fsu 331 MPa, E 71.7 GPa, 2810 kg/m3.
+    // Source: Aluminum Association typical values for 7075-T6/T651 as reproduced on a public materials page
+    // (substech.com, wrought aluminium-zinc-magnesium alloy 7075): Ftu 572, Fty 503, Fsu 331 MPa, 2.81 x 10^3 kg/m3,
+    // E 72 GPa (stored 71.7 GPa, within that rounding). The cited ASM Handbook Vol. 2 itself was not read.
     const a7075 = onlySet('al-7075-t6', 'asm-hb2-nonferrous-1990');
     expect([a7075.tensileStrength, a7075.tensileYield, a7075.shearStrength]).toEqual([572, 503, 331].map((v) => v * MPa));
     expect(a7075.youngsModulus).toBe(71.7 * GPa);
@@ -350,14 +357,22 @@ describe('values against their published sources', () => {
   });
 
   it('no value on the unsafe side of its public source (corrections of the seed check)', () => {
-    // Source: Aluminum Design Manual, Table 3.3-1M, 5083-H116 4-40 mm: Fcy 180 MPa, below Fty 215 MPa.
+    // Source: Aluminum Design Manual, Table 3.3-1M, 5083-H116 4-40 mm: Fcy 180 MPa, below Fty 215 MPa,
+    // and Fsu 180 MPa (the 0.6 x Ftu rule gave 183 MPa).
     const b928 = onlySet('al-5083-h116', 'astm-b928');
     expect(b928.compressiveYield).toBe(180 * MPa);
     expect(b928.compressiveStrength).toBeLessThanOrEqual(180 * MPa);
+    expect(b928.shearStrength).toBe(180 * MPa);
     // Source: MIL-HDBK-5J (2003) Table 2.6.9.0(e), UNS S17400 H1150 bar: Fcy 90 ksi, Fsu 79 ksi (A-basis).
-    const s17400 = onlySet('s17400', 'mmpds-01');
+    const s17400 = onlySet('s17400', 'mil-hdbk-5j');
     expect(s17400.compressiveYield! / KSI).toBeCloseTo(90, 0);
     expect(s17400.shearStrength / KSI).toBeCloseTo(79, 0);
+    expect(s17400.valueDetails.compressiveYield?.basis).toBe('statistical-allowable');
+    // Source: NIST SRD 150, Sintered Alumina, property table at 20 C: elastic modulus 416(30) GPa,
+    // compressive strength 3.0(5) GPa (the set carried 370 GPa and 2600 MPa before the seed check).
+    const alumina = onlySet('alumina', 'nist-srd150-alumina');
+    expect(alumina.youngsModulus).toBe(416 * GPa);
+    expect(alumina.compressiveStrength).toBe(3000 * MPa);
     // Source: MIL-HDBK-5J Fig. 3.7.6.1.1(c) (7075-T6) and Fig. 3.6.2.2.1(a) (6061-T6), 10,000 h
     // curves, values interpolated from digitised points of a public transcription [calc]: the
     // factors may not exceed them.
@@ -381,9 +396,11 @@ describe('values against their published sources', () => {
   });
 
   it('soda-lime glass carries the EN characteristic bending strengths', () => {
-    // Source: EN 572-1 (annealed 45 MPa, E 70,000 MPa, Poisson 0.2, 2500 kg/m3), EN 1863-1 (heat
-    // strengthened 70 MPa) and EN 12150-1 (thermally toughened 120 MPa), as seen in a glazing-industry
-    // reproduction of the EN values; EN 12337-1 chemically strengthened 150 MPa is [memory].
+    // Source: a public glass design-strength calculator's table of characteristic bending strengths
+    // (secondary transcription of the EN product standards): EN 572-1 annealed 45, EN 1863-1 heat
+    // strengthened 70, EN 12150-1 toughened 120, EN 12337-1 chemically toughened 150 N/mm2; annealed 45 MPa
+    // also in a float-glass manufacturer's technical handbook, section 1.2.2.5; E 70 GPa on a glass
+    // processor's properties page. Poisson 0.2 and 2500 kg/m3 are [memory] (seen in an earlier check only).
     const annealed = onlySet('soda-lime-glass', 'en-572-1');
     expect(annealed.tensileStrength).toBe(45 * MPa);
     expect(annealed.youngsModulus).toBe(70 * GPa);
@@ -393,15 +410,16 @@ describe('values against their published sources', () => {
     expect(onlySet('soda-lime-glass', 'en-1863-1').tensileStrength).toBe(70 * MPa);
     expect(onlySet('soda-lime-glass', 'en-12150-1').tensileStrength).toBe(120 * MPa);
     expect(onlySet('soda-lime-glass', 'en-12337-1').tensileStrength).toBe(150 * MPa);
-    // Source: Ashby & Jones, Engineering Materials 2: soda glass E 74 GPa, modulus of rupture 50 MPa,
-    // compressive strength 1000 MPa.
+    // Source: Dowling, Mechanical Behavior of Materials, Table 3.10 (its sources include Ashby 2006):
+    // soda-lime glass E 74 GPa, tension about 50 MPa, compression 1000 MPa. Ashby & Jones itself was not read.
     const handbook = onlySet('soda-lime-glass', 'ashby-jones-em2');
     expect([handbook.youngsModulus, handbook.tensileStrength, handbook.compressiveStrength]).toEqual([74 * GPa, 50 * MPa, 1000 * MPa]);
   });
 
   it('annealed glass static fatigue follows the EN 16612 load-duration factor', () => {
     // Source: EN 16612:2019 load-duration factor k_mod = 0.663 t^(-1/16), t in hours, not above 1
-    // ([memory] formula; consistent with the recalled tabulated 0.74 for 10 min and 0.29 for 50 years).
+    // ([memory] formula); the tabulated k_mod of a public glass design-strength calculator for EN 16612
+    // gives 0.74 for 10 min, 0.60 for 5 h, 0.48 for 1 week and 0.29 for 50 years.
     const s = onlySet('soda-lime-glass', 'en-16612');
     expect(s.sustainedLoadFactors.length).toBeGreaterThanOrEqual(5);
     for (const p of s.sustainedLoadFactors) {
@@ -410,17 +428,22 @@ describe('values against their published sources', () => {
     const fiftyYears = s.sustainedLoadFactors.at(-1)!;
     expect(fiftyYears.hours).toBeCloseTo(50 * 8760, -3);
     expect(fiftyYears.factor).toBeCloseTo(0.29, 2);
+    const at = (hours: number) => Math.min(1, 0.663 * hours ** (-1 / 16));
+    expect(at(10 / 60)).toBeCloseTo(0.74, 2);
+    expect(at(5)).toBeCloseTo(0.6, 2);
+    expect(at(168)).toBeCloseTo(0.48, 2);
   });
 
-  it('sapphire and fused silica carry their handbook elastic and compressive values', () => {
-    // Source: Harris, Materials for Infrared Windows and Domes (1999): sapphire E about 345 GPa,
-    // compressive about 2000 MPa, 3980 kg/m3 ([memory] for the figures, not confirmed in the book).
+  it('sapphire and fused silica carry their published elastic and compressive values', () => {
+    // Source: a sapphire supplier's public property table (Harris, the cited book, was not read):
+    // density 3.98 g/cc, Young's modulus 345 GPa, compression strength 2.0 GPa, tensile 400 MPa at 20 C.
     const sapphire = onlySet('sapphire', 'harris-ir-windows-1999');
     expect(sapphire.youngsModulus).toBe(345 * GPa);
     expect(sapphire.compressiveStrength).toBe(2000 * MPa);
     expect(sapphire.density).toBe(3980);
-    // Source: ASM Engineered Materials Handbook Vol. 4 (1991): fused silica E 73 GPa, Poisson 0.17,
-    // compressive 1100 MPa ([memory]).
+    expect(sapphire.tensileStrength).toBe(400 * MPa);
+    // Source: a public material-property compilation (makeitfrom.com, fused silica): E 73 GPa, Poisson 0.17,
+    // compressive (crushing) strength 1100 MPa. The cited ASM Engineered Materials Handbook Vol. 4 was not read.
     const silica = onlySet('fused-silica', 'asm-emh4-ceramics-glasses-1991');
     expect([silica.youngsModulus, silica.poissonsRatio, silica.compressiveStrength]).toEqual([73 * GPa, 0.17, 1100 * MPa]);
   });
