@@ -13,6 +13,7 @@ import {
   referenceInputSchema,
   type Family,
 } from '../shared/schemas/catalogue';
+import { PROVENANCE_KEYS, presentKeys, provenanceInputSchema, statusOf } from '../shared/schemas/provenance';
 import { ratingTableContentSchema } from '../shared/schemas/rating-tables';
 
 // Loose shape for reading the file; the full rules are checked with ratingTableContentSchema below.
@@ -299,14 +300,19 @@ describe('values against their published sources', () => {
     expect(at(32)).toBeLessThanOrEqual(0.9);
   });
 
-  it('Ti-6Al-4V annealed plate carries the AMS 4911 minimums', () => {
-    // Source: SAE AMS 4911 minimums (S-basis in MMPDS-01): Ftu 130 ksi = 896 MPa, Fty 120 ksi = 827 MPa.
-    const s = onlySet('ti-6al-4v', 'mmpds-01');
+  it('Ti-6Al-4V annealed plate carries the AMS 4911 minimums and the MIL-HDBK-5J elastic constants', () => {
+    // Source: SAE AMS 4911 minimums, as quoted from a metals distributor's AMS 4911 data sheet in a public
+    // file: Ftu 130 ksi = 896 MPa, Fty 120 ksi = 827 MPa (the S-basis label was not verified).
+    const s = onlySet('ti-6al-4v', 'mil-hdbk-5j');
     expect(s.tensileStrength).toBe(896 * MPa);
     expect(s.tensileYield).toBe(827 * MPa);
     expect(Math.abs(s.tensileStrength - 130 * KSI)).toBeLessThan(1 * MPa);
     expect(Math.abs(s.tensileYield! - 120 * KSI)).toBeLessThan(1 * MPa);
     expect(s.valueDetails.tensileStrength?.basis).toBe('minimum');
+    // Source: MIL-HDBK-5J Table 5.4.1.0(b), Ti-6Al-4V sheet, strip and plate: E 16.0 x 10^3 ksi, mu 0.31
+    // (quoted from the handbook's page text in public review files).
+    expect(s.youngsModulus / (1000 * KSI)).toBeCloseTo(16.0, 1);
+    expect(s.poissonsRatio).toBe(0.31);
   });
 
   it('HY-80 and HY-100 carry the MIL-S-16216 minimum yields', () => {
@@ -342,7 +348,9 @@ describe('values against their published sources', () => {
       [305, 215, 180, 180].map((v) => v * MPa),
     );
     expect(a5083.youngsModulus).toBe(71_700 * MPa);
-    // Source: ASM Handbook Vol. 2 (1990), 7075-T6 typical: Ftu 572, Fty 503, Fsu 331 MPa, E 71.7 GPa, 2810 kg/m3.
+    // Source: Aluminum Association typical values for 7075-T6/T651 as reproduced on a public materials page
+    // (substech.com, wrought aluminium-zinc-magnesium alloy 7075): Ftu 572, Fty 503, Fsu 331 MPa, 2.81 x 10^3 kg/m3,
+    // E 72 GPa (stored 71.7 GPa, within that rounding). The cited ASM Handbook Vol. 2 itself was not read.
     const a7075 = onlySet('al-7075-t6', 'asm-hb2-nonferrous-1990');
     expect([a7075.tensileStrength, a7075.tensileYield, a7075.shearStrength]).toEqual([572, 503, 331].map((v) => v * MPa));
     expect(a7075.youngsModulus).toBe(71.7 * GPa);
@@ -350,14 +358,22 @@ describe('values against their published sources', () => {
   });
 
   it('no value on the unsafe side of its public source (corrections of the seed check)', () => {
-    // Source: Aluminum Design Manual, Table 3.3-1M, 5083-H116 4-40 mm: Fcy 180 MPa, below Fty 215 MPa.
+    // Source: Aluminum Design Manual, Table 3.3-1M, 5083-H116 4-40 mm: Fcy 180 MPa, below Fty 215 MPa,
+    // and Fsu 180 MPa (the 0.6 x Ftu rule gave 183 MPa).
     const b928 = onlySet('al-5083-h116', 'astm-b928');
     expect(b928.compressiveYield).toBe(180 * MPa);
     expect(b928.compressiveStrength).toBeLessThanOrEqual(180 * MPa);
+    expect(b928.shearStrength).toBe(180 * MPa);
     // Source: MIL-HDBK-5J (2003) Table 2.6.9.0(e), UNS S17400 H1150 bar: Fcy 90 ksi, Fsu 79 ksi (A-basis).
-    const s17400 = onlySet('s17400', 'mmpds-01');
+    const s17400 = onlySet('s17400', 'mil-hdbk-5j');
     expect(s17400.compressiveYield! / KSI).toBeCloseTo(90, 0);
     expect(s17400.shearStrength / KSI).toBeCloseTo(79, 0);
+    expect(s17400.valueDetails.compressiveYield?.basis).toBe('statistical-allowable');
+    // Source: NIST SRD 150, Sintered Alumina, property table at 20 C: elastic modulus 416(30) GPa,
+    // compressive strength 3.0(5) GPa (the set carried 370 GPa and 2600 MPa before the seed check).
+    const alumina = onlySet('alumina', 'nist-srd150-alumina');
+    expect(alumina.youngsModulus).toBe(416 * GPa);
+    expect(alumina.compressiveStrength).toBe(3000 * MPa);
     // Source: MIL-HDBK-5J Fig. 3.7.6.1.1(c) (7075-T6) and Fig. 3.6.2.2.1(a) (6061-T6), 10,000 h
     // curves, values interpolated from digitised points of a public transcription [calc]: the
     // factors may not exceed them.
@@ -381,9 +397,11 @@ describe('values against their published sources', () => {
   });
 
   it('soda-lime glass carries the EN characteristic bending strengths', () => {
-    // Source: EN 572-1 (annealed 45 MPa, E 70,000 MPa, Poisson 0.2, 2500 kg/m3), EN 1863-1 (heat
-    // strengthened 70 MPa) and EN 12150-1 (thermally toughened 120 MPa), as seen in a glazing-industry
-    // reproduction of the EN values; EN 12337-1 chemically strengthened 150 MPa is [memory].
+    // Source: a public glass design-strength calculator's table of characteristic bending strengths
+    // (secondary transcription of the EN product standards): EN 572-1 annealed 45, EN 1863-1 heat
+    // strengthened 70, EN 12150-1 toughened 120, EN 12337-1 chemically toughened 150 N/mm2; annealed 45 MPa
+    // also in a float-glass manufacturer's technical handbook, section 1.2.2.5; E 70 GPa on a glass
+    // processor's properties page. Poisson 0.2 and 2500 kg/m3 are [memory] (seen in an earlier check only).
     const annealed = onlySet('soda-lime-glass', 'en-572-1');
     expect(annealed.tensileStrength).toBe(45 * MPa);
     expect(annealed.youngsModulus).toBe(70 * GPa);
@@ -393,15 +411,16 @@ describe('values against their published sources', () => {
     expect(onlySet('soda-lime-glass', 'en-1863-1').tensileStrength).toBe(70 * MPa);
     expect(onlySet('soda-lime-glass', 'en-12150-1').tensileStrength).toBe(120 * MPa);
     expect(onlySet('soda-lime-glass', 'en-12337-1').tensileStrength).toBe(150 * MPa);
-    // Source: Ashby & Jones, Engineering Materials 2: soda glass E 74 GPa, modulus of rupture 50 MPa,
-    // compressive strength 1000 MPa.
+    // Source: Dowling, Mechanical Behavior of Materials, Table 3.10 (its sources include Ashby 2006):
+    // soda-lime glass E 74 GPa, tension about 50 MPa, compression 1000 MPa. Ashby & Jones itself was not read.
     const handbook = onlySet('soda-lime-glass', 'ashby-jones-em2');
     expect([handbook.youngsModulus, handbook.tensileStrength, handbook.compressiveStrength]).toEqual([74 * GPa, 50 * MPa, 1000 * MPa]);
   });
 
   it('annealed glass static fatigue follows the EN 16612 load-duration factor', () => {
     // Source: EN 16612:2019 load-duration factor k_mod = 0.663 t^(-1/16), t in hours, not above 1
-    // ([memory] formula; consistent with the recalled tabulated 0.74 for 10 min and 0.29 for 50 years).
+    // ([memory] formula); the tabulated k_mod of a public glass design-strength calculator for EN 16612
+    // gives 0.74 for 10 min, 0.60 for 5 h, 0.48 for 1 week and 0.29 for 50 years.
     const s = onlySet('soda-lime-glass', 'en-16612');
     expect(s.sustainedLoadFactors.length).toBeGreaterThanOrEqual(5);
     for (const p of s.sustainedLoadFactors) {
@@ -410,18 +429,171 @@ describe('values against their published sources', () => {
     const fiftyYears = s.sustainedLoadFactors.at(-1)!;
     expect(fiftyYears.hours).toBeCloseTo(50 * 8760, -3);
     expect(fiftyYears.factor).toBeCloseTo(0.29, 2);
+    const at = (hours: number) => Math.min(1, 0.663 * hours ** (-1 / 16));
+    expect(at(10 / 60)).toBeCloseTo(0.74, 2);
+    expect(at(5)).toBeCloseTo(0.6, 2);
+    expect(at(168)).toBeCloseTo(0.48, 2);
   });
 
-  it('sapphire and fused silica carry their handbook elastic and compressive values', () => {
-    // Source: Harris, Materials for Infrared Windows and Domes (1999): sapphire E about 345 GPa,
-    // compressive about 2000 MPa, 3980 kg/m3 ([memory] for the figures, not confirmed in the book).
+  it('sapphire and fused silica carry their published elastic and compressive values', () => {
+    // Source: a sapphire supplier's public property table (Harris, the cited book, was not read):
+    // density 3.98 g/cc, Young's modulus 345 GPa, compression strength 2.0 GPa, tensile 400 MPa at 20 C.
     const sapphire = onlySet('sapphire', 'harris-ir-windows-1999');
     expect(sapphire.youngsModulus).toBe(345 * GPa);
     expect(sapphire.compressiveStrength).toBe(2000 * MPa);
     expect(sapphire.density).toBe(3980);
-    // Source: ASM Engineered Materials Handbook Vol. 4 (1991): fused silica E 73 GPa, Poisson 0.17,
-    // compressive 1100 MPa ([memory]).
+    expect(sapphire.tensileStrength).toBe(400 * MPa);
+    // Source: a public material-property compilation (makeitfrom.com, fused silica): E 73 GPa, Poisson 0.17,
+    // compressive (crushing) strength 1100 MPa. The cited ASM Engineered Materials Handbook Vol. 4 was not read.
     const silica = onlySet('fused-silica', 'asm-emh4-ceramics-glasses-1991');
     expect([silica.youngsModulus, silica.poissonsRatio, silica.compressiveStrength]).toEqual([73 * GPa, 0.17, 1100 * MPa]);
+  });
+});
+
+describe('value status (provenance) of the seed check', () => {
+  const rawSets = (raw as { propertySets: (Record<string, unknown> & { provenance?: unknown })[] }).propertySets;
+  const entries = catalogue.propertySets.flatMap((s) => Object.entries(s.provenance).map(([key, entry]) => ({ set: s, key, entry })));
+
+  it("parses every set's provenance with the shared schema and gives a status only to values the set has", () => {
+    for (const [i, rawSet] of rawSets.entries()) {
+      const label_ = label(catalogue.propertySets[i]);
+      expect(rawSet.provenance, `${label_}: provenance is written out`).toBeDefined();
+      expect(provenanceInputSchema.safeParse(rawSet.provenance).success, label_).toBe(true);
+      const present = new Set(presentKeys(catalogue.propertySets[i]));
+      for (const key of Object.keys(rawSet.provenance as object)) {
+        expect(PROVENANCE_KEYS as readonly string[], `${label_}: ${key}`).toContain(key);
+        expect(present.has(key as (typeof PROVENANCE_KEYS)[number]), `${label_}: ${key} has a status but no value`).toBe(true);
+      }
+    }
+  });
+
+  it('gives every confirmed value a location and every derived value its rule', () => {
+    for (const { set, key, entry } of entries) {
+      if (entry.status === 'confirmed') expect(entry.location?.length ?? 0, `${label(set)}: ${key}`).toBeGreaterThan(5);
+      if (entry.status === 'derived') expect(entry.rule?.length ?? 0, `${label(set)}: ${key}`).toBeGreaterThan(5);
+    }
+  });
+
+  it('names every outside source by an address, or says why none is recorded', () => {
+    // A source other than the set's own reference is named by title and public address; where the
+    // seed check could not record one (a file found through a code search), the source says so.
+    for (const { set, key, entry } of entries) {
+      if (entry.source) expect(entry.source, `${label(set)}: ${key}`).toMatch(/https?:\/\/|github\.com\/|catalogue reference|not recorded|quoted/);
+    }
+  });
+
+  it('holds no demo data: the invented Harrow Sound records belong to tests and the demo project only', () => {
+    expect(entries.filter((e) => e.entry.status === 'demo').map((e) => `${label(e.set)}: ${e.key}`)).toEqual([]);
+    for (const s of catalogue.propertySets) expect(s.condition, label(s)).not.toMatch(/harrow|demo|trial lot/i);
+    for (const r of catalogue.references) expect(`${r.title} ${r.authors ?? ''} ${r.note ?? ''}`, r.key).not.toMatch(/harrow|demo data/i);
+  });
+
+  it('confirms more than half of all values, counted as the research counts them', () => {
+    // Each present scalar once, the service range once, each non-empty dependence curve once
+    // (presentKeys); confirmed and derived values count, recalled ones (no entry) do not.
+    const byFamily = new Map<Family, { total: number; confirmed: number; derived: number }>();
+    for (const s of catalogue.propertySets) {
+      const f = byFamily.get(familyOf(s)) ?? { total: 0, confirmed: 0, derived: 0 };
+      for (const key of presentKeys(s)) {
+        f.total++;
+        if (statusOf(s.provenance, key) === 'confirmed') f.confirmed++;
+        if (statusOf(s.provenance, key) === 'derived') f.derived++;
+      }
+      byFamily.set(familyOf(s), f);
+    }
+    const all = [...byFamily.values()].reduce((a, f) => ({ total: a.total + f.total, confirmed: a.confirmed + f.confirmed, derived: a.derived + f.derived }), { total: 0, confirmed: 0, derived: 0 });
+    const pct = (f: { total: number; confirmed: number; derived: number }) => `${(((f.confirmed + f.derived) / f.total) * 100).toFixed(1)} %`;
+    const lines = FAMILIES.map((family) => {
+      const f = byFamily.get(family)!;
+      return `  ${family.padEnd(17)} ${String(f.confirmed + f.derived).padStart(3)} of ${String(f.total).padStart(3)} (${pct(f)}; confirmed ${f.confirmed}, derived ${f.derived})`;
+    });
+    console.log(`Seed values confirmed or derived: ${all.confirmed + all.derived} of ${all.total} (${pct(all)}; confirmed ${all.confirmed}, derived ${all.derived})\n${lines.join('\n')}`);
+    expect((all.confirmed + all.derived) / all.total).toBeGreaterThan(0.5);
+  });
+
+  // The corrections of the seed check, each pinned with the public source it was read in.
+  const entry = (material: string, reference: string, key: (typeof PROVENANCE_KEYS)[number]) => onlySet(material, reference).provenance[key];
+
+  it('ADM Table 3.3-1M: 5083-H116 sheet and plate 4-40 mm Fcy 180 MPa and Fsu 180 MPa, in both 5083 sets', () => {
+    // Source: Aluminum Association, Aluminum Design Manual, Table 3.3-1M (public page copy), row
+    // "-H116 Sheet & Plate 4.00 to 40.00 305 215 180 180 71,700". The B928 set carried 215 MPa
+    // (compressive = tensile yield) and 183 MPa (0.6 x Ftu) before the check.
+    for (const reference of ['aa-adm-2005', 'astm-b928']) {
+      const s = onlySet('al-5083-h116', reference);
+      expect(s.compressiveYield, reference).toBe(180 * MPa);
+      expect(s.compressiveStrength, reference).toBe(180 * MPa);
+      expect(s.shearStrength, reference).toBe(180 * MPa);
+      expect(entry('al-5083-h116', reference, 'compressiveYield')).toMatchObject({ status: 'confirmed', location: expect.stringMatching(/Table 3\.3-1M.*Fcy 180 MPa/) });
+      expect(entry('al-5083-h116', reference, 'shearStrength')).toMatchObject({ status: 'confirmed', location: expect.stringMatching(/Table 3\.3-1M.*Fsu 180 MPa/) });
+    }
+    expect(entry('al-5083-h116', 'astm-b928', 'compressiveYield')?.source).toMatch(/Aluminum Design Manual/);
+  });
+
+  it('MIL-HDBK-5J Table 3.5.2.0(b): 5083 sheet and plate density 0.096 lb/in3 and Poisson 0.33', () => {
+    // Source: MIL-HDBK-5J (2003) Table 3.5.2.0(b), 5083 sheet and plate, as in the public transcription
+    // of its tables (github.com/bckasper3/KasperCalc, js/data/design-allowables.json): density 0.096 lb/in3
+    // (2657 kg/m3; 0.0955-0.0965 lb/in3 is 2643-2671 kg/m3), mu 0.33.
+    const LB_PER_IN3 = 27_679.9; // kg/m3 per lb/in3
+    for (const reference of ['aa-adm-2005', 'astm-b928']) {
+      const s = onlySet('al-5083-h116', reference);
+      expect(Math.abs(s.density - 0.096 * LB_PER_IN3), reference).toBeLessThanOrEqual(0.0005 * LB_PER_IN3);
+      expect(s.poissonsRatio, reference).toBe(0.33);
+      expect(s.provenance.density).toMatchObject({ status: 'confirmed', location: expect.stringContaining('Table 3.5.2.0(b)') });
+    }
+  });
+
+  it('MIL-HDBK-5J Table 2.6.9.0(e): UNS S17400 H1150 bar A-basis Fcy 621 MPa (90 ksi) and Fsu 545 MPa (79 ksi)', () => {
+    // Source: MIL-HDBK-5J (2003) Table 2.6.9.0(e), bar to AMS 5643, H1150, A-basis, in the public
+    // transcription of its tables; the set carried 745 MPa and 586 MPa (the B-basis Fsu) before the check.
+    const s = onlySet('s17400', 'mil-hdbk-5j');
+    expect(s.compressiveYield).toBe(621 * MPa);
+    expect(s.compressiveStrength).toBe(621 * MPa);
+    expect(s.shearStrength).toBe(545 * MPa);
+    expect(Math.abs(s.compressiveYield! - 90 * KSI)).toBeLessThan(1 * MPa);
+    expect(Math.abs(s.shearStrength - 79 * KSI)).toBeLessThan(1 * MPa);
+    expect(s.provenance.compressiveYield).toMatchObject({ status: 'confirmed', location: expect.stringMatching(/Table 2\.6\.9\.0\(e\).*A-basis.*Fcy 90 ksi/) });
+    expect(s.provenance.shearStrength).toMatchObject({ status: 'confirmed', location: expect.stringMatching(/Table 2\.6\.9\.0\(e\).*A-basis.*Fsu 79 ksi/) });
+    // The condition names the product forms and bases its values come from.
+    expect(s.condition).toMatch(/bar A-basis Fcy and Fsu/);
+  });
+
+  it('NIST SRD 150: dense 99.5 % alumina E 416 GPa and compressive strength 3.0 GPa, and the set cites it', () => {
+    // Source: NIST SRD 150, Sintered Alumina property summary, table at 20 C: "Elastic Modulus [GPa]
+    // 416(30)", "Compressive Strength [GPa] 3.0(5)", "Flexural Strength [MPa] 380(50)". Before the
+    // check the set cited ASM EMH Vol. 4 (not read) with 370 GPa and 2600 MPa.
+    const s = onlySet('alumina', 'nist-srd150-alumina');
+    expect([s.youngsModulus, s.compressiveStrength, s.tensileStrength]).toEqual([416 * GPa, 3000 * MPa, 380 * MPa]);
+    expect(s.provenance.youngsModulus).toMatchObject({ status: 'confirmed', location: expect.stringContaining('416(30) GPa') });
+    expect(s.provenance.compressiveStrength).toMatchObject({ status: 'confirmed', location: expect.stringContaining('3.0(5) GPa') });
+    expect(referenceByKey.get('nist-srd150-alumina')?.identifier).toMatch(/Standard Reference Database 150/);
+  });
+
+  it('a public polycarbonate data sheet, ASTM D732: shear yield 41.4 MPa (6,000 psi), confirmed in both polycarbonate sets', () => {
+    // Source: a distributor's machine-grade polycarbonate data sheet: "Shear Strength at Yield (ASTM D732) 6000 psi".
+    for (const reference of ['asm-emh2-plastics-1988', 'harper-plastics-handbook-2002']) {
+      expect(entry('polycarbonate', reference, 'shearYield')).toMatchObject({ status: 'confirmed', location: expect.stringContaining('6,000 psi') });
+    }
+  });
+
+  it('MIL-HDBK-5J Fig. 3.7.6.1.1(c) and Fig. 3.6.2.2.1(a): the 7075-T6 and 6061-T6 temperature factors are the 10,000 h curves', () => {
+    // Source: MIL-HDBK-5J (2003), digitised 10,000 h curves of Ftu at temperature in a public
+    // transcription, interpolated and normalised at 24 C [calc]: 7075-T6 1.060 / 1.034 / 0.804 / 0.344 at
+    // -80 / -28 / 100 / 149 C; 6061-T6 1.094 / 1.052 / 0.902 / 0.737 / 0.402 at -80 / -28 / 100 / 149 / 204 C.
+    const factors = (material: string) => onlySet(material, 'asm-hb2-nonferrous-1990').temperatureFactors.map((p) => [p.temperature, p.factor]);
+    expect(factors('al-7075-t6')).toEqual([[-80, 1.06], [-28, 1.034], [24, 1], [100, 0.804], [149, 0.344]]);
+    expect(factors('al-6061-t6')).toEqual([[-80, 1.094], [-28, 1.052], [24, 1], [100, 0.902], [149, 0.737], [204, 0.402]]);
+    expect(entry('al-7075-t6', 'asm-hb2-nonferrous-1990', 'temperatureFactors')?.location).toContain('Fig. 3.7.6.1.1(c)');
+    expect(entry('al-6061-t6', 'asm-hb2-nonferrous-1990', 'temperatureFactors')?.location).toContain('Fig. 3.6.2.2.1(a)');
+  });
+
+  it('cites the sources the values were read in: MIL-HDBK-5J, not MMPDS-01; a supplier data sheet for the typical Ti-6Al-4V', () => {
+    // Source: MIL-HDBK-5J foreword, "MIL-HDBK-5J is equivalent to MMPDS-01" (public copy); the typical
+    // Ti-6Al-4V values (950 / 880 / 970 MPa, 113.8 GPa, 0.342) are a supplier's annealed Ti-6Al-4V data sheet.
+    expect(referenceByKey.has('mmpds-01')).toBe(false);
+    expect(referenceByKey.get('mil-hdbk-5j')).toMatchObject({ kind: 'handbook', year: 2003, identifier: expect.stringContaining('MMPDS-01') });
+    expect(setsOf('ti-6al-4v', 'asm-hb2-nonferrous-1990')).toEqual([]);
+    expect(referenceByKey.get('ti64-annealed-data-sheet')?.kind).toBe('supplier-data-sheet');
+    const typical = onlySet('ti-6al-4v', 'ti64-annealed-data-sheet');
+    expect([typical.tensileStrength, typical.tensileYield, typical.compressiveYield]).toEqual([950, 880, 970].map((v) => v * MPa));
   });
 });
