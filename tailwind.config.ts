@@ -1,32 +1,11 @@
 import type { Config } from 'tailwindcss';
+import { borderRadius, boxShadow, colors, fontFamily } from './shared/design-tokens';
 
-// Isobath's design tokens. Colours are named for the sea floor and the chart room:
-// ink for text, chart for surfaces, sounding (teal-blue) for actions, brass for
-// emphasis, and one colour per failure mode used consistently in tables and charts.
+// The theme comes from Isobath's design tokens (shared/design-tokens.ts), which the charts and
+// the design-record PDF read too.
 export default {
   content: ['./index.html', './src/**/*.{ts,tsx}'],
   theme: {
-    extend: {
-      colors: {
-        ink: { DEFAULT: '#10242f', soft: '#3b5360', faint: '#6b7f89' },
-        chart: { DEFAULT: '#f4f2ec', raised: '#fbfaf7', line: '#d9d4c7', deep: '#e8e4d9' },
-        sounding: { DEFAULT: '#1b5e6e', dark: '#123f4a', light: '#d6e8ea' },
-        brass: { DEFAULT: '#9c6a1c', light: '#f3e6cd' },
-        trench: '#0c1c24',
-        mode: {
-          tension: '#b5472f',
-          compression: '#2c5b87',
-          shear: '#6f7f25',
-          buckling: '#74468d',
-        },
-        verdict: { pass: '#2e7048', watch: '#a36a00', fail: '#a8261c' },
-      },
-      fontFamily: {
-        sans: ['Lato', 'system-ui', 'sans-serif'],
-        mono: ['ui-monospace', 'SFMono-Regular', 'Menlo', 'monospace'],
-      },
-      borderRadius: { plate: '3px' },
-      boxShadow: { plate: '0 1px 0 rgba(16,36,47,0.08), 0 0 0 1px rgba(16,36,47,0.06)' },
-    },
+    extend: { colors, fontFamily, borderRadius, boxShadow },
   },
 } satisfies Config;

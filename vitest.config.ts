@@ -18,7 +18,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'unit',
-          include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'data/**/*.test.ts', 'scripts/**/*.test.ts'],
+          include: ['shared/**/*.test.ts', 'server/**/*.test.ts', 'src/**/*.test.{ts,tsx}', 'data/**/*.test.ts', 'scripts/**/*.test.ts', 'tests/lint/**/*.test.ts'],
           environment: 'node',
         },
       },

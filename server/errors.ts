@@ -1,25 +1,37 @@
 import type { ZodError } from 'zod';
+import type { ErrorCode, FieldErrors } from '../shared/errors';
 
-export type FieldErrors = Record<string, string>;
+export type { ErrorCode, FieldErrors };
 
-/** An error the API reports to the caller as `{ error: { code, message, fields } }`. */
+/** Problems in the rows of an uploaded file, kept structured (row 1 = first data row). */
+export interface RowIssues {
+  issues: { row: number; field: string; message: string }[];
+  /** All issues found; `issues` may list only the first of them. */
+  issueCount: number;
+}
+
+/**
+ * An error the API reports to the caller as `{ error: { code, message, fields } }`; a file's
+ * row problems add `issues` and `issueCount` beside the fields.
+ */
 export class AppError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    readonly code: ErrorCode,
     message: string,
     readonly fields?: FieldErrors,
+    readonly rows?: RowIssues,
   ) {
     super(message);
   }
 }
 
-export const badRequest = (message: string, fields?: FieldErrors, code = 'invalid_input') =>
-  new AppError(400, code, message, fields);
+export const badRequest = (message: string, fields?: FieldErrors, code: ErrorCode = 'invalid_input', rows?: RowIssues) =>
+  new AppError(400, code, message, fields, rows);
 export const unauthorized = (message = 'Sign in to continue.') => new AppError(401, 'unauthenticated', message);
 export const forbidden = (message = 'Your role does not allow this.') => new AppError(403, 'forbidden', message);
 export const notFound = (what = 'The requested item') => new AppError(404, 'not_found', `${what} was not found.`);
-export const conflict = (message: string, code = 'conflict') => new AppError(409, code, message);
+export const conflict = (message: string, code: ErrorCode = 'conflict') => new AppError(409, code, message);
 export const unavailable = (message = 'The database is unavailable. Try again in a moment.') =>
   new AppError(503, 'unavailable', message);
 

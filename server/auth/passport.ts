@@ -5,7 +5,6 @@ import { verifyPassword } from './passwords';
 import { ROLE_PERMISSIONS, type SessionUserDto } from '../../shared/schemas/auth';
 
 declare global {
-  // eslint-disable-next-line @typescript-eslint/no-namespace
   namespace Express {
     interface User {
       id: number;

@@ -6,6 +6,8 @@ import * as m0002 from './migrations/0002-library-desk';
 import * as m0003 from './migrations/0003-projects';
 import * as m0004 from './migrations/0004-rating-tables';
 import * as m0005 from './migrations/0005-shear-yield';
+import * as m0006 from './migrations/0006-shortlist-rounds';
+import * as m0007 from './migrations/0007-value-provenance';
 
 // Listed explicitly: vitest cannot glob-load .ts migrations. Add new ones at the end.
 const MIGRATIONS = [
@@ -14,6 +16,8 @@ const MIGRATIONS = [
   { name: '0003-projects', ...m0003 },
   { name: '0004-rating-tables', ...m0004 },
   { name: '0005-shear-yield', ...m0005 },
+  { name: '0006-shortlist-rounds', ...m0006 },
+  { name: '0007-value-provenance', ...m0007 },
 ];
 
 export function migrator() {

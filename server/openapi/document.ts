@@ -22,6 +22,16 @@ const ERROR_SCHEMA = {
         code: { type: 'string' },
         message: { type: 'string' },
         fields: { type: 'object', additionalProperties: { type: 'string' }, description: 'Field path → what is wrong with it' },
+        issues: {
+          type: 'array',
+          description: 'Problems in the rows of an uploaded file (CSV import): data row (1 = first after the header), column ("_" = the whole row), message',
+          items: {
+            type: 'object',
+            required: ['row', 'field', 'message'],
+            properties: { row: { type: 'integer', minimum: 1 }, field: { type: 'string' }, message: { type: 'string' } },
+          },
+        },
+        issueCount: { type: 'integer', minimum: 0, description: 'All row problems found; issues lists at most 500' },
       },
     },
   },

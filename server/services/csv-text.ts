@@ -2,7 +2,7 @@
 // blank lines skipped. Anything that is not such a file is refused with a 400 (413 if too large)
 // that says how to save it properly. Used by every CSV import.
 import Papa from 'papaparse';
-import { AppError } from '../errors';
+import { AppError, type ErrorCode } from '../errors';
 
 export interface UploadedFile {
   buffer: Buffer;
@@ -10,7 +10,7 @@ export interface UploadedFile {
   size: number;
 }
 
-export const fileError = (code: string, message: string, fields?: Record<string, string>) => new AppError(400, code, message, fields);
+export const fileError = (code: ErrorCode, message: string, fields?: Record<string, string>) => new AppError(400, code, message, fields);
 
 /** The file's rows of cells (header included), or a 400/413 for a file that cannot be read as CSV text. */
 export function readCsvRows(file: UploadedFile, maxBytes: number): string[][] {

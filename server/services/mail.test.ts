@@ -1,11 +1,9 @@
 // Sends through nodemailer to the local SMTP catcher started in-process on a free port.
 import { mkdtemp, readdir, readFile, rm, writeFile } from 'node:fs/promises';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { startSmtpFake, type SmtpFake } from '../../scripts/fakes/smtp';
-import { resetEnvCache } from '../config/env';
 import { AppError } from '../errors';
 import {
   CAUGHT_MAIL_ID,
@@ -17,28 +15,12 @@ import {
   sendMail,
   sendMailSafely,
 } from './mail';
+import { closedPort, serviceTestEnv } from './test-env';
 
-const savedEnv = { ...process.env };
+const useEnv = serviceTestEnv(closeMail);
 let root: string;
 let mailDir: string;
 let catcher: SmtpFake;
-
-function useEnv(vars: Record<string, string | undefined>): void {
-  for (const [name, value] of Object.entries(vars)) {
-    if (value === undefined) delete process.env[name];
-    else process.env[name] = value;
-  }
-  resetEnvCache();
-  closeMail();
-}
-
-async function closedPort(): Promise<number> {
-  const server = createServer();
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  const { port } = server.address() as { port: number };
-  await new Promise<void>((resolve) => server.close(() => resolve()));
-  return port;
-}
 
 beforeAll(async () => {
   root = await mkdtemp(path.join(tmpdir(), 'isobath-mail-'));
@@ -57,16 +39,10 @@ beforeAll(async () => {
   });
 });
 
-afterEach(() => {
-  vi.restoreAllMocks();
-});
-
 afterAll(async () => {
   closeMail();
   await catcher?.stop();
   await rm(root, { recursive: true, force: true });
-  process.env = savedEnv;
-  resetEnvCache();
 });
 
 describe('sending mail to the catcher', () => {

@@ -1,13 +1,11 @@
 // Runs the document service against the local S3 fake (s3rver) started in-process on a free port.
 import { randomBytes } from 'node:crypto';
 import { mkdtemp, readdir, readFile, rm } from 'node:fs/promises';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { Readable } from 'node:stream';
-import { afterAll, afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { startS3Fake, type S3Fake } from '../../scripts/fakes/s3';
-import { resetEnvCache } from '../config/env';
 import {
   DocumentNotFoundError,
   InvalidDocumentKeyError,
@@ -19,20 +17,12 @@ import {
   getDocument,
   putDocument,
 } from './storage';
+import { closedPort, serviceTestEnv } from './test-env';
 
 const BUCKET = 'isobath-documents-test';
-const savedEnv = { ...process.env };
+const useEnv = serviceTestEnv(closeStorage);
 let dataDir: string;
 let fake: S3Fake;
-
-function useEnv(vars: Record<string, string | undefined>): void {
-  for (const [name, value] of Object.entries(vars)) {
-    if (value === undefined) delete process.env[name];
-    else process.env[name] = value;
-  }
-  resetEnvCache();
-  closeStorage();
-}
 
 async function readAll(stream: Readable): Promise<Buffer> {
   const chunks: Buffer[] = [];
@@ -45,30 +35,15 @@ async function filesUnder(dir: string): Promise<string[]> {
   return entries.filter((e) => e.isFile()).map((e) => path.join(e.parentPath, e.name));
 }
 
-/** A port that nothing listens on: bound, then released. */
-async function closedPort(): Promise<number> {
-  const server = createServer();
-  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
-  const { port } = server.address() as { port: number };
-  await new Promise<void>((resolve) => server.close(() => resolve()));
-  return port;
-}
-
 beforeAll(async () => {
   dataDir = await mkdtemp(path.join(tmpdir(), 'isobath-storage-'));
   fake = await startS3Fake({ port: 0, directory: dataDir, bucket: BUCKET });
-});
-
-afterEach(() => {
-  vi.restoreAllMocks();
 });
 
 afterAll(async () => {
   closeStorage();
   await fake?.stop();
   await rm(dataDir, { recursive: true, force: true });
-  process.env = savedEnv;
-  resetEnvCache();
 });
 
 describe('document storage on the S3 fake', () => {

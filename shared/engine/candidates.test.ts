@@ -1,35 +1,23 @@
 import { describe, expect, it } from 'vitest';
-import type { PropertySetDto } from '../schemas/catalogue';
+import { propertySetDto } from '../schemas/test-fixtures';
 import { candidateFromInline, candidateFromPropertySet } from './candidates';
+import { titanium } from './test-materials';
 
 describe('candidates', () => {
-  const dto: PropertySetDto = {
+  // The demo titanium plate of test-materials.ts as a published catalogue set, with no compressive
+  // yield of its own.
+  const { density, youngsModulus, poissonsRatio, tensileStrength, tensileYield, compressiveStrength, shearStrength } = titanium;
+  const dto = propertySetDto({
     id: 41,
-    status: 'published',
-    version: 2,
     condition: 'annealed plate',
     material: { id: 5, name: 'Titanium alloy Ti-6Al-4V', family: 'titanium-alloy', transparent: false, description: null },
-    reference: null,
-    density: 4430,
-    youngsModulus: 114e9,
-    poissonsRatio: 0.31,
-    tensileStrength: 896e6,
-    tensileYield: 827e6,
-    compressiveStrength: 896e6,
-    compressiveYield: null,
-    shearStrength: 550e6,
+    ...{ density, youngsModulus, poissonsRatio, tensileStrength, tensileYield, compressiveStrength, shearStrength },
     elongation: 0.1,
     luminousTransmittance: null,
     serviceTemperature: { min: -50, max: 300 },
-    valueDetails: {},
     temperatureFactors: [{ temperature: 20, factor: 1 }],
-    sustainedLoadFactors: [],
-    cyclicFactors: [],
-    draftedBy: null,
-    approvedBy: null,
-    publishedAt: null,
     updatedAt: '2026-01-01T00:00:00Z',
-  };
+  });
 
   it('a property set keeps its id, family and values; the name carries the condition', () => {
     const c = candidateFromPropertySet(dto);

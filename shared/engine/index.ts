@@ -13,8 +13,11 @@
  */
 
 // Evaluation and ranking
-export { evaluate, evaluateCandidate, prepareLoadCase, targetFor } from './evaluate';
-export type { EvaluateInput, PreparedLoadCase } from './evaluate';
+export { evaluate } from './evaluate';
+export type { EvaluateInput } from './evaluate';
+export { prepareLoadCase, targetFor } from './load-case';
+export type { PreparedLoadCase } from './load-case';
+export { evaluateCandidate } from './evaluate-candidate';
 export { sortResults, compareResults, topResults, rankKey } from './rank';
 export { sweepThickness, MAX_SWEEP_STEPS } from './sweep';
 export type { SweepOptions, SweepResult, SweepSeries, GoverningTransition } from './sweep';

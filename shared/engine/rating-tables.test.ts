@@ -5,7 +5,10 @@ import { describe, expect, it } from 'vitest';
 import type { LoadCaseInput } from '../schemas/evaluate';
 import { ratingTableContentSchema, type RatingTableContent } from '../schemas/rating-tables';
 import { evaluate } from './evaluate';
+import { chamberViewport, withThickness } from './evaluate-fixtures';
 import { minimumRatioAt, ratedPressureAt, rateWithTable, tableCovers } from './rating-tables';
+import { acrylicLotMinimums, glass, sapphire } from './test-materials';
+import { PSI } from './test-support';
 import type { CandidateMaterial, RatingTable } from './types';
 
 // The seeded rating tables (data/rating-tables.json), each validated by the shared schema.
@@ -21,7 +24,6 @@ const tables: Record<string, RatingTable> = Object.fromEntries(
 const flat = tables['class-flat-acrylic'];
 const cone90 = tables['stachiw-cones-90-150'];
 const BAR = 1e5;
-const PSI = 6894.757293168;
 
 /**
  * Source of every value below: a classification society's Rules and Guidance for the
@@ -149,27 +151,16 @@ describe('the critical-pressure form: design pressure ≤ STCP / conversion fact
 // Evaluate with the tables
 // ---------------------------------------------------------------------------------------------
 
-/** Acrylic at the pressure-window standard's lot minimums (UFC 4-159-01 Tables 3-1, 3-2 [pub]), no curves of its own. */
-const lotMinimum: CandidateMaterial = {
-  name: 'Cast acrylic, lot minimums',
-  propertySetId: 1,
-  family: 'acrylic',
-  density: 1190,
-  youngsModulus: 2.76e9,
-  poissonsRatio: 0.37,
-  tensileStrength: 62e6,
-  compressiveStrength: 103e6,
-  compressiveYield: 103e6,
-  shearStrength: 55e6,
-};
+// The window: acrylic at the pressure-window standard's lot minimums (UFC 4-159-01 Tables 3-1, 3-2
+// [pub]), no curves of its own (test-materials.ts), as the catalogue's set 1.
+const lotMinimum: CandidateMaterial = { ...acrylicLotMinimums, propertySetId: 1 };
 const covered: CandidateMaterial = { ...lotMinimum, ratingTables: [flat, cone90, tables['stachiw-cones-60']] };
 
+// The 5 bar chamber viewport of evaluate-fixtures.ts at another pressure, temperature and thickness.
 const disc = (bar: number, T: number, thickness = 0.04, extra: Partial<LoadCaseInput> = {}): LoadCaseInput => ({
+  ...withThickness(chamberViewport, thickness),
   pressure: { value: bar * BAR },
   temperature: { min: T, max: T },
-  sustainedHours: 2000,
-  cycles: 3000,
-  component: { type: 'flat-disc', diameter: 0.25, thickness, edge: 'simply-supported' },
   ...extra,
 });
 
@@ -227,8 +218,7 @@ describe('evaluate: a covering rating table sizes the window, the analytical mod
 });
 
 describe('human occupancy: windows no rule covers warn and rank below covered ones', () => {
-  const glass: CandidateMaterial = { name: 'Borosilicate glass (demo)', family: 'glass', density: 2230, youngsModulus: 64e9, poissonsRatio: 0.2, tensileStrength: 40e6, compressiveStrength: 1000e6, shearStrength: 40e6 };
-  const sapphire: CandidateMaterial = { name: 'Sapphire (demo)', family: 'sapphire-alumina', density: 3980, youngsModulus: 345e9, poissonsRatio: 0.29, tensileStrength: 400e6, compressiveStrength: 2000e6, shearStrength: 300e6 };
+  // glass and sapphire: the demo brittle windows of test-materials.ts
   const crewed = disc(5, 24, 0.04, { humanOccupancy: true });
 
   it('covered first by default; the toggle ranks them together; the uncovered carry the warning', () => {

@@ -5,27 +5,21 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod';
 import { evaluateRequestSchema, loadCaseSchema, pressureQuerySchema } from '../schemas/evaluate';
+import { cameraCone } from './evaluate-fixtures';
+import { acrylicLotMinimums } from './test-materials';
 
+// The 4,000 m camera cone of evaluate-fixtures.ts, a catalogue set and an inline material: the
+// lot-minimum acrylic of test-materials.ts with its compressive value as a strength only and its own
+// sustained-load point.
 const valid = {
-  loadCase: {
-    pressure: { depth: 4000, latitude: 42, water: 'sea' },
-    temperature: { min: 1, max: 25 },
-    sustainedHours: 500,
-    cycles: 400,
-    component: { type: 'conical-frustum', minorDiameter: 0.05, thickness: 0.06, includedAngle: 90 },
-  },
+  loadCase: cameraCone,
   candidates: [
     { propertySetId: 12 },
     {
       inline: {
+        ...acrylicLotMinimums,
         name: 'Harrow Sound trial acrylic',
-        family: 'acrylic',
-        density: 1190,
-        youngsModulus: 2.76e9,
-        poissonsRatio: 0.37,
-        tensileStrength: 62e6,
-        compressiveStrength: 103e6,
-        shearStrength: 55e6,
+        compressiveYield: undefined,
         sustainedLoadFactors: [{ hours: 1000, factor: 0.6 }],
       },
     },

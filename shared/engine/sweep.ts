@@ -3,7 +3,8 @@
  * mode changes; transitions are located by root finding between sweep points.
  */
 import type { LoadCaseInput } from '../schemas/evaluate';
-import { modeMaterial, prepareLoadCase, targetFor } from './evaluate';
+import { prepareLoadCase, targetFor } from './load-case';
+import { modeMaterial } from './evaluate-candidate';
 import { brent } from './solve';
 import type { CandidateMaterial, FailureMode } from './types';
 

@@ -2,6 +2,7 @@
  * Shared types of the calculation engine. All quantities are SI: Pa, m, kg/m³, °C, hours, cycles.
  */
 import type { Family } from '../schemas/catalogue';
+import type { InputStatus } from '../schemas/provenance';
 
 /** The four failure modes a result can be governed by. */
 export type FailureMode = 'tension' | 'compression' | 'shear' | 'buckling';
@@ -54,6 +55,8 @@ export interface CandidateMaterial {
   temperatureFactors?: readonly TemperatureFactorPoint[] | null;
   sustainedLoadFactors?: readonly HoursFactorPoint[] | null;
   cyclicFactors?: readonly CyclesFactorPoint[] | null;
+  /** How many of the inputs the calculation uses are confirmed against their source (catalogue sets). */
+  inputs?: InputStatus;
   /**
    * Published rating tables that cover this candidate's material grade (attached by the server
    * from the catalogue). For a window component one of them, when it covers the geometry, sizes
@@ -162,6 +165,8 @@ export interface CandidateResult {
   factors: AppliedFactors;
   modes: ModeResult[];
   warnings: string[];
+  /** The status of the inputs used (catalogue sets): how many are confirmed, which are not. */
+  inputs?: InputStatus;
 }
 
 export type SortBy = 'margin' | 'requiredThickness' | 'massPerArea' | 'weightToDisplacement';

@@ -19,3 +19,8 @@ export interface SessionUserDto {
   role: Role;
   permissions: Permission[];
 }
+
+/** The answer to sign-in, GET /api/auth/me and accepting an invitation. */
+export interface SessionDto {
+  user: SessionUserDto;
+}

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { ListDto } from './responses';
 
 /** Material families in the catalogue. Slugs are stable API values; labels are for screens. */
 export const FAMILIES = [
@@ -37,52 +38,14 @@ export const REFERENCE_KINDS = ['standard', 'handbook', 'paper', 'test-report', 
 export const referenceKindSchema = z.enum(REFERENCE_KINDS);
 export type ReferenceKind = z.infer<typeof referenceKindSchema>;
 
-export const REFERENCE_KIND_LABELS: Record<ReferenceKind, string> = {
-  standard: 'Standard',
-  handbook: 'Handbook',
-  paper: 'Paper',
-  'test-report': 'Test report',
-  'supplier-data-sheet': 'Supplier data sheet',
-};
-
 /** How a value was established. */
 export const VALUE_BASES = ['minimum', 'typical', 'statistical-allowable'] as const;
 export const valueBasisSchema = z.enum(VALUE_BASES);
 export type ValueBasis = z.infer<typeof valueBasisSchema>;
 
-/**
- * Scalar quantities a property set may carry, all SI:
- * density kg/m³; moduli and strengths Pa; Poisson's ratio, elongation and
- * luminous transmittance as fractions (0.02 = 2 %).
- */
-export const QUANTITIES = [
-  'density',
-  'youngsModulus',
-  'poissonsRatio',
-  'tensileStrength',
-  'tensileYield',
-  'compressiveStrength',
-  'compressiveYield',
-  'shearStrength',
-  'shearYield',
-  'elongation',
-  'luminousTransmittance',
-] as const;
-export type Quantity = (typeof QUANTITIES)[number];
-
-export const QUANTITY_LABELS: Record<Quantity, string> = {
-  density: 'Density',
-  youngsModulus: "Young's modulus",
-  poissonsRatio: "Poisson's ratio",
-  tensileStrength: 'Tensile strength',
-  tensileYield: 'Tensile yield',
-  compressiveStrength: 'Compressive strength',
-  compressiveYield: 'Compressive yield',
-  shearStrength: 'Shear strength',
-  shearYield: 'Shear yield',
-  elongation: 'Elongation at break',
-  luminousTransmittance: 'Luminous transmittance',
-};
+export { QUANTITIES, QUANTITY_LABELS, type Quantity } from './quantities';
+import { QUANTITIES, type Quantity } from './quantities';
+import { provenanceInputSchema, type Provenance } from './provenance';
 
 /** Basis, test method and test temperature of one value. */
 export const valueDetailSchema = z.object({
@@ -94,7 +57,8 @@ export type ValueDetail = z.infer<typeof valueDetailSchema>;
 
 const finite = z.number().refine(Number.isFinite, 'must be a finite number');
 const positive = finite.refine((v) => v > 0, 'must be greater than zero');
-const fraction = finite.refine((v) => v >= 0 && v <= 1, 'must be between 0 and 1');
+const fraction = finite.refine((v) => v >= 0 && v <= 1, 'must be between 0 and 1 (0 to 100 %)');
+const temperatureC = finite.refine((v) => v >= -273.15, 'must not be below absolute zero (-273.15 °C)');
 
 /** Strength factor (multiplier on the reference-condition strength) against a variable. */
 export const temperaturePointSchema = z.object({ temperature: finite, factor: positive });
@@ -103,6 +67,8 @@ export const cyclesPointSchema = z.object({ cycles: finite.refine((v) => v >= 0,
 export type TemperaturePoint = z.infer<typeof temperaturePointSchema>;
 export type HoursPoint = z.infer<typeof hoursPointSchema>;
 export type CyclesPoint = z.infer<typeof cyclesPointSchema>;
+
+const bothNumbers = z.object({ min: finite, max: finite });
 
 /** The values of a property set, as stored and exchanged (SI). */
 export const propertyValuesSchema = z.object({
@@ -117,13 +83,18 @@ export const propertyValuesSchema = z.object({
   shearYield: positive.nullish(),
   elongation: fraction.nullish(),
   luminousTransmittance: fraction.nullish(),
-  serviceTemperature: z
-    .object({ min: finite, max: finite })
-    .refine((r) => r.min <= r.max, { message: 'min must not exceed max', path: ['max'] }),
+  serviceTemperature: z.object({ min: temperatureC, max: temperatureC }).refine((r) => r.min <= r.max, {
+    message: 'min must not exceed max',
+    path: ['max'],
+    // Compared whenever both ends are numbers, even if one is below absolute zero.
+    when: (payload) => bothNumbers.safeParse(payload.value).success,
+  }),
   valueDetails: z.partialRecord(z.enum(QUANTITIES), valueDetailSchema).default({}),
   temperatureFactors: z.array(temperaturePointSchema).max(50).default([]),
   sustainedLoadFactors: z.array(hoursPointSchema).max(50).default([]),
   cyclicFactors: z.array(cyclesPointSchema).max(50).default([]),
+  /** The status of each value: confirmed, recalled, derived or demo (shared/schemas/provenance.ts). */
+  provenance: provenanceInputSchema,
 });
 export type PropertyValues = z.infer<typeof propertyValuesSchema>;
 
@@ -223,6 +194,8 @@ export interface PropertySetDto {
   luminousTransmittance: number | null;
   serviceTemperature: { min: number; max: number };
   valueDetails: Partial<Record<Quantity, ValueDetail>>;
+  /** Each value's status; a value with no entry is recalled. Optional only for hand-built fixtures. */
+  provenance?: Provenance;
   temperatureFactors: TemperaturePoint[];
   sustainedLoadFactors: HoursPoint[];
   cyclicFactors: CyclesPoint[];
@@ -241,3 +214,11 @@ export interface PropertySetListDto {
   items: PropertySetDto[];
   total: number;
 }
+
+/** GET /api/materials/:id: a material with the property sets the caller may read. */
+export interface MaterialDetailDto extends MaterialDto {
+  propertySets: PropertySetDto[];
+}
+
+/** GET /api/materials: every material, by family then name. */
+export type MaterialListDto = ListDto<MaterialDto>;

@@ -4,17 +4,25 @@
  */
 import { z } from 'zod';
 import {
-  familySchema,
   materialInputSchema,
   propertyValuesSchema,
   referenceInputSchema,
   type PropertySetDto,
   type ReferenceDto,
 } from './catalogue';
+import type { ItemsDto, ListDto } from './responses';
 
 const id = z.number().int().positive().max(2_147_483_647);
 /** Optimistic lock: the version the client last read; a stale one gets 409. */
 export const lockVersionSchema = z.number().int().min(0).max(2_147_483_647);
+
+/**
+ * Runs a rule across fields whenever the fields it compares are valid, even when others are not,
+ * so one check reports every problem (zod skips object refinements after any other issue).
+ */
+const whenValid = (fields: z.ZodType) => ({ when: (payload: { value: unknown }) => fields.safeParse(payload.value).success });
+const yieldAndStrength = propertyValuesSchema.pick({ tensileStrength: true, tensileYield: true });
+const anyObject = z.object({});
 
 /**
  * A draft's content. Either an existing material (materialId) or a new one (material), and
@@ -33,14 +41,17 @@ export const draftInputSchema = propertyValuesSchema
   .refine((d) => (d.materialId === undefined) !== (d.material === undefined), {
     message: 'Choose an existing material or describe a new one (not both)',
     path: ['materialId'],
+    ...whenValid(anyObject),
   })
   .refine((d) => !(d.referenceId && d.reference), {
     message: 'Choose an existing reference or describe a new one (not both)',
     path: ['referenceId'],
+    ...whenValid(anyObject),
   })
   .refine((d) => d.tensileYield == null || d.tensileYield <= d.tensileStrength, {
     message: 'Tensile yield cannot exceed tensile strength',
     path: ['tensileYield'],
+    ...whenValid(yieldAndStrength),
   });
 export type DraftInput = z.input<typeof draftInputSchema>;
 export type DraftData = z.output<typeof draftInputSchema>;
@@ -99,12 +110,18 @@ export interface LibrarySetDto extends PropertySetDto {
   submittedAt: string | null;
 }
 
+/** GET /api/library/sets: the desk's queue. */
+export type LibrarySetListDto = ListDto<LibrarySetDto>;
+
 export interface ReferenceDetailDto extends ReferenceDto {
   lockVersion: number;
   document: { name: string; size: number; uploadedAt: string } | null;
   /** Number of property sets citing it. */
   usedBy: number;
 }
+
+/** GET /api/references. */
+export type ReferenceListDto = ListDto<ReferenceDetailDto>;
 
 /** One changed value between a set and the version it supersedes. */
 export interface ValueChangeDto {
@@ -113,7 +130,16 @@ export interface ValueChangeDto {
   after: unknown;
 }
 
-/** CSV import: one problem in one cell (row is the 1-based data row, header excluded). */
+/** GET /api/library/sets/:id/changes: what differs from the version the set supersedes (none: previous is null). */
+export interface SetChangesDto {
+  previous: LibrarySetDto | null;
+  changes: ValueChangeDto[];
+}
+
+/**
+ * CSV import: one problem in one cell. `row` is the 1-based data row (header excluded); `field`
+ * is the CSV column's name, or "_" for the whole row (e.g. a wrong number of fields).
+ */
 export interface ImportIssueDto {
   row: number;
   field: string;
@@ -157,32 +183,16 @@ export interface CaughtMailDto {
   text: string;
 }
 
-/** The CSV template's columns: units are part of the header, values convert to SI on import. */
-export const IMPORT_COLUMNS = [
-  { name: 'material', required: true, help: 'Material name; an existing one is matched case-insensitively, otherwise it is created' },
-  { name: 'family', required: true, help: `One of: ${familySchema.options.join(', ')}` },
-  { name: 'transparent', required: true, help: 'yes or no' },
-  { name: 'condition', required: true, help: 'Form, temper, grade or test state' },
-  { name: 'reference_title', required: true, help: 'Title of the source; matched with the identifier, otherwise created' },
-  { name: 'reference_kind', required: true, help: 'standard, handbook, paper, test-report or supplier-data-sheet' },
-  { name: 'reference_authors', required: false, help: 'Authors or issuing body' },
-  { name: 'reference_year', required: false, help: 'Year of publication' },
-  { name: 'reference_identifier', required: false, help: 'Standard number, DOI or report number' },
-  { name: 'reference_location', required: false, help: 'Table or page' },
-  { name: 'basis', required: true, help: 'minimum, typical or statistical-allowable (applies to the strengths)' },
-  { name: 'density_kg_m3', required: true, help: 'kg/m³' },
-  { name: 'youngs_modulus_gpa', required: true, help: 'GPa' },
-  { name: 'poissons_ratio', required: true, help: 'dimensionless' },
-  { name: 'tensile_strength_mpa', required: true, help: 'MPa' },
-  { name: 'tensile_yield_mpa', required: false, help: 'MPa' },
-  { name: 'compressive_strength_mpa', required: true, help: 'MPa' },
-  { name: 'compressive_yield_mpa', required: false, help: 'MPa' },
-  { name: 'shear_strength_mpa', required: true, help: 'MPa' },
-  { name: 'elongation_pct', required: false, help: '% at break' },
-  { name: 'luminous_transmittance_pct', required: false, help: '%' },
-  { name: 'service_temp_min_c', required: true, help: '°C' },
-  { name: 'service_temp_max_c', required: true, help: '°C' },
-] as const;
+/** GET /api/admin/audit: one page, newest first. */
+export type AuditPageDto = ItemsDto<AuditEntryDto>;
+
+/** GET /api/admin/mail; enabled = the app knows where the local catcher saves mail. */
+export interface CaughtMailListDto extends ItemsDto<CaughtMailDto> {
+  enabled: boolean;
+}
+
+/** The CSV import's columns, each declared once (name, draft path, unit, required, help). */
+export { PROPERTY_SET_COLUMNS as IMPORT_COLUMNS } from '../import/property-set-columns';
 
 export const IMPORT_MAX_BYTES = 20 * 1024 * 1024;
 export const IMPORT_MAX_ROWS = 50_000;

@@ -106,6 +106,30 @@ export interface ShortlistItemDto {
   newerVersionId: number | null;
 }
 
+/** One round of checking: a submission and what became of it. */
+export interface ShortlistRoundDto {
+  round: number;
+  submittedAt: string;
+  submittedBy: { id: number; name: string };
+  loadCase: { id: number; name: string; input: LoadCase };
+  candidates: { propertySetId: number; name: string; version: number; note: string }[];
+  /** What changed against the round before, in words (empty for the first round). */
+  changes: string[];
+  outcome: 'returned' | 'checked' | null;
+  decidedAt: string | null;
+  decidedBy: { id: number; name: string } | null;
+  comment: string | null;
+}
+
+/** What a submission froze: the checker reviews it and the design record is made from it. */
+export interface ShortlistSubmission {
+  round: number;
+  submittedAt: string;
+  loadCase: LoadCaseDto;
+  evaluation: Omit<EvaluateResult, 'results' | 'total'> | null;
+  items: { id: number; position: number; note: string; propertySet: PropertySetDto; result: CandidateResult | null }[];
+}
+
 export interface ShortlistDto {
   id: number;
   projectId: number;
@@ -120,15 +144,19 @@ export interface ShortlistDto {
   checkComment: string | null;
   lockVersion: number;
   items: ShortlistItemDto[];
-  /** Pressure etc. of the live evaluation. */
+  /** Pressure etc. of the evaluation shown (the submitted one while submitted or checked). */
   evaluation: Omit<EvaluateResult, 'results' | 'total'> | null;
+  /** True while submitted or checked: load case, items and results are those submitted, not today's. */
+  frozenInputs: boolean;
+  rounds: ShortlistRoundDto[];
   designRecordId: number | null;
 }
 
 /** What a design record freezes: everything needed to read and defend it later, unchanged. */
 export interface DesignRecordContent {
   format: 'isobath-design-record';
-  formatVersion: 1;
+  /** 1: before rounds were kept; 2: with `rounds`. */
+  formatVersion: 1 | 2;
   project: { id: number; name: string };
   shortlist: { id: number; name: string; submittedAt: string; checkedAt: string; checkComment: string | null };
   author: UserSummaryDto;
@@ -146,6 +174,8 @@ export interface DesignRecordContent {
   cautions: string;
   engine: { models: string[] };
   frozenAt: string;
+  /** Every round of checking up to this check (format 2). */
+  rounds?: ShortlistRoundDto[];
 }
 
 export interface DesignRecordDto {
@@ -157,3 +187,54 @@ export interface DesignRecordDto {
   newerData: { propertySetId: number; newerVersionId: number; name: string }[];
   createdAt: string;
 }
+
+/** A row of GET /api/projects/:id/shortlists. */
+export interface ShortlistSummaryDto {
+  id: number;
+  name: string;
+  status: ShortlistStatus;
+  loadCaseId: number;
+  author: { id: number; name: string };
+  itemCount: number;
+  designRecordId: number | null;
+  updatedAt: string;
+}
+
+/** A row of GET /api/projects/:id/records. */
+export interface DesignRecordSummaryDto {
+  id: number;
+  shortlistId: number;
+  name: string;
+  loadCase: string;
+  author: string;
+  checker: string;
+  checkedAt: string;
+}
+
+// ---- Team administration ---------------------------------------------------------------------
+
+/** A row of GET /api/admin/users, and the answer to changing one. */
+export interface AdminUserDto {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  active: boolean;
+  lastLoginAt: string | null;
+  createdAt: string;
+}
+
+export type InvitationState = 'waiting' | 'accepted' | 'expired';
+
+/** A row of GET /api/admin/invitations. */
+export interface InvitationDto {
+  id: number;
+  email: string;
+  role: Role;
+  createdAt: string;
+  expiresAt: string;
+  state: InvitationState;
+}
+
+/** The answer to POST /api/admin/invitations. */
+export type InvitationCreatedDto = Pick<InvitationDto, 'id' | 'email' | 'role' | 'expiresAt'>;

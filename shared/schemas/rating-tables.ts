@@ -209,3 +209,8 @@ export interface RatingTableListDto {
   items: RatingTableDto[];
   total: number;
 }
+
+/** POST /api/rating-tables/csv: the grid read from the file, for the editor (nothing is saved). */
+export interface RatingTableCsvDto {
+  data: RatingTableData;
+}

@@ -1,7 +1,7 @@
 import { createBrowserRouter, Navigate, redirect, type LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
 import { meQueryOptions } from '@/features/auth/api/session';
-import { AppShell } from '@/components/app-shell';
+import { SignedInShell } from './signed-in-shell';
 import { RouteError, NotFoundPage } from './route-error';
 
 /** Every page below the shell needs a session; without one, go to sign-in and come back. */
@@ -23,7 +23,7 @@ export const router = createBrowserRouter([
   { path: '/reset-password', lazy: () => import('./routes/reset-password'), errorElement: <RouteError /> },
   {
     path: '/',
-    element: <AppShell />,
+    element: <SignedInShell />,
     loader: requireSession,
     errorElement: <RouteError />,
     children: [

@@ -1,7 +1,6 @@
-import { NavLink, Outlet, useNavigate } from 'react-router-dom';
-import type { Permission } from '@shared/schemas/auth';
+import { NavLink, Outlet } from 'react-router-dom';
+import type { Permission, SessionUserDto } from '@shared/schemas/auth';
 import { ROLE_LABELS } from '@shared/roles';
-import { useMe, useSignOut } from '@/features/auth/api/session';
 import { useUnits } from '@/lib/unit-system';
 import { Logo } from './logo';
 
@@ -39,10 +38,11 @@ function UnitSwitch() {
   );
 }
 
-export function AppShell() {
-  const { data: me } = useMe();
-  const signOut = useSignOut();
-  const navigate = useNavigate();
+/**
+ * The frame of every signed-in page. The account and the sign-out come from the app (src/app),
+ * which owns the session, so this shared piece knows no feature.
+ */
+export function AppShell({ me, onSignOut }: { me: SessionUserDto | null | undefined; onSignOut: () => void }) {
   return (
     <div className="flex min-h-screen flex-col">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:bg-white focus:p-2">
@@ -80,7 +80,7 @@ export function AppShell() {
             <button
               type="button"
               className="text-sm text-white/80 underline hover:text-white"
-              onClick={() => signOut.mutate(undefined, { onSettled: () => navigate('/sign-in', { replace: true }) })}
+              onClick={onSignOut}
             >
               Sign out
             </button>

@@ -1,4 +1,5 @@
-import { REFERENCE_KIND_LABELS, type ReferenceDto } from '@shared/schemas/catalogue';
+import type { ReferenceDto } from '@shared/schemas/catalogue';
+import { REFERENCE_KIND_LABELS } from '@shared/labels';
 import { Tag } from '@/components/ui/states';
 
 /** The full citation of a property set's source, with its PDF when one is stored. */

@@ -1,13 +1,25 @@
+import type { ClientErrorCode, ErrorBodyDto, ErrorCode } from '@shared/errors';
+
 /**
  * The only module that talks to the server (fetch, and XMLHttpRequest for uploads that report
  * progress). Errors arrive as ApiError with the server's field errors.
  */
+/** A problem in one row of an uploaded file, as the server reports it (row 1 = first data row). */
+export interface RowIssue {
+  row: number;
+  field: string;
+  message: string;
+}
+
 export class ApiError extends Error {
   constructor(
     readonly status: number,
-    readonly code: string,
+    /** One of the server's codes (shared/errors.ts), or the client's own when no answer carried one. */
+    readonly code: ErrorCode | ClientErrorCode,
     message: string,
     readonly fields: Record<string, string> = {},
+    /** Row problems of an uploaded file (e.g. 400 import_invalid), structured; absent otherwise. */
+    readonly rows?: { issues: RowIssue[]; issueCount: number },
   ) {
     super(message);
   }
@@ -34,13 +46,15 @@ export function setUnauthenticatedHandler(fn: () => void): void {
   onUnauthenticated = fn;
 }
 
-type ErrorBody = { error?: { code?: string; message?: string; fields?: Record<string, string> } } | null;
+/** What came back with an error status: normally an ErrorBodyDto, but a proxy may answer with anything. */
+type ErrorBody = Partial<ErrorBodyDto> | null;
 
 function apiErrorFrom(status: number, path: string, data: ErrorBody): ApiError {
   const err = data?.error;
   if (status === 401 && path !== '/auth/login' && path !== '/auth/me') onUnauthenticated?.();
   if (status === 413 && !err) return new ApiError(413, 'too_large', 'The file is larger than the server accepts.');
-  return new ApiError(status, err?.code ?? 'http_error', err?.message ?? `The server answered ${status}.`, err?.fields ?? {});
+  const rows = Array.isArray(err?.issues) ? { issues: err.issues, issueCount: err.issueCount ?? err.issues.length } : undefined;
+  return new ApiError(status, err?.code ?? 'http_error', err?.message ?? `The server answered ${status}.`, err?.fields ?? {}, rows);
 }
 
 async function request<T>(method: string, path: string, body?: unknown, query?: Query): Promise<T> {

@@ -4,7 +4,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { startTestApp, signIn, type Agent } from '../helpers/app';
 import { AuditEntry, Material, PropertySet, Reference, User } from '../../server/db/models';
-import { IMPORT_COLUMNS, IMPORT_MAX_BYTES, IMPORT_MAX_ROWS, type ImportPreviewDto } from '../../shared/schemas/library';
+import { IMPORT_COLUMNS, IMPORT_MAX_BYTES, IMPORT_MAX_ROWS, type ImportPreviewDto, type LibrarySetDto } from '../../shared/schemas/library';
+import { targetsOf, unitOfColumn } from '../../shared/import/property-set-columns';
 import { demoEmail } from '../helpers/app';
 
 let handle: Awaited<ReturnType<typeof startTestApp>>;
@@ -246,6 +247,63 @@ describe('rows with problems', () => {
     const refused = await upload(librarian, '/api/library/import', csv(rows));
     expect(refused.status).toBe(400);
     expect(Object.keys(refused.body.error.fields)).toHaveLength(500);
+  });
+});
+
+describe('issues in one round, structured', () => {
+  // One row with a cell that cannot be read, a value the schema refuses, two cross-field errors
+  // and a family that contradicts the catalogue's material of the same name.
+  const mixed = () =>
+    csv([
+      row(1, { density_kg_m3: 'heavy', family: 'glass', poissons_ratio: 0.7, tensile_yield_mpa: 90, service_temp_min_c: 80, service_temp_max_c: 10 }),
+      row(2),
+    ]);
+
+  it('previews cell errors and cross-field errors of a row together', async () => {
+    const res = await upload(librarian, '/api/library/import/preview', mixed());
+    expect(res.status).toBe(200);
+    const preview = res.body as ImportPreviewDto;
+    expect(preview).toMatchObject({ rows: 2, valid: 1, issueCount: 5 });
+    expect(preview.issues.map((i) => [i.row, i.field]).sort()).toEqual([
+      [1, 'density_kg_m3'],
+      [1, 'family'],
+      [1, 'poissons_ratio'],
+      [1, 'service_temp_max_c'],
+      [1, 'tensile_yield_mpa'],
+    ]);
+    expect(preview.issues.find((i) => i.field === 'tensile_yield_mpa')!.message).toBe('Tensile yield cannot exceed tensile strength');
+    expect(preview.issues.find((i) => i.field === 'family')!.message).toMatch(/Cast acrylic \(PMMA\).*acrylic.*in the catalogue/);
+  });
+
+  it('refuses the import with the same issues as structured rows beside the fields', async () => {
+    const preview = (await upload(librarian, '/api/library/import/preview', mixed())).body as ImportPreviewDto;
+    const res = await upload(librarian, '/api/library/import', mixed());
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('import_invalid');
+    expect(res.body.error.issues).toEqual(preview.issues);
+    expect(res.body.error.issueCount).toBe(5);
+    expect(res.body.error.fields['rows.1.tensile_yield_mpa']).toBe('Tensile yield cannot exceed tensile strength');
+  });
+});
+
+describe('the column list', () => {
+  it('stores every column of an imported row at its draft path, converted to SI', async () => {
+    const cells = row(41, { tensile_yield_mpa: 65, reference_identifier: 'HSMW-TR-0241' });
+    const res = await upload(librarian, '/api/library/import', csv([cells]));
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const set = (await librarian.get(`/api/library/sets/${res.body.ids[0]}`)).body as LibrarySetDto;
+    const at = (path: string) => path.split('.').reduce<unknown>((node, key) => (node as Record<string, unknown> | null)?.[key], set);
+    IMPORT_COLUMNS.forEach((column, i) => {
+      const unit = unitOfColumn(column);
+      const cell = cells[i];
+      for (const { path } of targetsOf(column)) {
+        if (column.cell === 'number') expect(at(path) as number, `${column.name} → ${path}`).toBeCloseTo(unit ? unit.toSI(Number(cell)) : Number(cell), 6);
+        else if (column.cell === 'integer') expect(at(path), `${column.name} → ${path}`).toBe(Number(cell));
+        else if (column.cell === 'yes-no') expect(at(path), `${column.name} → ${path}`).toBe(cell === 'yes');
+        else expect(at(path), `${column.name} → ${path}`).toBe(cell);
+      }
+    });
+    expect(set.youngsModulus).toBe(3.1e9);
   });
 });
 

@@ -14,10 +14,11 @@ import { createRatingTableDraft } from '../../server/modules/rating-tables/servi
 import { ratingTableDraftSchema } from '../../shared/schemas/rating-tables';
 import { Invitation, PasswordReset } from '../../server/db/models/projects';
 import { draftInputSchema } from '../../shared/schemas/library';
-import { createDraft, submitSet } from '../../server/modules/library/service';
+import { createDraft, stepSet } from '../../server/modules/library/service';
 import { createReference } from '../../server/modules/references/service';
 import { createLoadCase, createProject, addMember } from '../../server/modules/projects/service';
-import { addItem, createShortlist, submitShortlist, checkShortlist } from '../../server/modules/projects/shortlists';
+import { addItem, createShortlist } from '../../server/modules/projects/shortlists';
+import { submitShortlist, checkShortlist } from '../../server/modules/projects/shortlist-steps';
 import { requestPasswordReset } from '../../server/modules/users/service';
 import { listCaughtMail } from '../../server/services/mail';
 import type { LoadCase } from '../../shared/schemas/evaluate';
@@ -92,11 +93,11 @@ const csvFile = () =>
 
 const draftData = () => draftInputSchema.parse({ ...draftBody(f.materialId), condition: unique('Harrow lot draft'), reference: undefined, referenceId: f.referenceId });
 async function draftBySecondLibrarian() {
-  return createDraft(draftData(), f.secondLibrarian);
+  return createDraft(draftData(), { ...f.secondLibrarian, role: 'librarian' });
 }
 async function inReviewBySecondLibrarian() {
   const d = await draftBySecondLibrarian();
-  return submitSet(d.id, d.lockVersion, f.secondLibrarian);
+  return stepSet(d.id, 'submit', { lockVersion: d.lockVersion }, { ...f.secondLibrarian, role: 'librarian' });
 }
 async function freshPublishedSet(): Promise<{ id: number; lockVersion: number }> {
   const source = (await PropertySet.findByPk(f.setId))!.get({ plain: true });

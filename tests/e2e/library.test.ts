@@ -2,7 +2,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startBrowserSession, signInThroughForm, type BrowserSession } from '../helpers/browser';
-import { User } from '../../server/db/models';
+import { Material, User } from '../../server/db/models';
 import { hashPassword } from '../../server/auth/passwords';
 import { IMPORT_COLUMNS } from '../../shared/schemas/library';
 
@@ -191,6 +191,46 @@ describe('library desk journey in chromium', () => {
     // A file that is not CSV at all is refused with a message, not a table.
     await page.getByLabel('CSV file').setInputFiles({ name: 'notes.csv', mimeType: 'text/csv', buffer: Buffer.from([0x00, 0x01, 0x02, 0xff, 0xfe]) });
     expect(await page.getByTestId('import-refused').textContent()).toMatch(/cannot be imported/);
+  });
+
+  it('shows the row issues of an import the server refused, when the catalogue changed after the check', async () => {
+    const { page, baseUrl } = s;
+    await s.context.clearCookies();
+    await signInThroughForm(page, baseUrl, 'librarian');
+    await page.goto(`${baseUrl}/library/import`);
+    const cells: Record<string, string> = {
+      material: 'Harrow Sound trial glass-ceramic HS-9',
+      family: 'glass-ceramic',
+      transparent: 'no',
+      condition: 'Trial pressing, Harrow lot 9',
+      reference_title: 'Harrow Sound trial pressing tests, lot 9',
+      reference_kind: 'test-report',
+      basis: 'typical',
+      density_kg_m3: '2530',
+      youngs_modulus_gpa: '92',
+      poissons_ratio: '0.24',
+      tensile_strength_mpa: '85',
+      compressive_strength_mpa: '900',
+      shear_strength_mpa: '70',
+      service_temp_min_c: '-20',
+      service_temp_max_c: '200',
+    };
+    const header = IMPORT_COLUMNS.map((c) => c.name);
+    const csv = `${header.join(',')}\n${header.map((h) => `"${(cells[h] ?? '').replace(/"/g, '""')}"`).join(',')}\n`;
+    await page.getByLabel('CSV file').setInputFiles({ name: 'harrow-lot-9.csv', mimeType: 'text/csv', buffer: Buffer.from(csv, 'utf8') });
+    await page.getByText('Every row is valid.').waitFor();
+
+    // Meanwhile someone records the same material name as another family.
+    await Material.create({ name: 'Harrow Sound trial glass-ceramic HS-9', family: 'glass', transparent: false, description: null });
+    await page.getByRole('button', { name: /Import all/ }).click();
+    await page.getByRole('button', { name: 'Import 1 drafts' }).click();
+
+    await page.getByText('The server refused the import; nothing was saved.').waitFor();
+    const issues = page.getByRole('table', { name: 'Row issues' });
+    const text = await issues.textContent();
+    expect(text).toContain('family');
+    expect(text).toMatch(/is glass in the catalogue/);
+    expect(await page.getByTestId('import-done').count()).toBe(0);
   });
 
   it('keeps the librarian’s edits when someone else saved the draft first, and offers the saved version', async () => {

@@ -129,6 +129,9 @@ describe('projects, shortlists and sign-off in chromium', () => {
     expect(await page.getByTestId('second-engineer').textContent()).toMatch(/second engineer must check it/);
     expect(await page.getByRole('button', { name: 'Check…' }).count()).toBe(0);
     expect(await page.getByRole('button', { name: /^Move / }).count()).toBe(0);
+    // What the checker will review is what was submitted, and the page says so.
+    expect(await page.getByTestId('frozen-inputs').textContent()).toMatch(/those submitted on/);
+    expect(await page.getByTestId('rounds').textContent()).toMatch(/Round 1: submitted by .*Waiting for a check\./);
   });
 
   it('lets the demo checker, a member of the project, check it and freeze the design record', async () => {
@@ -151,6 +154,7 @@ describe('projects, shortlists and sign-off in chromium', () => {
     await page.waitForURL(/\/records\/\d+$/);
     expect(await page.getByTestId('record-author').textContent()).toBe(nameOf('engineer'));
     expect(await page.getByTestId('record-checker').textContent()).toBe(nameOf('checker'));
+    expect(await page.getByTestId('rounds').textContent()).toMatch(new RegExp(`Checked by ${nameOf('checker')} on .*: “Agreed; confirm the seat geometry`));
     await page.getByRole('complementary', { name: 'Cautions' }).waitFor();
     expect(await page.getByRole('table', { name: 'Shortlisted candidates' }).locator('tbody tr').count()).toBe(2);
     await page.getByRole('img', { name: 'Margins by failure mode per candidate' }).waitFor();

@@ -10,17 +10,18 @@ import {
 import { sequelize } from '../sequelize';
 import { initProjectModels } from './projects';
 import { initRatingTableModels } from './rating-tables';
+import { CuratedModel, curatedAssociations, curatedColumns, lockVersionColumn, serialId, timestamps } from './columns';
 import type {
   CyclesPoint,
   Family,
   HoursPoint,
-  PropertySetStatus,
   Quantity,
   ReferenceKind,
   TemperaturePoint,
   ValueDetail,
 } from '../../../shared/schemas/catalogue';
 import type { Role } from '../../../shared/schemas/auth';
+import type { Provenance } from '../../../shared/schemas/provenance';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
@@ -64,16 +65,8 @@ export class Reference extends Model<InferAttributes<Reference>, InferCreationAt
   declare updatedAt: CreationOptional<Date>;
 }
 
-export class PropertySet extends Model<InferAttributes<PropertySet>, InferCreationAttributes<PropertySet>> {
-  declare id: CreationOptional<number>;
-  declare materialId: ForeignKey<Material['id']>;
-  declare referenceId: ForeignKey<Reference['id']> | null;
+export class PropertySet extends CuratedModel<InferAttributes<PropertySet>, InferCreationAttributes<PropertySet>> {
   declare condition: string;
-  declare status: CreationOptional<PropertySetStatus>;
-  declare version: CreationOptional<number>;
-  declare lineageId: number | null;
-  declare supersedesId: number | null;
-  declare supersededById: number | null;
   declare density: number;
   declare youngsModulus: number;
   declare poissonsRatio: number;
@@ -91,23 +84,7 @@ export class PropertySet extends Model<InferAttributes<PropertySet>, InferCreati
   declare temperatureFactors: CreationOptional<TemperaturePoint[]>;
   declare sustainedLoadFactors: CreationOptional<HoursPoint[]>;
   declare cyclicFactors: CreationOptional<CyclesPoint[]>;
-  declare draftedById: ForeignKey<User['id']> | null;
-  declare approvedById: ForeignKey<User['id']> | null;
-  declare publishedAt: Date | null;
-  declare retiredAt: Date | null;
-  /** The reviewer's comment when a set in review was sent back to its author. */
-  declare returnedComment: CreationOptional<string | null>;
-  declare lastEditedById: CreationOptional<number | null>;
-  declare submittedAt: CreationOptional<Date | null>;
-  declare lockVersion: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
-  declare material?: NonAttribute<Material>;
-  declare reference?: NonAttribute<Reference | null>;
-  declare draftedBy?: NonAttribute<User | null>;
-  declare approvedBy?: NonAttribute<User | null>;
-  declare lastEditedBy?: NonAttribute<User | null>;
+  declare provenance: CreationOptional<Provenance>;
 }
 
 export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreationAttributes<AuditEntry>> {
@@ -123,10 +100,6 @@ export class AuditEntry extends Model<InferAttributes<AuditEntry>, InferCreation
   declare actor?: NonAttribute<User | null>;
 }
 
-const timestamps = {
-  createdAt: { type: DataTypes.DATE, allowNull: false },
-  updatedAt: { type: DataTypes.DATE, allowNull: false },
-};
 const real = (allowNull = false) => ({ type: DataTypes.DOUBLE, allowNull });
 
 let initialised = false;
@@ -137,31 +110,31 @@ export function initModels(): void {
   const db = sequelize();
   User.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       email: { type: DataTypes.TEXT, allowNull: false, unique: true },
       name: { type: DataTypes.TEXT, allowNull: false },
       role: { type: DataTypes.TEXT, allowNull: false },
       passwordHash: { type: DataTypes.TEXT },
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
       lastLoginAt: { type: DataTypes.DATE },
-      ...timestamps,
+      ...timestamps(),
     },
     { sequelize: db, tableName: 'users' },
   );
   Material.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       name: { type: DataTypes.TEXT, allowNull: false, unique: true },
       family: { type: DataTypes.TEXT, allowNull: false },
       transparent: { type: DataTypes.BOOLEAN, allowNull: false },
       description: { type: DataTypes.TEXT },
-      ...timestamps,
+      ...timestamps(),
     },
     { sequelize: db, tableName: 'materials' },
   );
   Reference.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       kind: { type: DataTypes.TEXT, allowNull: false },
       title: { type: DataTypes.TEXT, allowNull: false },
       authors: { type: DataTypes.TEXT },
@@ -181,22 +154,15 @@ export function initModels(): void {
         },
       },
       documentUploadedAt: { type: DataTypes.DATE },
-      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      ...timestamps,
+      ...lockVersionColumn(),
+      ...timestamps(),
     },
     { sequelize: db, tableName: 'data_references', version: 'lockVersion' },
   );
   PropertySet.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-      materialId: { type: DataTypes.INTEGER, allowNull: false },
-      referenceId: { type: DataTypes.INTEGER },
+      ...serialId(),
       condition: { type: DataTypes.TEXT, allowNull: false },
-      status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
-      version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
-      lineageId: { type: DataTypes.INTEGER },
-      supersedesId: { type: DataTypes.INTEGER },
-      supersededById: { type: DataTypes.INTEGER },
       density: real(),
       youngsModulus: real(),
       poissonsRatio: real(),
@@ -214,15 +180,8 @@ export function initModels(): void {
       temperatureFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       sustainedLoadFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
       cyclicFactors: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-      draftedById: { type: DataTypes.INTEGER },
-      approvedById: { type: DataTypes.INTEGER },
-      publishedAt: { type: DataTypes.DATE },
-      retiredAt: { type: DataTypes.DATE },
-      returnedComment: { type: DataTypes.TEXT },
-      lastEditedById: { type: DataTypes.INTEGER },
-      submittedAt: { type: DataTypes.DATE },
-      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      ...timestamps,
+      provenance: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
+      ...curatedColumns(),
     },
     { sequelize: db, tableName: 'property_sets', version: 'lockVersion' },
   );
@@ -240,12 +199,8 @@ export function initModels(): void {
     { sequelize: db, tableName: 'audit_log', updatedAt: false },
   );
 
-  PropertySet.belongsTo(Material, { as: 'material', foreignKey: 'materialId' });
+  curatedAssociations(PropertySet, { Material, Reference, User });
   Material.hasMany(PropertySet, { as: 'propertySets', foreignKey: 'materialId' });
-  PropertySet.belongsTo(Reference, { as: 'reference', foreignKey: 'referenceId' });
-  PropertySet.belongsTo(User, { as: 'draftedBy', foreignKey: 'draftedById' });
-  PropertySet.belongsTo(User, { as: 'approvedBy', foreignKey: 'approvedById' });
-  PropertySet.belongsTo(User, { as: 'lastEditedBy', foreignKey: 'lastEditedById' });
   AuditEntry.belongsTo(User, { as: 'actor', foreignKey: 'actorId', constraints: false });
   initProjectModels(db);
   initRatingTableModels(db);

@@ -8,9 +8,10 @@ import {
   type Sequelize,
 } from 'sequelize';
 import type { LoadCase } from '../../../shared/schemas/evaluate';
-import type { DesignRecordContent, ShortlistStatus } from '../../../shared/schemas/projects';
+import type { DesignRecordContent, ShortlistRoundDto, ShortlistStatus, ShortlistSubmission } from '../../../shared/schemas/projects';
 import type { Role } from '../../../shared/schemas/auth';
 import { PropertySet, User } from './index';
+import { lockVersionColumn, serialId, stamp, timestamps } from './columns';
 
 export class Project extends Model<InferAttributes<Project>, InferCreationAttributes<Project>> {
   declare id: CreationOptional<number>;
@@ -57,6 +58,10 @@ export class Shortlist extends Model<InferAttributes<Shortlist>, InferCreationAt
   declare checkedAt: Date | null;
   declare returnedComment: string | null;
   declare checkComment: string | null;
+  /** What the current submission froze; null while open or returned. */
+  declare submission: CreationOptional<ShortlistSubmission | null>;
+  /** Every round of submit → return or check, oldest first. */
+  declare rounds: CreationOptional<ShortlistRoundDto[]>;
   declare lockVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -105,48 +110,45 @@ export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCr
   declare createdAt: CreationOptional<Date>;
 }
 
-const stamp = { type: DataTypes.DATE, allowNull: false };
 
 export function initProjectModels(db: Sequelize): void {
   Project.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       name: { type: DataTypes.TEXT, allowNull: false },
       description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       ownerId: { type: DataTypes.INTEGER, allowNull: false },
-      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      createdAt: stamp,
-      updatedAt: stamp,
+      ...lockVersionColumn(),
+      ...timestamps(),
     },
-    { sequelize: db, tableName: 'projects' },
+    { sequelize: db, tableName: 'projects', version: 'lockVersion' },
   );
   ProjectMember.init(
     {
       projectId: { type: DataTypes.INTEGER, primaryKey: true },
       userId: { type: DataTypes.INTEGER, primaryKey: true },
       addedById: { type: DataTypes.INTEGER },
-      createdAt: stamp,
+      createdAt: stamp(),
     },
     { sequelize: db, tableName: 'project_members', updatedAt: false },
   );
   LoadCaseRecord.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.TEXT, allowNull: false },
       loadCase: { type: DataTypes.JSONB, allowNull: false },
       filters: { type: DataTypes.JSONB },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       createdById: { type: DataTypes.INTEGER },
-      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      createdAt: stamp,
-      updatedAt: stamp,
+      ...lockVersionColumn(),
+      ...timestamps(),
     },
-    { sequelize: db, tableName: 'load_cases' },
+    { sequelize: db, tableName: 'load_cases', version: 'lockVersion' },
   );
   Shortlist.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       loadCaseId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.TEXT, allowNull: false },
@@ -157,55 +159,55 @@ export function initProjectModels(db: Sequelize): void {
       checkedAt: { type: DataTypes.DATE },
       returnedComment: { type: DataTypes.TEXT },
       checkComment: { type: DataTypes.TEXT },
-      lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
-      createdAt: stamp,
-      updatedAt: stamp,
+      submission: { type: DataTypes.JSONB },
+      rounds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
+      ...lockVersionColumn(),
+      ...timestamps(),
     },
-    { sequelize: db, tableName: 'shortlists' },
+    { sequelize: db, tableName: 'shortlists', version: 'lockVersion' },
   );
   ShortlistItem.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       shortlistId: { type: DataTypes.INTEGER, allowNull: false },
       propertySetId: { type: DataTypes.INTEGER, allowNull: false },
       position: { type: DataTypes.INTEGER, allowNull: false },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-      createdAt: stamp,
-      updatedAt: stamp,
+      ...timestamps(),
     },
     { sequelize: db, tableName: 'shortlist_items' },
   );
   DesignRecord.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       shortlistId: { type: DataTypes.INTEGER, allowNull: false, unique: true },
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       content: { type: DataTypes.JSONB, allowNull: false },
-      createdAt: stamp,
+      createdAt: stamp(),
     },
     { sequelize: db, tableName: 'design_records', updatedAt: false },
   );
   Invitation.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       email: { type: DataTypes.TEXT, allowNull: false },
       role: { type: DataTypes.TEXT, allowNull: false },
       tokenHash: { type: DataTypes.TEXT, allowNull: false, unique: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: { type: DataTypes.DATE },
       invitedById: { type: DataTypes.INTEGER },
-      createdAt: stamp,
+      createdAt: stamp(),
     },
     { sequelize: db, tableName: 'invitations', updatedAt: false },
   );
   PasswordReset.init(
     {
-      id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
+      ...serialId(),
       userId: { type: DataTypes.INTEGER, allowNull: false },
       tokenHash: { type: DataTypes.TEXT, allowNull: false, unique: true },
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: { type: DataTypes.DATE },
-      createdAt: stamp,
+      createdAt: stamp(),
     },
     { sequelize: db, tableName: 'password_resets', updatedAt: false },
   );

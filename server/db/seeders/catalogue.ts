@@ -5,6 +5,7 @@ import type { Transaction } from 'sequelize';
 import { ROOT_DIR } from '../../config/env';
 import { Material, PropertySet, RatingTable, Reference } from '../models';
 import { ratingTableContentSchema } from '../../../shared/schemas/rating-tables';
+import type { Provenance, ProvenanceInput } from '../../../shared/schemas/provenance';
 import {
   materialInputSchema,
   propertyValuesSchema,
@@ -23,6 +24,14 @@ export type SeedCatalogue = z.infer<typeof seedFileSchema>;
 export function readSeedCatalogue(file = path.join(ROOT_DIR, 'data', 'catalogue.json')): SeedCatalogue {
   return seedFileSchema.parse(JSON.parse(readFileSync(file, 'utf8')));
 }
+
+/**
+ * The seed's confirmations were made by checking each value against a public source (who and
+ * where are in data/README.md); no librarian of this installation approved them, so none is named.
+ */
+const SEED_CHECK = { name: 'Seed catalogue check, 2 Dec 2026 (data/README.md)' };
+const seedProvenance = (p: ProvenanceInput): Provenance =>
+  Object.fromEntries(Object.entries(p).map(([k, v]) => [k, v.status === 'confirmed' ? { ...v, confirmedBy: SEED_CHECK, confirmedAt: '2026-12-02T00:00:00.000Z' } : v]));
 
 /** Loads data/catalogue.json as published, version-1 sets. Runs only on an empty catalogue. */
 export async function seedCatalogue(transaction: Transaction): Promise<number> {
@@ -64,6 +73,7 @@ export async function seedCatalogue(transaction: Transaction): Promise<number> {
         approvedById: null,
         publishedAt: now,
         retiredAt: null,
+        provenance: seedProvenance(values.provenance),
       },
       { transaction },
     );

@@ -1,48 +1,18 @@
 import { Op } from 'sequelize';
 import { PropertySet, Material, User } from '../models';
 import { Project } from '../models/projects';
-import type { LoadCase } from '../../../shared/schemas/evaluate';
+import { DEMO_CAMERA, DEMO_CHAMBER_PORT, DEMO_HULL, DEMO_VIEWPORT } from '../../../shared/demo-load-cases';
 import { addMember, createLoadCase, createProject } from '../../modules/projects/service';
-import { addItem, checkShortlist, createShortlist, submitShortlist } from '../../modules/projects/shortlists';
+import { addItem, createShortlist } from '../../modules/projects/shortlists';
+import { checkShortlist, submitShortlist } from '../../modules/projects/shortlist-steps';
 import type { Actor } from '../../modules/projects/access';
 
 /**
  * The Harrow Sound demo (invented): Harrow Sound Marine Works' two-person research submersible
- * rated to 1,200 m, its 4,000 m survey camera housing and its 5 bar treatment chamber. Built
- * through the same services the API uses, so the design record is a real one.
+ * rated to 1,200 m, its 4,000 m survey camera housing and its 5 bar treatment chamber, with the load
+ * cases of shared/demo-load-cases.ts. Built through the same services the API uses, so the design
+ * record is a real one.
  */
-const VIEWPORT: LoadCase = {
-  pressure: { depth: 1200, latitude: 57, water: 'sea' },
-  temperature: { min: 2, max: 25 },
-  sustainedHours: 1000,
-  cycles: 2000,
-  proofFactor: 1.25,
-  component: { type: 'conical-frustum', minorDiameter: 0.15, thickness: 0.1, includedAngle: 90 },
-};
-const HULL: LoadCase = {
-  pressure: { depth: 1200, latitude: 57, water: 'sea' },
-  temperature: { min: 2, max: 25 },
-  sustainedHours: 1000,
-  cycles: 2000,
-  proofFactor: 1.25,
-  component: { type: 'sphere', innerRadius: 0.8, thickness: 0.045 },
-};
-const CAMERA: LoadCase = {
-  pressure: { depth: 4000, latitude: 57, water: 'sea' },
-  temperature: { min: 1, max: 20 },
-  sustainedHours: 200,
-  cycles: 500,
-  proofFactor: 1.25,
-  component: { type: 'cylinder', innerRadius: 0.07, thickness: 0.012, length: 0.35 },
-};
-const CHAMBER_PORT: LoadCase = {
-  pressure: { value: 0.5e6 },
-  temperature: { min: 15, max: 40 },
-  sustainedHours: 5000,
-  cycles: 10000,
-  proofFactor: 1.5,
-  component: { type: 'flat-disc', diameter: 0.25, thickness: 0.04, edge: 'simply-supported' },
-};
 
 async function publishedSet(family: string, condition: RegExp): Promise<number> {
   const sets = await PropertySet.findAll({ where: { status: 'published' }, include: [{ model: Material, as: 'material', where: { family } }], order: [['id', 'ASC']] });
@@ -53,10 +23,10 @@ async function publishedSet(family: string, condition: RegExp): Promise<number> 
 
 export async function seedDemoProject(): Promise<boolean> {
   if ((await Project.count()) > 0) return false;
-  const byRole = async (role: string): Promise<Actor> => {
+  const byRole = async (role: string): Promise<Actor & { name: string }> => {
     const u = await User.findOne({ where: { email: { [Op.eq]: `${role}@harrow.example` } } });
     if (!u) throw new Error(`demo seed: ${role}@harrow.example is missing`);
-    return { id: u.id, role: u.role };
+    return { id: u.id, name: u.name, role: u.role };
   };
   const engineer = await byRole('engineer');
   const checker = await byRole('checker');
@@ -70,13 +40,13 @@ export async function seedDemoProject(): Promise<boolean> {
   await addMember(engineer, sub.id, viewer.id);
   const viewport = await createLoadCase(engineer, sub.id, {
     name: 'Forward viewport, 90° cone at 1,200 m',
-    loadCase: VIEWPORT,
+    loadCase: DEMO_VIEWPORT,
     filters: { transparent: true },
     notes: 'Seat of the forward hatch; minor diameter fixed by the camera field of view.',
   });
   const hull = await createLoadCase(engineer, sub.id, {
     name: 'Pressure hull, sphere at 1,200 m',
-    loadCase: HULL,
+    loadCase: DEMO_HULL,
     filters: { transparent: false },
     notes: 'Crew sphere, 1.6 m inside diameter; penetrations checked separately.',
   });
@@ -98,13 +68,13 @@ export async function seedDemoProject(): Promise<boolean> {
     description: 'Pressure housing for the camera of a 4,000 m survey vehicle.',
   });
   await addMember(engineer, camera.id, checker.id);
-  await createLoadCase(engineer, camera.id, { name: 'Housing tube between end caps', loadCase: CAMERA, filters: { transparent: false }, notes: '' });
+  await createLoadCase(engineer, camera.id, { name: 'Housing tube between end caps', loadCase: DEMO_CAMERA, filters: { transparent: false }, notes: '' });
 
   const chamber = await createProject(engineer, {
     name: 'Treatment chamber TC-5 (5 bar)',
     description: 'Hyperbaric treatment chamber with flat viewports, 5 bar working pressure.',
   });
   await addMember(engineer, chamber.id, checker.id);
-  await createLoadCase(engineer, chamber.id, { name: 'Flat side viewport, 250 mm clear', loadCase: CHAMBER_PORT, filters: { transparent: true }, notes: '' });
+  await createLoadCase(engineer, chamber.id, { name: 'Flat side viewport, 250 mm clear', loadCase: DEMO_CHAMBER_PORT, filters: { transparent: true }, notes: '' });
   return true;
 }

@@ -3,7 +3,7 @@ import { Op, type WhereOptions } from 'sequelize';
 import { AuditEntry, User } from '../../db/models';
 import { env } from '../../config/env';
 import { getCaughtMail, listCaughtMail, type CaughtMail } from '../../services/mail';
-import type { AuditEntryDto, CaughtMailDto } from '../../../shared/schemas/library';
+import type { AuditEntryDto, AuditPageDto, CaughtMailDto, CaughtMailListDto } from '../../../shared/schemas/library';
 
 export interface AuditQuery {
   entityType?: string;
@@ -27,7 +27,7 @@ function auditEntryDto(e: AuditEntry): AuditEntryDto {
 }
 
 /** Newest first; page on with `before` = the last id received. */
-export async function listAudit(query: AuditQuery): Promise<{ items: AuditEntryDto[] }> {
+export async function listAudit(query: AuditQuery): Promise<AuditPageDto> {
   const where: WhereOptions<AuditEntry> = {};
   if (query.entityType) Object.assign(where, { entityType: query.entityType });
   if (query.entityId) Object.assign(where, { entityId: query.entityId });
@@ -51,7 +51,7 @@ const caughtMailDto = (m: CaughtMail): CaughtMailDto => ({
 });
 
 /** enabled = the app knows where the local catcher saves mail (MAIL_CATCHER_DIR). */
-export async function listMail(query: { limit: number }): Promise<{ enabled: boolean; items: CaughtMailDto[] }> {
+export async function listMail(query: { limit: number }): Promise<CaughtMailListDto> {
   const enabled = !!env().MAIL_CATCHER_DIR;
   return { enabled, items: enabled ? (await listCaughtMail({ limit: query.limit })).map(caughtMailDto) : [] };
 }

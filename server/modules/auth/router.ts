@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import passport from 'passport';
-import { loginSchema } from '../../../shared/schemas/auth';
+import { loginSchema, type SessionDto } from '../../../shared/schemas/auth';
 import { parse } from '../../middleware/validate';
 import { AppError, unauthorized } from '../../errors';
 import { toSessionUser } from '../../auth/passport';
 import { open } from '../../auth/authorize';
 import { lockRemaining, recordFailure, recordSuccess } from '../../auth/lockout';
 import { env } from '../../config/env';
-import { User } from '../../db/models';
+import { recordSignIn } from './service';
 
 export function authRouter(): Router {
   const router = Router();
@@ -43,8 +43,8 @@ export function authRouter(): Router {
       // req.logIn regenerates the session id (passport ≥ 0.6), so a planted id is useless.
       req.logIn(user, (loginErr) => {
         if (loginErr) return next(loginErr);
-        User.update({ lastLoginAt: new Date() }, { where: { id: user.id } })
-          .then(() => res.json({ user: toSessionUser(user) }))
+        recordSignIn(user.id)
+          .then(() => res.json({ user: toSessionUser(user) } satisfies SessionDto))
           .catch(next);
       });
     })(req, res, next);
@@ -65,7 +65,7 @@ export function authRouter(): Router {
     if (!req.user) return next(unauthorized());
     next();
   }, (req, res) => {
-    res.json({ user: toSessionUser(req.user!) });
+    res.json({ user: toSessionUser(req.user!) } satisfies SessionDto);
   });
 
   return router;

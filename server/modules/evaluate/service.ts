@@ -14,6 +14,9 @@ function matchesFilters(entry: CatalogueEntry, req: EvaluateRequest): boolean {
     const t = req.loadCase.temperature;
     if (serviceTemperature.min > t.min || serviceTemperature.max < t.max) return false;
   }
+  const inputs = entry.candidate.inputs;
+  if (f.confirmedOnly && inputs && inputs.confirmed < inputs.total) return false;
+  if (f.excludeDemo && inputs?.demo) return false;
   return true;
 }
 

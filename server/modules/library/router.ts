@@ -1,6 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { authorize } from '../../auth/authorize';
+import { actorOf } from '../../auth/actor';
 import { parse, parseId } from '../../middleware/validate';
 import { singleFile } from '../../middleware/upload';
 import {
@@ -12,22 +13,10 @@ import {
   returnSchema,
   transitionSchema,
 } from '../../../shared/schemas/library';
-import {
-  approveSet,
-  createDraft,
-  getChanges,
-  getLibrarySet,
-  listQueue,
-  returnSet,
-  retireSet,
-  reviseSet,
-  submitSet,
-  updateDraft,
-  type Actor,
-} from './service';
-import { previewImport, runImport, templateCsv } from './csv-import';
+import { createDraft, getChanges, getLibrarySet, listQueue, stepSet, updateDraft } from './service';
+import { previewImport, runImport, templateCsv } from './import';
 
-const actor = (req: Express.Request): Actor => ({ id: req.user!.id, name: req.user!.name });
+const actor = actorOf;
 const body = (req: Express.Request & { body?: unknown }) => req.body ?? {};
 const noQuery = z.strictObject({});
 
@@ -52,32 +41,21 @@ export function libraryRouter(): Router {
     const { lockVersion, draft } = parse(draftUpdateSchema, body(req), 'draft');
     res.json(await updateDraft(id, lockVersion, draft, actor(req)));
   });
-  router.post('/sets/:id/submit', authorize('catalogue:draft'), async (req, res) => {
-    const id = parseId(req.params.id);
-    const { lockVersion } = parse(transitionSchema, body(req));
-    res.json(await submitSet(id, lockVersion, actor(req)));
-  });
-  router.post('/sets/:id/approve', authorize('catalogue:approve'), async (req, res) => {
-    const id = parseId(req.params.id);
-    const { lockVersion } = parse(transitionSchema, body(req));
-    res.json(await approveSet(id, lockVersion, actor(req)));
-  });
-  router.post('/sets/:id/return', authorize('catalogue:approve'), async (req, res) => {
-    const id = parseId(req.params.id);
-    const { lockVersion, comment } = parse(returnSchema, body(req));
-    res.json(await returnSet(id, lockVersion, comment, actor(req)));
-  });
-  router.post('/sets/:id/revise', authorize('catalogue:draft'), async (req, res) => {
-    const id = parseId(req.params.id);
-    const { lockVersion } = parse(transitionSchema, body(req));
-    res.status(201).json(await reviseSet(id, lockVersion, actor(req)));
-  });
-  router.post('/sets/:id/retire', authorize('catalogue:approve'), async (req, res) => {
-    const id = parseId(req.params.id);
-    const { lockVersion, reason } = parse(retireSchema, body(req));
-    res.json(await retireSet(id, lockVersion, reason, actor(req)));
-  });
-
+  // The review steps, one route each, all run by the shared workflow table.
+  const steps = [
+    { step: 'submit', permission: 'catalogue:draft', schema: transitionSchema, status: 200 },
+    { step: 'approve', permission: 'catalogue:approve', schema: transitionSchema, status: 200 },
+    { step: 'return', permission: 'catalogue:approve', schema: returnSchema, status: 200 },
+    { step: 'revise', permission: 'catalogue:draft', schema: transitionSchema, status: 201 },
+    { step: 'retire', permission: 'catalogue:approve', schema: retireSchema, status: 200 },
+  ] as const;
+  for (const { step, permission, schema, status } of steps) {
+    router.post(`/sets/:id/${step}`, authorize(permission), async (req, res) => {
+      const id = parseId(req.params.id);
+      const input = parse(schema, body(req)) as { lockVersion: number; comment?: string; reason?: string };
+      res.status(status).json(await stepSet(id, step, { lockVersion: input.lockVersion, comment: input.comment ?? input.reason }, actor(req)));
+    });
+  }
   router.get('/import/template.csv', authorize('catalogue:draft'), (req, res) => {
     parse(noQuery, req.query, 'query');
     res.setHeader('Content-Type', 'text/csv; charset=utf-8');

@@ -2,9 +2,10 @@ import PDFDocument from 'pdfkit';
 import { createRequire } from 'node:module';
 import path from 'node:path';
 import type { DesignRecordContent } from '../../../shared/schemas/projects';
-import { modeMargin, type FailureMode } from '../../../shared/engine';
-import tokens from '../../../tailwind.config';
-import { factorsText, sizedByText } from '../../../shared/labels';
+import { FAILURE_MODES, modeMargin } from '../../../shared/engine';
+import { colors, MODE_COLOURS } from '../../../shared/design-tokens';
+import { describeInputs, VALUE_STATUS_LABELS } from '../../../shared/schemas/provenance';
+import { COMPONENT_LABELS, FAILURE_MODE_LABELS, factorsText, formatMargin, roundText, sizedByText } from '../../../shared/labels';
 
 /**
  * The design record as a real, text-selectable PDF (pdfkit, DejaVu fonts embedded): sign-off,
@@ -20,40 +21,38 @@ const FONTS = {
   italic: path.join(fontDir, 'DejaVuSans-Oblique.ttf'),
 };
 
-const MODE_COLOURS = tokens.theme.extend.colors.mode as Record<FailureMode, string>;
-const INK = '#10242f';
-const SOFT = '#3b5360';
-const LINE = '#d9d4c7';
+const INK = colors.ink.DEFAULT;
+const SOFT = colors.ink.soft;
+const LINE = colors.chart.line;
 const MARGIN = 48;
 
 const mpa = (pa: number) => `${(pa / 1e6).toFixed(pa < 1e7 ? 3 : 1)} MPa`;
 const mm = (m: number | null) => (m === null ? 'none suffices' : `${(m * 1000).toFixed(1)} mm`);
-const pct = (x: number) => `${x >= 0 ? '+' : ''}${(x * 100).toFixed(0)} %`;
 const date = (iso: string) => new Date(iso).toISOString().replace('T', ' ').slice(0, 16) + ' UTC';
-const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 function describeComponent(c: DesignRecordContent['loadCase']['input']['component']): string {
+  const label = COMPONENT_LABELS[c.type];
   switch (c.type) {
     case 'flat-disc':
-      return `Flat disc window, unsupported diameter ${mm(c.diameter)}, thickness ${mm(c.thickness)}, edge ${c.edge}`;
+      return `${label}, unsupported diameter ${mm(c.diameter)}, thickness ${mm(c.thickness)}, edge ${c.edge}`;
     case 'conical-frustum':
       return (
-        `Conical frustum window, minor diameter ${mm(c.minorDiameter)}, thickness ${mm(c.thickness)}, included angle ${c.includedAngle}°` +
+        `${label}, minor diameter ${mm(c.minorDiameter)}, thickness ${mm(c.thickness)}, included angle ${c.includedAngle}°` +
         (c.seatOuterDiameter !== undefined ? `, seat outer diameter ${mm(c.seatOuterDiameter)}` : '')
       );
     case 'spherical-sector':
-      return `Spherical sector window, inner spherical radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}, included angle ${c.includedAngle}°`;
+      return `${label}, inner spherical radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}, included angle ${c.includedAngle}°`;
     case 'sphere':
-      return `Spherical shell (${c.fabrication ?? 'fabricated'}), inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}${c.localRadiusRatio ? `, measured local radius ${c.localRadiusRatio} × R` : ''}`;
+      return `${label} (${c.fabrication ?? 'fabricated'}), inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}${c.localRadiusRatio ? `, measured local radius ${c.localRadiusRatio} × R` : ''}`;
     case 'cylinder':
-      return `Cylindrical shell, inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}, unsupported length ${mm(c.length)}${c.outOfRoundness ? `, out-of-roundness ${(c.outOfRoundness * 100).toFixed(2)} % of R` : ''}`;
+      return `${label}, inner radius ${mm(c.innerRadius)}, thickness ${mm(c.thickness)}, unsupported length ${mm(c.length)}${c.outOfRoundness ? `, out-of-roundness ${(c.outOfRoundness * 100).toFixed(2)} % of R` : ''}`;
     case 'ring-stiffened-cylinder': {
       const f = c.frame;
       const frame =
         f.shape === 'tee'
           ? `tee frames ${mm(f.webHeight)} × ${mm(f.webThickness)} web, ${mm(f.flangeWidth)} × ${mm(f.flangeThickness)} flange`
           : `frames of area ${(f.area * 1e6).toFixed(0)} mm², second moment ${(f.secondMoment * 1e12).toExponential(3)} mm⁴, depth ${mm(f.depth)}`;
-      return `Ring-stiffened cylinder, inner radius ${mm(c.innerRadius)}, shell thickness ${mm(c.thickness)}, ${c.framePosition} ${frame} at ${mm(c.frameSpacing)}, ${mm(c.length)} between bulkheads, out-of-roundness ${((c.outOfRoundness ?? 0.005) * 100).toFixed(2)} % of R`;
+      return `${label}, inner radius ${mm(c.innerRadius)}, shell thickness ${mm(c.thickness)}, ${c.framePosition} ${frame} at ${mm(c.frameSpacing)}, ${mm(c.length)} between bulkheads, out-of-roundness ${((c.outOfRoundness ?? 0.005) * 100).toFixed(2)} % of R`;
     }
   }
 }
@@ -105,6 +104,17 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
   if (c.shortlist.checkComment) pair("Checker's comment", c.shortlist.checkComment);
   pair('Frozen', `${date(c.frozenAt)} — later catalogue changes do not alter this record`);
 
+  if (c.rounds?.length) {
+    heading('Rounds of checking');
+    for (const r of c.rounds) {
+      const text = roundText(r, date);
+      doc.font('Body-Bold').fontSize(9).fillColor(INK).text(text.heading);
+      for (const change of r.changes) doc.font('Body').fontSize(8.5).fillColor(SOFT).text(`  • ${change}`);
+      doc.font('Body').fontSize(9).fillColor(INK).text(text.outcome);
+      doc.moveDown(0.3);
+    }
+  }
+
   heading('Cautions');
   doc.font('Body').fontSize(9).fillColor(INK).text(c.cautions);
 
@@ -150,14 +160,14 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     if (doc.y > doc.page.height - 90) doc.addPage();
     const r = cand.result;
     row(
-      [String(i + 1), r.name, cap(r.governingMode), r.safetyFactor.toFixed(2), r.targetSafetyFactor.toFixed(2), pct(r.margin), mm(r.requiredThickness), r.massPerArea === null ? '—' : r.massPerArea.toFixed(1)],
+      [String(i + 1), r.name, FAILURE_MODE_LABELS[r.governingMode], r.safetyFactor.toFixed(2), r.targetSafetyFactor.toFixed(2), formatMargin(r.margin), mm(r.requiredThickness), r.massPerArea === null ? '—' : r.massPerArea.toFixed(1)],
       false,
       MODE_COLOURS[r.governingMode],
     );
   });
 
   heading('Margin by mode against the target');
-  const modes: FailureMode[] = ['tension', 'compression', 'shear', 'buckling'].filter((m) => ranked.some((r) => r.result.modes.some((x) => x.mode === m))) as FailureMode[];
+  const modes = FAILURE_MODES.filter((m) => ranked.some((r) => r.result.modes.some((x) => x.mode === m)));
   const labelW = 150;
   const chartW = width - labelW - 10;
   const scale = (margin: number) => ((Math.max(-1, Math.min(margin, 3)) + 1) / 4) * chartW;
@@ -183,7 +193,7 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
   let lx = MARGIN;
   for (const mode of modes) {
     doc.rect(lx, doc.y + 1, 8, 6).fillColor(MODE_COLOURS[mode]).fill();
-    doc.fillColor(INK).fontSize(7.5).text(cap(mode), lx + 11, doc.y, { lineBreak: false });
+    doc.fillColor(INK).fontSize(7.5).text(FAILURE_MODE_LABELS[mode], lx + 11, doc.y, { lineBreak: false });
     lx += 80;
   }
   doc.x = MARGIN;
@@ -193,7 +203,7 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     const r = cand.result;
     const set = cand.propertySet;
     heading(`${r.name}`);
-    pair('Governing mode', `${cap(r.governingMode)} — safety factor ${r.safetyFactor.toFixed(2)} against a target of ${r.targetSafetyFactor}, margin ${pct(r.margin)}`);
+    pair('Governing mode', `${FAILURE_MODE_LABELS[r.governingMode]} — safety factor ${r.safetyFactor.toFixed(2)} against a target of ${r.targetSafetyFactor}, margin ${formatMargin(r.margin)}`);
     pair('Required thickness', `${mm(r.requiredThickness)}, set by ${sizedByText(r.sizedBy ?? null)}`);
     if (r.rating) {
       const rt = r.rating;
@@ -213,7 +223,7 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     doc.moveDown(0.3);
     for (const m of r.modes) {
       if (doc.y > doc.page.height - 80) doc.addPage();
-      doc.font('Body-Bold').fontSize(8.5).fillColor(MODE_COLOURS[m.mode]).text(`${cap(m.mode)}${m.check ? ` (${m.check})` : ''}: `, { continued: true });
+      doc.font('Body-Bold').fontSize(8.5).fillColor(MODE_COLOURS[m.mode]).text(`${FAILURE_MODE_LABELS[m.mode]}${m.check ? ` (${m.check})` : ''}: `, { continued: true });
       doc
         .font('Body')
         .fillColor(INK)
@@ -225,7 +235,7 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
       doc.font('Body-Italic').fontSize(7.5).fillColor(SOFT).text(`Model: ${m.model}`, { indent: 10 });
     }
     if (r.warnings.length) {
-      doc.moveDown(0.3).font('Body-Bold').fontSize(8.5).fillColor('#a36a00').text('Warnings');
+      doc.moveDown(0.3).font('Body-Bold').fontSize(8.5).fillColor(colors.verdict.watch).text('Warnings');
       for (const w of r.warnings) doc.font('Body').fontSize(8).fillColor(INK).text(`• ${w}`, { indent: 6 });
     }
     doc.moveDown(0.3);
@@ -234,6 +244,9 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     if (ref) {
       pair('Source', [ref.authors, ref.year, ref.title, ref.identifier, ref.location].filter(Boolean).join('; '));
     }
+    const inputs = describeInputs(set);
+    pair('Inputs', `${inputs.filter((v) => v.status === 'confirmed').length} of ${inputs.length} confirmed against their source`);
+    for (const v of inputs) doc.font('Body').fontSize(8).fillColor(v.status === 'confirmed' ? INK : colors.verdict.watch).text(`• ${v.label}: ${VALUE_STATUS_LABELS[v.status]}${v.detail ? ` — ${v.detail}` : ''}`, { indent: 6 });
   }
 
   heading('Models used');

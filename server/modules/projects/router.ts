@@ -1,5 +1,6 @@
 import { Router, type Request } from 'express';
 import { authorize } from '../../auth/authorize';
+import { actorOf } from '../../auth/actor';
 import { parse, parseId } from '../../middleware/validate';
 import {
   loadCaseSaveSchema,
@@ -14,12 +15,13 @@ import {
   shortlistReturnSchema,
   shortlistTransitionSchema,
 } from '../../../shared/schemas/projects';
-import type { Actor } from './access';
 import * as projects from './service';
 import * as shortlists from './shortlists';
+import { getDesignRecord, listDesignRecords } from './design-records';
+import { stepShortlist } from './shortlist-steps';
 import { renderDesignRecordPdf } from './record-pdf';
 
-const actor = (req: Request): Actor => ({ id: req.user!.id, role: req.user!.role });
+const actor = actorOf;
 const idParam = (req: Request, name = 'id') => parseId(req.params[name], name);
 
 export function projectsRouter(): Router {
@@ -34,7 +36,7 @@ export function projectsRouter(): Router {
   r.post('/:id/load-cases', authorize('project:write'), async (req, res) => res.status(201).json(await projects.createLoadCase(actor(req), idParam(req), parse(loadCaseSaveSchema, req.body, 'load case'))));
   r.get('/:id/shortlists', authorize('project:read'), async (req, res) => res.json({ items: await shortlists.listShortlists(actor(req), idParam(req)) }));
   r.post('/:id/shortlists', authorize('project:write'), async (req, res) => res.status(201).json(await shortlists.createShortlist(actor(req), idParam(req), parse(shortlistCreateSchema, req.body, 'shortlist'))));
-  r.get('/:id/records', authorize('project:read'), async (req, res) => res.json({ items: await shortlists.listDesignRecords(actor(req), idParam(req)) }));
+  r.get('/:id/records', authorize('project:read'), async (req, res) => res.json({ items: await listDesignRecords(actor(req), idParam(req)) }));
   return r;
 }
 
@@ -60,23 +62,19 @@ export function shortlistsRouter(): Router {
   );
   r.delete('/:id/items/:itemId', authorize('project:write'), async (req, res) => res.json(await shortlists.removeItem(actor(req), idParam(req), idParam(req, 'itemId'))));
   r.post('/:id/reorder', authorize('project:write'), async (req, res) => res.json(await shortlists.reorderItems(actor(req), idParam(req), parse(shortlistReorderSchema, req.body, 'order'))));
-  r.post('/:id/submit', authorize('project:write'), async (req, res) => res.json(await shortlists.submitShortlist(actor(req), idParam(req), parse(shortlistTransitionSchema, req.body, 'request').lockVersion)));
-  r.post('/:id/check', authorize('shortlist:check'), async (req, res) => {
-    const body = parse(shortlistTransitionSchema, req.body, 'request');
-    res.json(await shortlists.checkShortlist(actor(req), idParam(req), body.lockVersion, body.comment));
-  });
-  r.post('/:id/return', authorize('shortlist:check'), async (req, res) => {
-    const body = parse(shortlistReturnSchema, req.body, 'request');
-    res.json(await shortlists.returnShortlist(actor(req), idParam(req), body.lockVersion, body.comment));
-  });
+  r.post('/:id/submit', authorize('project:write'), async (req, res) =>
+    res.json(await stepShortlist(actor(req), idParam(req), 'submit', { lockVersion: parse(shortlistTransitionSchema, req.body, 'request').lockVersion })),
+  );
+  r.post('/:id/check', authorize('shortlist:check'), async (req, res) => res.json(await stepShortlist(actor(req), idParam(req), 'check', parse(shortlistTransitionSchema, req.body, 'request'))));
+  r.post('/:id/return', authorize('shortlist:check'), async (req, res) => res.json(await stepShortlist(actor(req), idParam(req), 'return', parse(shortlistReturnSchema, req.body, 'request'))));
   return r;
 }
 
 export function recordsRouter(): Router {
   const r = Router();
-  r.get('/:id', authorize('project:read'), async (req, res) => res.json(await shortlists.getDesignRecord(actor(req), idParam(req))));
+  r.get('/:id', authorize('project:read'), async (req, res) => res.json(await getDesignRecord(actor(req), idParam(req))));
   r.get('/:id/pdf', authorize('design-record:export'), async (req, res) => {
-    const record = await shortlists.getDesignRecord(actor(req), idParam(req));
+    const record = await getDesignRecord(actor(req), idParam(req));
     const pdf = await renderDesignRecordPdf(record.id, record.content);
     res.setHeader('Content-Type', 'application/pdf');
     res.setHeader('Content-Disposition', `attachment; filename="isobath-design-record-${record.id}.pdf"`);

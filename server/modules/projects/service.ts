@@ -14,6 +14,7 @@ import type {
 } from '../../../shared/schemas/projects';
 import { badRequest, conflict, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
+import { assertCurrent, lockCurrent } from '../../services/optimistic-lock';
 import { ownedProject, visibleProject, writableProject, isAdmin, type Actor } from './access';
 
 export const userSummary = (u: User): UserSummaryDto => ({ id: u.id, name: u.name, email: u.email, role: u.role });
@@ -152,14 +153,11 @@ export async function createLoadCase(actor: Actor, projectId: number, input: z.o
 
 export async function updateLoadCase(actor: Actor, loadCaseId: number, input: z.output<typeof loadCaseUpdateSchema>): Promise<LoadCaseDto> {
   return sequelize().transaction(async (transaction) => {
-    const lc = await LoadCaseRecord.findByPk(loadCaseId, { transaction, lock: transaction.LOCK.UPDATE });
-    if (!lc) throw notFound('Load case');
+    const lc = await lockCurrent(LoadCaseRecord, transaction, loadCaseId, null, 'Load case');
     await writableProject(actor, lc.projectId, transaction).catch((err) => {
       throw err.status === 404 ? notFound('Load case') : err;
     });
-    if (lc.lockVersion !== input.lockVersion) {
-      throw conflict('Someone saved this load case after you opened it. Reload to see their changes; your edits are still in the form.', 'stale');
-    }
+    assertCurrent(lc, input.lockVersion, 'load case');
     // A load case used by a checked shortlist is part of a frozen record: keep it as it was.
     const frozen = await DesignRecord.count({
       where: { shortlistId: { [Op.in]: sequelize().literal(`(SELECT id FROM shortlists WHERE load_case_id = ${Number(loadCaseId)})`) } },
@@ -168,8 +166,15 @@ export async function updateLoadCase(actor: Actor, loadCaseId: number, input: z.
     if (frozen) throw conflict('A checked shortlist uses this load case; save a new load case instead.', 'frozen');
     const before = { name: lc.name, loadCase: lc.loadCase, filters: lc.filters, notes: lc.notes };
     await lc.update(
-      { name: input.name, loadCase: input.loadCase, filters: input.filters ?? null, notes: input.notes, lockVersion: lc.lockVersion + 1 },
+      { name: input.name, loadCase: input.loadCase, filters: input.filters ?? null, notes: input.notes },
       { transaction },
+    );
+    // A shortlist read before this edit must not be submitted or checked on the strength of that
+    // read: every live shortlist on this load case moves to a new version (a stale step gets 409).
+    // (Raw SQL: Model.increment does not map lockVersion to its underscored column.)
+    await sequelize().query(
+      `UPDATE shortlists SET lock_version = lock_version + 1, updated_at = now() WHERE load_case_id = :id AND status IN ('open', 'submitted', 'returned')`,
+      { replacements: { id: lc.id }, transaction },
     );
     await recordAudit(transaction, { actorId: actor.id, action: 'update', entityType: 'load-case', entityId: String(lc.id), before, after: input });
     return loadCaseDto(await lc.reload({ include: withCreator, transaction }));

@@ -2,10 +2,13 @@ import { Op, UniqueConstraintError, type Transaction, type WhereOptions, type In
 import { Material, PropertySet, Reference, User } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { recordAudit } from '../../services/audit';
+import { mechanicalValues } from '../../../shared/engine/candidates';
 import type { LibrarySetDto } from '../../../shared/schemas/library';
 import type {
+  MaterialDetailDto,
   MaterialDto,
   MaterialInput,
+  MaterialListDto,
   PropertySetDto,
   PropertySetListDto,
   PropertySetQuery,
@@ -48,19 +51,12 @@ export function propertySetDto(ps: PropertySet): PropertySetDto {
     condition: ps.condition,
     material: materialDto(ps.material!),
     reference: ps.reference ? referenceDto(ps.reference) : null,
-    density: ps.density,
-    youngsModulus: ps.youngsModulus,
-    poissonsRatio: ps.poissonsRatio,
-    tensileStrength: ps.tensileStrength,
-    tensileYield: ps.tensileYield,
-    compressiveStrength: ps.compressiveStrength,
-    compressiveYield: ps.compressiveYield,
-    shearStrength: ps.shearStrength,
-    shearYield: ps.shearYield ?? null,
+    ...mechanicalValues(ps),
     elongation: ps.elongation,
     luminousTransmittance: ps.luminousTransmittance,
     serviceTemperature: { min: ps.serviceTempMin, max: ps.serviceTempMax },
     valueDetails: ps.valueDetails ?? {},
+    provenance: ps.provenance ?? {},
     temperatureFactors: ps.temperatureFactors ?? [],
     sustainedLoadFactors: ps.sustainedLoadFactors ?? [],
     cyclicFactors: ps.cyclicFactors ?? [],
@@ -155,10 +151,6 @@ export async function getPropertySet(id: number, caller: Caller): Promise<Proper
   return propertySetDto(ps);
 }
 
-export interface MaterialDetailDto extends MaterialDto {
-  propertySets: PropertySetDto[];
-}
-
 export async function getMaterial(id: number, caller: Caller): Promise<MaterialDetailDto> {
   const material = await Material.findByPk(id);
   if (!material) throw notFound('Material');
@@ -172,7 +164,7 @@ export async function getMaterial(id: number, caller: Caller): Promise<MaterialD
 }
 
 /** All materials, by family then name. */
-export async function listMaterials(): Promise<{ items: MaterialDto[]; total: number }> {
+export async function listMaterials(): Promise<MaterialListDto> {
   const rows = await Material.findAll({ order: [['family', 'ASC'], ['name', 'ASC']] });
   return { items: rows.map(materialDto), total: rows.length };
 }

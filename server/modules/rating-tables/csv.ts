@@ -8,7 +8,7 @@
 import Papa from 'papaparse';
 import { AppError } from '../../errors';
 import { fileError, readCsvRows, type UploadedFile } from '../../services/csv-text';
-import { criticalPressureDataSchema, minimumRatioDataSchema, type RatingTableData } from '../../../shared/schemas/rating-tables';
+import { criticalPressureDataSchema, minimumRatioDataSchema, type RatingTableCsvDto, type RatingTableData } from '../../../shared/schemas/rating-tables';
 
 export const RATING_CSV_MAX_BYTES = 1024 * 1024;
 const PA_PER: Record<string, number> = { pa: 1, kpa: 1e3, mpa: 1e6, bar: 1e5, psi: 6894.757293168 };
@@ -33,7 +33,7 @@ function placeOf(path: readonly PropertyKey[], header: string[]): string {
   return typeof i === 'number' ? `rows.${i + 1}.${String(field)}` : String(field);
 }
 
-export function parseRatingTableCsv(file: UploadedFile, form: 'minimum-ratio' | 'critical-pressure'): { data: RatingTableData } {
+export function parseRatingTableCsv(file: UploadedFile, form: 'minimum-ratio' | 'critical-pressure'): RatingTableCsvDto {
   const [rawHeader, ...rows] = readCsvRows(file, RATING_CSV_MAX_BYTES);
   const header = rawHeader.map((h) => h.trim().toLowerCase());
   if (rows.length === 0) throw fileError('no_rows', 'The file has a header but no rows.', { file: 'has no rows' });

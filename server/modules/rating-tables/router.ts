@@ -1,6 +1,7 @@
 import { Router } from 'express';
 
 import { authorize } from '../../auth/authorize';
+import { actorOf } from '../../auth/actor';
 import { parse, parseId } from '../../middleware/validate';
 import { singleFile } from '../../middleware/upload';
 import { can } from '../../../shared/schemas/auth';
@@ -13,9 +14,8 @@ import {
 } from '../../../shared/schemas/rating-tables';
 import { createRatingTableDraft, getRatingTable, listRatingTables, stepRatingTable, updateRatingTableDraft } from './service';
 import { parseRatingTableCsv, RATING_CSV_MAX_BYTES, ratingTableTemplate } from './csv';
-import type { Actor } from '../../workflows/curated-steps';
 
-const actor = (req: Express.Request): Actor => ({ id: req.user!.id, name: req.user!.name, role: req.user!.role });
+const actor = actorOf;
 const caller = (req: Express.Request) => ({ canDraft: can(req.user?.role, 'catalogue:draft') });
 const body = (req: Express.Request & { body?: unknown }) => req.body ?? {};
 

@@ -6,10 +6,11 @@ import { Material, PropertySet, RatingTable, Reference, User } from '../../db/mo
 import { sequelize } from '../../db/sequelize';
 import { badRequest, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
-import { auditSnapshot, lockCurrent, runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
+import { auditSnapshot, draftWorkflowColumns, lockCurrent, runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
 import type { RatingTable as EngineRatingTable } from '../../../shared/engine';
-import { ratingTableContentSchema, type RatingTableDraft, type RatingTableDto, type RatingTableStepInput } from '../../../shared/schemas/rating-tables';
+import { ratingTableContentSchema, type RatingTableDraft, type RatingTableDto, type RatingTableListDto, type RatingTableStepInput } from '../../../shared/schemas/rating-tables';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
+import { referenceDto } from '../property-sets/service';
 
 export interface Caller {
   canDraft: boolean;
@@ -55,7 +56,7 @@ export function ratingTableDto(r: RatingTable, covered: Map<number, { propertySe
     lineageId: r.lineageId ?? r.id,
     lockVersion: r.lockVersion,
     material: { id: r.material!.id, name: r.material!.name, family: r.material!.family },
-    reference: ref ? { id: ref.id, kind: ref.kind, title: ref.title, authors: ref.authors, year: ref.year, identifier: ref.identifier, location: ref.location } : null,
+    reference: ref ? referenceDto(ref) : null,
     covers: (r.coversLineageIds ?? []).map((lineageId) => ({ lineageId, ...(covered.get(lineageId) ?? { propertySetId: lineageId, condition: `lineage ${lineageId}` }) })),
     content: {
       name: r.name,
@@ -87,7 +88,7 @@ async function loadDto(id: number, caller: Caller, transaction?: Transaction): P
 
 export const getRatingTable = (id: number, caller: Caller) => loadDto(id, caller);
 
-export async function listRatingTables(query: { materialId?: number; status?: string }, caller: Caller): Promise<{ items: RatingTableDto[]; total: number }> {
+export async function listRatingTables(query: { materialId?: number; status?: string }, caller: Caller): Promise<RatingTableListDto> {
   const readable = caller.canDraft ? ['draft', 'in-review', 'published', 'retired'] : ['published', 'retired'];
   const wanted = query.status === 'open' ? ['draft', 'in-review'] : query.status ? [query.status] : caller.canDraft ? readable : ['published'];
   const where: WhereOptions<RatingTable> = { status: { [Op.in]: wanted.filter((s) => readable.includes(s)) } as never };
@@ -134,16 +135,7 @@ export async function createRatingTableDraft(d: RatingTableDraft, actor: Actor):
     const row = await RatingTable.create(
       {
         ...valuesOf(d),
-        status: 'draft',
-        version: 1,
-        lineageId: null,
-        supersedesId: null,
-        supersededById: null,
-        draftedById: actor.id,
-        lastEditedById: actor.id,
-        approvedById: null,
-        publishedAt: null,
-        retiredAt: null,
+        ...draftWorkflowColumns(actor.id),
       },
       { transaction },
     );
@@ -180,7 +172,6 @@ const ratingTableKind: CuratedKind<RatingTable> = {
   },
   path: (id) => `/library/rating-tables/${id}`,
   async checkPublishable(row) {
-    if (row.referenceId == null) throw badRequest('A published rating table must cite a reference. Return it to the author to add one.', { referenceId: 'Is required to publish.' });
     // Tables drafted before a schema rule tightened are checked again before they reach the engine.
     const check = ratingTableContentSchema.safeParse({ name: row.name, geometry: row.geometry, includedAngle: row.includedAngle, limits: row.limits, grade: row.grade, note: row.note, data: row.data });
     if (!check.success) throw badRequest('The table does not pass the rating-table rules; return it to the author.', { data: check.error.issues[0]?.message ?? 'invalid' });

@@ -11,7 +11,7 @@ import { recordAudit } from '../../services/audit';
 import { deleteDocument, getDocument, putDocument } from '../../services/storage';
 import { isPdf, safeStoredName } from '../../services/pdf-check';
 import type { ReferenceInput } from '../../../shared/schemas/catalogue';
-import type { ReferenceDetailDto } from '../../../shared/schemas/library';
+import type { ReferenceDetailDto, ReferenceListDto } from '../../../shared/schemas/library';
 import { referenceDto } from '../property-sets/service';
 
 export interface Actor {
@@ -47,7 +47,7 @@ async function usedByCounts(ids: number[]): Promise<Map<number, number>> {
 const escapeLike = (s: string) => s.replace(/[\\%_]/g, (c) => `\\${c}`);
 
 /** Every word of q must appear in the title, authors or identifier. By title. */
-export async function listReferences(query: { q?: string }): Promise<{ items: ReferenceDetailDto[]; total: number }> {
+export async function listReferences(query: { q?: string }): Promise<ReferenceListDto> {
   const where: WhereOptions<Reference>[] = [];
   for (const word of (query.q ?? '').split(/\s+/).filter(Boolean).slice(0, 8)) {
     const like = { [Op.iLike]: `%${escapeLike(word)}%` };
@@ -65,7 +65,8 @@ export async function getReference(id: number): Promise<ReferenceDetailDto> {
   return referenceDetailDto(r, counts.get(id) ?? 0);
 }
 
-const fieldsOf = (input: ReferenceInput) => ({
+/** A reference's own fields from an input (the desk, the CSV import and the reference page write them alike). */
+export const referenceFields = (input: Pick<ReferenceInput, 'kind' | 'title'> & Partial<ReferenceInput>) => ({
   kind: input.kind,
   title: input.title,
   authors: input.authors ?? null,
@@ -77,7 +78,7 @@ const fieldsOf = (input: ReferenceInput) => ({
 
 export async function createReference(input: ReferenceInput, actor: Actor): Promise<ReferenceDetailDto> {
   const id = await sequelize().transaction(async (transaction) => {
-    const r = await Reference.create({ ...fieldsOf(input), createdById: actor.id }, { transaction });
+    const r = await Reference.create({ ...referenceFields(input), createdById: actor.id }, { transaction });
     await recordAudit(transaction, { actorId: actor.id, action: 'create', entityType: 'reference', entityId: r.id, before: null, after: referenceDto(r) });
     return r.id;
   });
@@ -93,7 +94,7 @@ export async function updateReference(id: number, lockVersion: number, input: Re
       throw conflict('Someone saved this reference after you opened it. Reload to see their changes; your edits are still in the form.', 'stale');
     }
     const before = referenceDto(r);
-    r.set(fieldsOf(input));
+    r.set(referenceFields(input));
     await r.save({ transaction }); // increments lockVersion (the model's version attribute)
     await recordAudit(transaction, { actorId: actor.id, action: 'edit', entityType: 'reference', entityId: id, before, after: referenceDto(r) });
   });

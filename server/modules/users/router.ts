@@ -12,6 +12,8 @@ import {
   passwordResetSchema,
   userUpdateSchema,
 } from '../../../shared/schemas/projects';
+import type { SessionDto } from '../../../shared/schemas/auth';
+import type { MessageDto } from '../../../shared/schemas/responses';
 import * as users from './service';
 
 /** Admin: people, roles, deactivation, invitations. */
@@ -44,22 +46,22 @@ export function accountRouter(): Router {
     const input = parse(invitationAcceptSchema, req.body, 'invitation');
     const user = await users.acceptInvitation(input.token, input.name, input.password);
     const sessionUser = { id: user.id, email: user.email, name: user.name, role: user.role };
-    req.logIn(sessionUser, (err) => (err ? next(err) : res.status(201).json({ user: toSessionUser(sessionUser) })));
+    req.logIn(sessionUser, (err) => (err ? next(err) : res.status(201).json({ user: toSessionUser(sessionUser) } satisfies SessionDto)));
   });
   r.post('/password-reset/request', open, limiter, async (req, res) => {
     const input = parse(passwordResetRequestSchema, req.body, 'request');
     await users.requestPasswordReset(input.email);
-    res.status(202).json({ message: 'If that address has an account, a reset link is on its way.' });
+    res.status(202).json({ message: 'If that address has an account, a reset link is on its way.' } satisfies MessageDto);
   });
   r.post('/password-reset', open, limiter, async (req, res) => {
     const input = parse(passwordResetSchema, req.body, 'request');
     await users.resetPassword(input.token, input.password);
-    res.json({ message: 'Your password is changed. Sign in with it.' });
+    res.json({ message: 'Your password is changed. Sign in with it.' } satisfies MessageDto);
   });
   r.post('/password', requireSignIn, async (req, res) => {
     const input = parse(passwordChangeSchema, req.body, 'request');
     await users.changePassword(req.user!.id, input.currentPassword, input.newPassword, req.sessionID);
-    res.json({ message: 'Your password is changed; your other sessions have ended.' });
+    res.json({ message: 'Your password is changed; your other sessions have ended.' } satisfies MessageDto);
   });
   return r;
 }

@@ -5,11 +5,12 @@ import { User } from '../../db/models';
 import { Invitation, PasswordReset } from '../../db/models/projects';
 import type { Role } from '../../../shared/schemas/auth';
 import { ROLE_LABELS } from '../../../shared/schemas/auth';
+import type { AdminUserDto, InvitationCreatedDto, InvitationDto } from '../../../shared/schemas/projects';
 import { AppError, badRequest, conflict, notFound } from '../../errors';
 import { hashPassword, verifyPassword } from '../../auth/passwords';
 import { recordAudit } from '../../services/audit';
 import { sendMailSafely } from '../../services/mail';
-import { env } from '../../config/env';
+import { appLink } from '../../services/app-link';
 import { forgetSessionsOf } from '../../auth/session-cache';
 
 export const INVITATION_HOURS = 72;
@@ -18,17 +19,6 @@ export const RESET_HOURS = 1;
 /** Tokens travel by e-mail; only their SHA-256 is stored, so a database leak reveals none. */
 const newToken = () => randomBytes(32).toString('base64url');
 const tokenHash = (token: string) => createHash('sha256').update(token).digest('hex');
-const link = (path: string) => `${env().APP_URL.replace(/\/$/, '')}${path}`;
-
-export interface AdminUserDto {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  active: boolean;
-  lastLoginAt: string | null;
-  createdAt: string;
-}
 
 const adminUserDto = (u: User): AdminUserDto => ({
   id: u.id,
@@ -70,7 +60,7 @@ export async function updateUser(actorId: number, userId: number, change: { role
   return adminUserDto(user);
 }
 
-export async function listInvitations() {
+export async function listInvitations(): Promise<InvitationDto[]> {
   const rows = await Invitation.findAll({ order: [['createdAt', 'DESC']], limit: 200 });
   const now = Date.now();
   return rows.map((i) => ({
@@ -84,7 +74,7 @@ export async function listInvitations() {
 }
 
 /** Invites by e-mail with a one-time link; an address that already has an account is refused. */
-export async function invite(actorId: number, email: string, role: Role): Promise<{ id: number; email: string; role: Role; expiresAt: string }> {
+export async function invite(actorId: number, email: string, role: Role): Promise<InvitationCreatedDto> {
   const token = newToken();
   const invitation = await sequelize().transaction(async (transaction) => {
     if (await User.findOne({ where: { email }, transaction })) {
@@ -102,7 +92,7 @@ export async function invite(actorId: number, email: string, role: Role): Promis
     subject: 'You are invited to Isobath',
     text:
       `You have been invited to Isobath as ${ROLE_LABELS[role].toLowerCase()}.\n\n` +
-      `Choose your password within ${INVITATION_HOURS} hours: ${link(`/welcome?token=${token}`)}\n\n` +
+      `Choose your password within ${INVITATION_HOURS} hours: ${appLink(`/welcome?token=${token}`)}\n\n` +
       `The link works once. If you did not expect this, ignore this message.\n\n— Isobath`,
   });
   return { id: invitation.id, email, role, expiresAt: invitation.expiresAt.toISOString() };
@@ -138,7 +128,7 @@ export async function requestPasswordReset(email: string): Promise<void> {
     subject: 'Reset your Isobath password',
     text:
       `Someone asked to reset the password of your Isobath account.\n\n` +
-      `Choose a new one within ${RESET_HOURS} hour: ${link(`/reset-password?token=${token}`)}\n\n` +
+      `Choose a new one within ${RESET_HOURS} hour: ${appLink(`/reset-password?token=${token}`)}\n\n` +
       `The link works once. If it was not you, ignore this message; your password stays as it is.\n\n— Isobath`,
   });
 }

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate } from '../evaluate';
+import { dive1200 } from '../evaluate-fixtures';
+import { hy80 } from '../test-materials';
 import type { CandidateMaterial } from '../types';
 import {
   bryanPressure,
@@ -98,27 +100,12 @@ describe('hoop compression', () => {
 });
 
 describe('cylinder results', () => {
-  const steel: CandidateMaterial = {
-    name: 'Quenched and tempered steel (demo)',
-    family: 'steel',
-    density: 7850,
-    youngsModulus: 207e9,
-    poissonsRatio: 0.3,
-    tensileStrength: 760e6,
-    tensileYield: 552e6,
-    compressiveStrength: 760e6,
-    compressiveYield: 552e6,
-    shearStrength: 450e6,
-  };
+  // Quenched and tempered steel (demo): HY-80's yield and stiffness (test-materials.ts) with an
+  // ultimate of 760 MPa in tension and compression and a shear strength of 450 MPa.
+  const steel: CandidateMaterial = { ...hy80, name: 'Quenched and tempered steel (demo)', tensileStrength: 760e6, compressiveStrength: 760e6, shearStrength: 450e6 };
   const bay = (thickness: number, length = 0.6) =>
     evaluate({
-      loadCase: {
-        pressure: { depth: 1200, latitude: 56, water: 'sea' },
-        temperature: { min: 2, max: 25 },
-        sustainedHours: 0,
-        cycles: 0,
-        component: { type: 'cylinder', innerRadius: 0.9, thickness, length },
-      },
+      loadCase: { ...dive1200, sustainedHours: 0, cycles: 0, component: { type: 'cylinder', innerRadius: 0.9, thickness, length } },
       candidates: [steel],
     }).results[0];
 

@@ -1,10 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate } from '../evaluate';
+import { shortTerm } from '../evaluate-fixtures';
+import { PSI } from '../test-support';
+import { acrylicLotMinimums } from '../test-materials';
 import type { CandidateMaterial } from '../types';
 import { edgeShearStress, flatDiscBendingCoefficient, flatDiscBendingStress, flatDiscDeflection, flatDiscModel } from './flat-disc';
 
 const IN = 0.0254; // m per inch (exact)
-const PSI = 6894.757293168; // Pa per psi
 
 describe("Roark's Table 11.2 worked example (steel plate, SI)", () => {
   // Source: Roark's Formulas for Stress and Strain, 7th ed. (Young & Budynas 2002), Table 11.2,
@@ -84,26 +86,12 @@ describe('past the thickness set by the shear-to-tensile strength ratio, shear g
 });
 
 describe('validity warnings', () => {
-  const acrylic: CandidateMaterial = {
-    name: 'Cast acrylic (demo)',
-    family: 'acrylic',
-    density: 1190,
-    youngsModulus: 2.76e9,
-    poissonsRatio: 0.37,
-    tensileStrength: 62e6,
-    compressiveStrength: 103e6,
-    shearStrength: 55e6,
-    temperatureFactors: [{ temperature: 20, factor: 1 }],
-  };
+  // The lot-minimum acrylic (test-materials.ts) with its compressive value as a strength only and a
+  // flat temperature curve at 20 °C.
+  const acrylic: CandidateMaterial = { ...acrylicLotMinimums, compressiveYield: undefined, temperatureFactors: [{ temperature: 20, factor: 1 }] };
   const run = (diameter: number, thickness: number, pressure: number) =>
     evaluate({
-      loadCase: {
-        pressure: { value: pressure },
-        temperature: { min: 20, max: 20 },
-        sustainedHours: 0,
-        cycles: 0,
-        component: { type: 'flat-disc', diameter, thickness, edge: 'simply-supported' },
-      },
+      loadCase: shortTerm(pressure, { type: 'flat-disc', diameter, thickness, edge: 'simply-supported' }, 20),
       candidates: [acrylic],
     }).results[0];
 

@@ -167,11 +167,12 @@ export function ringStiffenedCritical(g: RingStiffenedCylinder, t: number, m: Mo
   // yield below that mode's p_n; the imperfection can lie in any mode, so the lowest over n governs
   const w0 = (g.outOfRoundness ?? DEFAULT_OUT_OF_ROUNDNESS) * h.R;
   const membrane = (h.R * g.frameSpacing) / (h.frame.area + t * g.frameSpacing); // per unit pressure
-  // a round frame yields at its membrane stress (its buckling is the overall check's)
   let pfy = sy / membrane;
-  if (w0 === 0) return { elastic: h.pn, yield: pfy, collapse: pfy };
   // the deviation is taken in each of the low modes n = 2…6, where fabrication out-of-roundness is
   // measured and lies (common practice); the lowest governs. A fixed set keeps the check continuous.
+  // A perfectly round frame (w0 = 0) is the limit of a nearly round one: it yields at its membrane
+  // stress unless an n-lobe mode buckles first (the root below is then min(σy/a, p_n) exactly), so
+  // a vanishing out-of-roundness cannot jump the check up to the membrane yield alone.
   for (let n = 2; n <= 6; n++) {
     const pnn = bryantPressureForLobes(m.E, h.R, t, g.length, g.frameSpacing, h.Ie, n);
     const bending = (m.E * h.c * w0 * (n * n - 1)) / (h.R * h.R);

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate } from '../evaluate';
+import { dive1200 } from '../evaluate-fixtures';
+import { titanium } from '../test-materials';
 import type { CandidateMaterial } from '../types';
 import {
   FABRICATED_SPHERE_FACTOR,
@@ -73,27 +75,10 @@ describe('sphere collapse: a whole-sphere method by fabrication, with yield–bu
 });
 
 describe('sphere results', () => {
-  const titanium: CandidateMaterial = {
-    name: 'Titanium alloy, annealed plate (demo)',
-    family: 'titanium-alloy',
-    density: 4430,
-    youngsModulus: 114e9,
-    poissonsRatio: 0.31,
-    tensileStrength: 896e6,
-    tensileYield: 827e6,
-    compressiveStrength: 896e6,
-    compressiveYield: 827e6,
-    shearStrength: 550e6,
-  };
+  // titanium: the demo annealed plate of test-materials.ts; dive1200: evaluate-fixtures.ts
   const sphere = (thickness: number, m: CandidateMaterial = titanium) =>
     evaluate({
-      loadCase: {
-        pressure: { depth: 1200, latitude: 56, water: 'sea' },
-        temperature: { min: 2, max: 25 },
-        sustainedHours: 8,
-        cycles: 500,
-        component: { type: 'sphere', innerRadius: 1.0, thickness },
-      },
+      loadCase: { ...dive1200, sustainedHours: 8, cycles: 500, component: { type: 'sphere', innerRadius: 1.0, thickness } },
       candidates: [m],
     }).results[0];
 
@@ -101,7 +86,7 @@ describe('sphere results', () => {
     const r = sphere(0.03);
     const b = r.modes.find((m) => m.mode === 'buckling')!;
     const p = evaluate({
-      loadCase: { pressure: { depth: 1200, latitude: 56, water: 'sea' }, temperature: { min: 2, max: 25 }, sustainedHours: 0, cycles: 0, component: { type: 'sphere', innerRadius: 1, thickness: 0.03 } },
+      loadCase: { ...dive1200, sustainedHours: 0, cycles: 0, component: { type: 'sphere', innerRadius: 1, thickness: 0.03 } },
       candidates: [],
     }).pressure;
     expect(b.stress).toBeCloseTo(sphereMembraneStress(p, 1.015, 0.03), 3);

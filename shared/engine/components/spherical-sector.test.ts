@@ -1,34 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import { evaluate } from '../evaluate';
-import type { CandidateMaterial } from '../types';
+import { shortTerm } from '../evaluate-fixtures';
+import { PSI } from '../test-support';
+import { acrylicAt21C } from '../test-materials';
 import { sphereLameStress } from './sphere';
 import { SPHERICAL_SECTOR_WARNING, sectorSeatStress } from './spherical-sector';
 
-/** Acrylic at the pressure-window standard's lot minimums (UFC 4-159-01 Tables 3-1, 3-2 [pub]). */
-const acrylic: CandidateMaterial = {
-  name: 'Cast acrylic, lot minimums',
-  family: 'acrylic',
-  density: 1190,
-  youngsModulus: 2.76e9,
-  poissonsRatio: 0.37,
-  tensileStrength: 62e6,
-  compressiveStrength: 103e6,
-  compressiveYield: 103e6,
-  shearStrength: 55e6,
-  temperatureFactors: [{ temperature: 21, factor: 1 }],
-};
-const PSI = 6894.757293168;
+// The window: acrylic at the pressure-window standard's lot minimums (UFC 4-159-01 Tables 3-1, 3-2
+// [pub]) with a flat temperature curve at 21 °C (test-materials.ts).
 const sector = (innerRadius: number, thickness: number, includedAngle: number, pressure: number, target?: number) =>
   evaluate({
-    loadCase: {
-      pressure: { value: pressure },
-      temperature: { min: 21, max: 21 },
-      sustainedHours: 0,
-      cycles: 0,
-      ...(target ? { targetSafetyFactor: target } : {}),
-      component: { type: 'spherical-sector', innerRadius, thickness, includedAngle },
-    },
-    candidates: [acrylic],
+    loadCase: shortTerm(pressure, { type: 'spherical-sector', innerRadius, thickness, includedAngle }, 21, target ? { targetSafetyFactor: target } : {}),
+    candidates: [acrylicAt21C],
   }).results[0];
 
 describe('spherical sector window in a conical seat', () => {

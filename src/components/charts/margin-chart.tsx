@@ -1,7 +1,8 @@
 import { Bar } from 'react-chartjs-2';
-import './setup';
 import { FAILURE_MODES, modeMargin, type CandidateResult } from '@shared/engine';
-import { MODE_COLOURS, MODE_LABELS } from '@/components/failure-modes';
+import { FAILURE_MODE_LABELS, formatMargin } from '@shared/labels';
+import { MODE_COLOURS } from '@/components/failure-modes';
+import { palette } from './setup';
 
 /**
  * Each candidate's margin in every mode it has (tension, compression, shear, buckling), against
@@ -14,7 +15,7 @@ export function MarginChart({ results }: { results: CandidateResult[] }) {
   const data = {
     labels: shown.map((r) => (r.name.length > 42 ? `${r.name.slice(0, 40)}…` : r.name)),
     datasets: modes.map((mode) => ({
-      label: MODE_LABELS[mode],
+      label: FAILURE_MODE_LABELS[mode],
       backgroundColor: MODE_COLOURS[mode],
       data: shown.map((r) => {
         const margin = modeMargin(r, mode);
@@ -37,10 +38,10 @@ export function MarginChart({ results }: { results: CandidateResult[] }) {
             maintainAspectRatio: false,
             plugins: {
               legend: { position: 'bottom' },
-              tooltip: { callbacks: { label: (ctx) => `${ctx.dataset.label}: ${((ctx.parsed.x ?? 0) * 100).toFixed(0)} %` } },
+              tooltip: { callbacks: { label: (ctx) => `${ctx.dataset.label}: ${formatMargin(ctx.parsed.x ?? 0)}` } },
             },
             scales: {
-              x: { min: -1, suggestedMax: 2, title: { display: true, text: 'margin (safety factor / target − 1)' }, grid: { color: (c) => (c.tick.value === 0 ? '#10242f' : '#e8e4d9') } },
+              x: { min: -1, suggestedMax: 2, title: { display: true, text: 'margin (safety factor / target − 1)' }, grid: { color: (c) => (c.tick.value === 0 ? palette.ink.DEFAULT : palette.chart.deep) } },
               y: { ticks: { autoSkip: false, font: { size: 11 } } },
             },
           }}

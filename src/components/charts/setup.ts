@@ -10,11 +10,11 @@ import {
   Legend,
   Filler,
 } from 'chart.js';
-import tokens from '../../../tailwind.config';
+import { colors, fontFamily } from '@shared/design-tokens';
 
 ChartJS.register(CategoryScale, LinearScale, LogarithmicScale, PointElement, LineElement, BarElement, Tooltip, Legend, Filler);
-ChartJS.defaults.font.family = 'Lato, system-ui, sans-serif';
-ChartJS.defaults.color = '#3b5360';
+ChartJS.defaults.font.family = fontFamily.sans.join(', ');
+ChartJS.defaults.color = colors.ink.soft;
 ChartJS.defaults.animation = false;
 
-export const palette = tokens.theme.extend.colors;
+export const palette = colors;

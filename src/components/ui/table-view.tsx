@@ -15,7 +15,6 @@ const isNumeric = (meta: unknown) => !!(meta as { numeric?: boolean } | undefine
 
 /** A react-table with click- and keyboard-sortable columns; extra options (paging…) pass through. */
 // Column value types differ per column, hence `any` (as react-table's own examples do).
-// eslint-disable-next-line @typescript-eslint/no-explicit-any
 export function useSortableTable<T>(data: T[], columns: ColumnDef<T, any>[], extra: Partial<TableOptions<T>> = {}): Table<T> {
   const [sorting, setSorting] = useState<SortingState>([]);
   return useReactTable({

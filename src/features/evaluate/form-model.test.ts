@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { DEMO_CHAMBER_PORT } from '@shared/demo-load-cases';
 import type { LoadCaseInput } from '@shared/schemas/evaluate';
 import { checkForm, convertForm, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, toRequest } from './form-model';
 
@@ -41,15 +42,12 @@ describe('Evaluate form model', () => {
 });
 
 describe('saved load cases in the Evaluate form', () => {
-  // Harrow Sound's 5 bar treatment chamber: a flat side viewport (invented scenario).
+  // Harrow Sound's 5 bar treatment chamber: a flat side viewport (invented scenario,
+  // shared/demo-load-cases.ts), here clamped and with a set target.
   const chamberPort: LoadCaseInput = {
-    pressure: { value: 0.5e6 },
-    temperature: { min: 15, max: 40 },
-    sustainedHours: 5000,
-    cycles: 10000,
+    ...DEMO_CHAMBER_PORT,
     targetSafetyFactor: 6,
-    proofFactor: 1.5,
-    component: { type: 'flat-disc', diameter: 0.25, thickness: 0.04, edge: 'clamped' },
+    component: { ...DEMO_CHAMBER_PORT.component, edge: 'clamped' },
   };
 
   it('fills the form from a saved case and builds the same request again, in SI and in US units', () => {

@@ -61,6 +61,8 @@ export interface LoadCaseForm {
   family: Family | '';
   transparent: '' | 'true' | 'false';
   coversTemperature: boolean;
+  confirmedOnly: boolean;
+  excludeDemo: boolean;
 }
 
 export type NumericField = {
@@ -143,6 +145,8 @@ export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
   family: '',
   transparent: 'true',
   coversTemperature: true,
+  confirmedOnly: false,
+  excludeDemo: false,
 };
 
 const round = (v: number) => (Number.isFinite(v) ? Number(v.toPrecision(6)) : v);
@@ -215,6 +219,8 @@ export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequ
       ...(f.family ? { family: f.family } : {}),
       ...(f.transparent ? { transparent: f.transparent === 'true' } : {}),
       ...(f.coversTemperature ? { coversTemperature: true } : {}),
+      ...(f.confirmedOnly ? { confirmedOnly: true } : {}),
+      ...(f.excludeDemo ? { excludeDemo: true } : {}),
     },
   };
 }
@@ -346,6 +352,8 @@ export function formFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): Loa
     family: filters?.family ?? '',
     transparent: filters?.transparent === undefined ? '' : filters.transparent ? 'true' : 'false',
     coversTemperature: filters?.coversTemperature === true,
+    confirmedOnly: filters?.confirmedOnly === true,
+    excludeDemo: filters?.excludeDemo === true,
   };
 }
 

@@ -1,2 +1,3 @@
-// The failure-mode labels and colours are shared with the projects pages (design records).
-export { MODE_COLOURS, MODE_LABELS } from '@/components/failure-modes';
+// The failure-mode colours are shared with the projects pages (design records); their words are
+// FAILURE_MODE_LABELS in shared/labels.ts.
+export { MODE_COLOURS } from '@/components/failure-modes';

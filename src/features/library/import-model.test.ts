@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { countDataRows, issuesFromImportError } from './import-model';
+import { countDataRows, importIssuesOf, issuesFromImportError } from './import-model';
 
 describe('CSV import helpers', () => {
   it('counts data rows without the header, a trailing newline or CRLF endings', () => {
@@ -27,5 +27,21 @@ describe('CSV import helpers', () => {
       { row: 3, field: 'family', message: 'unknown family' },
       { row: 12, field: 'tensile_strength_mpa', message: 'must be a number' },
     ]);
+  });
+
+  it('takes a refused import’s structured issues and full count when the server sends them', () => {
+    const issues = [
+      { row: 4, field: 'service_temp_max_c', message: 'min must not exceed max' },
+      { row: 4, field: 'density_kg_m3', message: 'must be a number' },
+    ];
+    const fields = { 'rows.4.service_temp_max_c': 'min must not exceed max', 'rows.4.density_kg_m3': 'must be a number' };
+    expect(importIssuesOf({ fields, rows: { issues, issueCount: 612 } })).toEqual({ issues, issueCount: 612 });
+    expect(importIssuesOf({ fields })).toEqual({
+      issues: [
+        { row: 4, field: 'density_kg_m3', message: 'must be a number' },
+        { row: 4, field: 'service_temp_max_c', message: 'min must not exceed max' },
+      ],
+      issueCount: 2,
+    });
   });
 });

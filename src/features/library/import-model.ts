@@ -1,4 +1,5 @@
 import type { ImportIssueDto } from '@shared/schemas/library';
+import type { ApiError } from '@/lib/api-client';
 
 /**
  * Data rows in a CSV text, for the "checking about N rows" estimate while the server works:
@@ -29,4 +30,14 @@ export function issuesFromImportError(fields: Record<string, string>): ImportIss
       return m ? { row: Number(m[1]), field: m[2] ?? '', message } : { row: 0, field: path, message };
     })
     .sort((a, b) => a.row - b.row || a.field.localeCompare(b.field));
+}
+
+/**
+ * The row issues of a refused import: the structured list the server sends with 400
+ * "import_invalid" (in its order, with the full count), else read back from the fields.
+ */
+export function importIssuesOf(error: Pick<ApiError, 'fields' | 'rows'>): { issues: ImportIssueDto[]; issueCount: number } {
+  if (error.rows) return { issues: error.rows.issues, issueCount: error.rows.issueCount };
+  const issues = issuesFromImportError(error.fields);
+  return { issues, issueCount: issues.length };
 }

@@ -1,12 +1,7 @@
-import type { ValueBasis, PropertySetStatus } from '@shared/schemas/catalogue';
+import type { PropertySetStatus } from '@shared/schemas/catalogue';
 
-export { REFERENCE_KIND_LABELS } from '@shared/schemas/catalogue';
-
-export const BASIS_LABELS: Record<ValueBasis, string> = {
-  minimum: 'Minimum',
-  typical: 'Typical',
-  'statistical-allowable': 'Statistical allowable',
-};
+// Words the record and its PDF use too live in shared/labels.ts.
+export { REFERENCE_KIND_LABELS, VALUE_BASIS_LABELS } from '@shared/labels';
 
 export const STATUS_LABELS: Record<PropertySetStatus, string> = {
   draft: 'draft',

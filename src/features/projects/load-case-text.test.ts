@@ -1,23 +1,16 @@
 import { describe, expect, it } from 'vitest';
+import { DEMO_CHAMBER_PORT, DEMO_VIEWPORT } from '@shared/demo-load-cases';
 import type { LoadCaseInput } from '@shared/schemas/evaluate';
 import { describeLoadCase, summarizeLoadCase } from './load-case-text';
 
-// Harrow Sound's 1,200 m submersible viewport and its 5 bar chamber port (invented scenario).
-const VIEWPORT: LoadCaseInput = {
-  pressure: { depth: 1200, latitude: 57, water: 'sea' },
-  temperature: { min: 2, max: 25 },
-  sustainedHours: 1000,
-  cycles: 2000,
-  proofFactor: 1.25,
-  component: { type: 'conical-frustum', minorDiameter: 0.15, thickness: 0.1, includedAngle: 90 },
-};
+// Harrow Sound's 1,200 m submersible viewport and its 5 bar chamber port (invented scenario,
+// shared/demo-load-cases.ts); here the port is clamped, with a set target and no proof factor.
+const VIEWPORT: LoadCaseInput = DEMO_VIEWPORT;
 const CHAMBER_PORT: LoadCaseInput = {
-  pressure: { value: 0.5e6 },
-  temperature: { min: 15, max: 40 },
-  sustainedHours: 5000,
-  cycles: 10000,
+  ...DEMO_CHAMBER_PORT,
   targetSafetyFactor: 6,
-  component: { type: 'flat-disc', diameter: 0.25, thickness: 0.04, edge: 'clamped' },
+  proofFactor: undefined,
+  component: { ...DEMO_CHAMBER_PORT.component, edge: 'clamped' },
 };
 
 const value = (rows: { label: string; value: string }[], label: string) => rows.find((r) => r.label === label)?.value;

@@ -2,8 +2,11 @@ import type { CandidateResult, FailureMode } from '@shared/engine';
 import type { PropertySetDto } from '@shared/schemas/catalogue';
 import type { Permission, Role } from '@shared/schemas/auth';
 import type { ShortlistStatus } from '@shared/schemas/projects';
+import { SHORTLIST_STEPS } from '@shared/workflows/shortlist';
+import { inputStatusText } from '@shared/schemas/provenance';
+import { allowedSteps, type RefusalCode, type WorkflowSubject } from '@shared/workflows/steps';
 import { formatQuantity, unitOf, type QuantityKind, type UnitSystem } from '@/lib/units';
-import { formatMargin } from '@/components/failure-modes';
+import { formatMargin } from '@shared/labels';
 
 export const SHORTLIST_STATUS_LABELS: Record<ShortlistStatus, string> = {
   open: 'open',
@@ -45,25 +48,37 @@ export interface ShortlistRights {
   decision: DecisionState;
 }
 
+type ShortlistLike = { status: ShortlistStatus; author: { id: number }; items: readonly unknown[] };
+
+/** The shortlist as its workflow table sees it. */
+export const shortlistSubject = (shortlist: ShortlistLike, memberIds: readonly number[] | null): WorkflowSubject<ShortlistStatus> => ({
+  status: shortlist.status,
+  authorIds: [shortlist.author.id],
+  memberIds,
+  facts: { hasItems: shortlist.items.length > 0 },
+});
+
+const DECISION: Record<RefusalCode, DecisionState> = {
+  'wrong-status': 'not-waiting',
+  'own-work': 'own-work',
+  'no-role': 'no-role',
+  'not-member': 'not-member',
+  'not-author': 'own-work',
+  unmet: 'not-waiting',
+};
+
 /**
- * What the viewer may do with a shortlist. Mirrors the server's rules (it checks them again): only
- * the author edits and submits; a checker who is a project member, or an admin, checks, never
- * the author.
+ * What the viewer may do with a shortlist, from the shared workflow table the server runs (it
+ * checks again): only the author edits and submits; a checker who is a project member, or an
+ * admin, checks, never the author.
  */
-export function shortlistRights(
-  shortlist: { status: ShortlistStatus; author: { id: number }; items: readonly unknown[] },
-  viewer: Viewer,
-  memberIds: readonly number[] | null,
-): ShortlistRights {
-  const author = shortlist.author.id === viewer.id;
+export function shortlistRights(shortlist: ShortlistLike, viewer: Viewer, memberIds: readonly number[] | null): ShortlistRights {
+  const steps = allowedSteps(SHORTLIST_STEPS, shortlistSubject(shortlist, memberIds), viewer);
+  const submit = steps.find((s) => s.step.name === 'submit')!;
+  const check = steps.find((s) => s.step.name === 'check')!;
   const editable = shortlist.status === 'open' || shortlist.status === 'returned';
-  const canEdit = author && editable && viewer.permissions.includes('project:write');
-  let decision: DecisionState = 'allowed';
-  if (shortlist.status !== 'submitted') decision = 'not-waiting';
-  else if (author) decision = 'own-work';
-  else if (!viewer.permissions.includes('shortlist:check')) decision = 'no-role';
-  else if (viewer.role !== 'admin' && memberIds && !memberIds.includes(viewer.id)) decision = 'not-member';
-  return { canEdit, canSubmit: canEdit && shortlist.items.length > 0, decision };
+  const canEdit = shortlist.author.id === viewer.id && editable && viewer.permissions.includes('project:write');
+  return { canEdit, canSubmit: canEdit && submit.allowed, decision: check.allowed ? 'allowed' : DECISION[check.code!] };
 }
 
 // ---- Side-by-side comparison ----------------------------------------------------------------
@@ -131,6 +146,7 @@ export function comparisonRows(candidates: readonly ComparedCandidate[], system:
       unitOf('length', system).label,
     ),
     result('massPerArea', 'Mass per area', (r) => ({ text: formatQuantity('massPerArea', system, r.massPerArea, { unit: false }) }), unitOf('massPerArea', system).label),
+    result('inputs', 'Inputs confirmed', (r) => ({ text: r.inputs ? inputStatusText(r.inputs) : '—' })),
     result('warnings', 'Warnings', (r) => ({ text: r.warnings.length ? `${r.warnings.length}` : 'none', warnings: r.warnings })),
   ];
 }

@@ -1,6 +1,6 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { AuditEntryDto, CaughtMailDto } from '@shared/schemas/library';
+import type { AuditPageDto, CaughtMailListDto } from '@shared/schemas/library';
 
 export const AUDIT_PAGE_SIZE = 50;
 
@@ -23,18 +23,13 @@ export const mailKeys = {
 export const auditQueryOptions = (filters: AuditFilters) =>
   infiniteQueryOptions({
     queryKey: auditKeys.list(filters),
-    queryFn: ({ pageParam }) => api.get<{ items: AuditEntryDto[] }>('/admin/audit', { ...filters, limit: AUDIT_PAGE_SIZE, before: pageParam }),
+    queryFn: ({ pageParam }) => api.get<AuditPageDto>('/admin/audit', { ...filters, limit: AUDIT_PAGE_SIZE, before: pageParam }),
     initialPageParam: undefined as number | undefined,
     getNextPageParam: (last) => (last.items.length < AUDIT_PAGE_SIZE ? undefined : last.items[last.items.length - 1]?.id),
     staleTime: 0,
   });
 
 export const useAuditLog = (filters: AuditFilters) => useInfiniteQuery(auditQueryOptions(filters));
-
-export interface CaughtMailListDto {
-  enabled: boolean;
-  items: CaughtMailDto[];
-}
 
 export const caughtMailQueryOptions = () =>
   queryOptions({ queryKey: mailKeys.list(), queryFn: () => api.get<CaughtMailListDto>('/admin/mail'), staleTime: 0 });

@@ -1,27 +1,8 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { Role } from '@shared/schemas/auth';
-
-export interface AdminUserDto {
-  id: number;
-  email: string;
-  name: string;
-  role: Role;
-  active: boolean;
-  lastLoginAt: string | null;
-  createdAt: string;
-}
-
-export type InvitationState = 'waiting' | 'accepted' | 'expired';
-
-export interface InvitationDto {
-  id: number;
-  email: string;
-  role: Role;
-  createdAt: string;
-  expiresAt: string;
-  state: InvitationState;
-}
+import type { AdminUserDto, InvitationCreatedDto, InvitationDto } from '@shared/schemas/projects';
+import type { ItemsDto } from '@shared/schemas/responses';
 
 export const teamKeys = {
   all: ['team'] as const,
@@ -30,12 +11,12 @@ export const teamKeys = {
 };
 
 export const usersQueryOptions = () =>
-  queryOptions({ queryKey: teamKeys.users(), queryFn: () => api.get<{ items: AdminUserDto[] }>('/admin/users').then((r) => r.items), staleTime: 0 });
+  queryOptions({ queryKey: teamKeys.users(), queryFn: () => api.get<ItemsDto<AdminUserDto>>('/admin/users').then((r) => r.items), staleTime: 0 });
 
 export const invitationsQueryOptions = () =>
   queryOptions({
     queryKey: teamKeys.invitations(),
-    queryFn: () => api.get<{ items: InvitationDto[] }>('/admin/invitations').then((r) => r.items),
+    queryFn: () => api.get<ItemsDto<InvitationDto>>('/admin/invitations').then((r) => r.items),
     staleTime: 0,
   });
 
@@ -56,7 +37,7 @@ export function useUpdateUser() {
 export function useInvite() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: { email: string; role: Role }) => api.post<{ id: number; email: string; role: Role; expiresAt: string }>('/admin/invitations', input),
+    mutationFn: (input: { email: string; role: Role }) => api.post<InvitationCreatedDto>('/admin/invitations', input),
     onSuccess: () => void qc.invalidateQueries({ queryKey: teamKeys.invitations() }),
   });
 }

@@ -11,7 +11,8 @@ import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/sta
 import { ApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/dates';
 import { setServerErrors } from '@/lib/field-errors';
-import { useInvitations, useInvite, useUpdateUser, useUsers, type AdminUserDto, type InvitationState } from '../api/users';
+import type { AdminUserDto, InvitationState } from '@shared/schemas/projects';
+import { useInvitations, useInvite, useUpdateUser, useUsers } from '../api/users';
 import { AdminNav } from './admin-nav';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, ApiError } from '@/lib/api-client';
-import type { LoginInput, Permission, SessionUserDto } from '@shared/schemas/auth';
+import type { LoginInput, Permission, SessionDto, SessionUserDto } from '@shared/schemas/auth';
 
 export const authKeys = {
   all: ['auth'] as const,
@@ -9,7 +9,7 @@ export const authKeys = {
 
 export async function fetchMe(): Promise<SessionUserDto | null> {
   try {
-    const { user } = await api.get<{ user: SessionUserDto }>('/auth/me');
+    const { user } = await api.get<SessionDto>('/auth/me');
     return user;
   } catch (err) {
     if (err instanceof ApiError && err.status === 401) return null;
@@ -30,7 +30,7 @@ export function useCan(permission: Permission): boolean {
 export function useSignIn() {
   const qc = useQueryClient();
   return useMutation({
-    mutationFn: (input: LoginInput) => api.post<{ user: SessionUserDto }>('/auth/login', input),
+    mutationFn: (input: LoginInput) => api.post<SessionDto>('/auth/login', input),
     onSuccess: ({ user }) => {
       qc.clear();
       qc.setQueryData(authKeys.me(), user);

@@ -1,6 +1,6 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { Family, MaterialDto, PropertySetDto, PropertySetListDto } from '@shared/schemas/catalogue';
+import type { Family, MaterialDetailDto, PropertySetListDto } from '@shared/schemas/catalogue';
 
 export interface CatalogueFilters {
   family?: Family;
@@ -28,10 +28,6 @@ export const propertySetsQueryOptions = (filters: CatalogueFilters) =>
   queryOptions({ queryKey: propertySetKeys.list(filters), queryFn: () => fetchPropertySets(filters) });
 
 export const usePropertySets = (filters: CatalogueFilters) => useQuery(propertySetsQueryOptions(filters));
-
-export interface MaterialDetailDto extends MaterialDto {
-  propertySets: PropertySetDto[];
-}
 
 export const materialQueryOptions = (id: number) =>
   queryOptions({ queryKey: materialKeys.detail(id), queryFn: () => api.get<MaterialDetailDto>(`/materials/${id}`) });

@@ -3,11 +3,13 @@ import { Link, useParams, useSearchParams } from 'react-router-dom';
 import { FAMILY_LABELS, QUANTITIES, QUANTITY_LABELS, type PropertySetDto, type Quantity } from '@shared/schemas/catalogue';
 import { useMaterial } from '../api/property-sets';
 import { ReferenceCard } from '@/components/reference-card';
+import { ValueStatusNote } from '@/components/inputs-mark';
+import { VALUE_BASIS_LABELS } from '@shared/labels';
+import { engineInputKeys, inputStatus, inputStatusText, PROVENANCE_LABELS } from '@shared/schemas/provenance';
 import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
 import { toDisplay, type QuantityKind } from '@/lib/units';
-import { useRatingTables } from '@/features/rating-tables/api/rating-tables';
-import { RatingTableSummary } from '@/features/rating-tables/components/rating-table-pages';
+import { RatingTableSummary, useRatingTables } from '@/features/rating-tables';
 
 const FactorChart = lazy(() => import('@/components/charts/factor-chart').then((m) => ({ default: m.FactorChart })));
 
@@ -36,7 +38,8 @@ function ValuesTable({ set }: { set: PropertySetDto }) {
           <th className="py-1 pr-3 text-right">Value</th>
           <th className="py-1 pr-3">Basis</th>
           <th className="py-1 pr-3">Test method</th>
-          <th className="py-1">Tested at</th>
+          <th className="py-1 pr-3">Tested at</th>
+          <th className="py-1">Status</th>
         </tr>
       </thead>
       <tbody>
@@ -48,9 +51,12 @@ function ValuesTable({ set }: { set: PropertySetDto }) {
             <tr key={q} className="border-t border-chart-line/60">
               <td className="py-1 pr-3">{QUANTITY_LABELS[q]}</td>
               <td className="py-1 pr-3 text-right font-bold">{kind ? format(kind, value) : value.toFixed(3)}</td>
-              <td className="py-1 pr-3">{detail?.basis ?? '—'}</td>
+              <td className="py-1 pr-3">{detail?.basis ? VALUE_BASIS_LABELS[detail.basis] : '—'}</td>
               <td className="py-1 pr-3">{detail?.testMethod ?? '—'}</td>
-              <td className="py-1">{detail?.temperature !== undefined ? format('temperature', detail.temperature) : '—'}</td>
+              <td className="py-1 pr-3">{detail?.temperature !== undefined ? format('temperature', detail.temperature) : '—'}</td>
+              <td className="py-1">
+                <ValueStatusNote provenance={set.provenance} field={q} />
+              </td>
             </tr>
           );
         })}
@@ -90,7 +96,11 @@ function SetDetail({ set }: { set: PropertySetDto }) {
       >
         <ValuesTable set={set} />
         <p className="mt-3 text-sm">
-          Service temperature {format('temperature', set.serviceTemperature.min)} to {format('temperature', set.serviceTemperature.max)}
+          Service temperature {format('temperature', set.serviceTemperature.min)} to {format('temperature', set.serviceTemperature.max)}{' '}
+          <ValueStatusNote provenance={set.provenance} field="serviceTemperature" />
+        </p>
+        <p className="mt-1 text-sm" data-testid="set-inputs">
+          {inputStatusText(inputStatus(set.provenance, engineInputKeys(set)))} (of the values the calculation uses).
         </p>
         <p className="mt-1 text-xs text-ink-faint">
           {set.draftedBy ? `Drafted by ${set.draftedBy.name}. ` : 'Seeded from the project catalogue. '}
@@ -106,6 +116,15 @@ function SetDetail({ set }: { set: PropertySetDto }) {
         ) : (
           <p className="text-sm text-ink-soft">This set carries no temperature, sustained-load or cyclic data. Evaluations using it will say so.</p>
         )}
+        <ul className="mt-2 flex flex-col gap-0.5">
+          {(['temperatureFactors', 'sustainedLoadFactors', 'cyclicFactors'] as const)
+            .filter((k) => set[k].length)
+            .map((k) => (
+              <li key={k} className="text-xs">
+                {PROVENANCE_LABELS[k]}: <ValueStatusNote provenance={set.provenance} field={k} />
+              </li>
+            ))}
+        </ul>
         {set.sustainedLoadFactors.length === 0 && set.temperatureFactors.length > 0 ? (
           <p className="mt-2 text-xs text-ink-soft">No sustained-load (creep) data in this set.</p>
         ) : null}

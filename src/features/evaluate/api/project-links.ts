@@ -1,7 +1,8 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { EvaluateRequest } from '@shared/schemas/evaluate';
-import type { LoadCaseDto, ProjectDto, ShortlistDto, ShortlistStatus } from '@shared/schemas/projects';
+import type { LoadCaseDto, ProjectDto, ShortlistDto, ShortlistSummaryDto } from '@shared/schemas/projects';
+import type { ItemsDto } from '@shared/schemas/responses';
 import { evaluateKeys } from './evaluate';
 
 /**
@@ -18,20 +19,11 @@ export const evaluateProjectKeys = {
   loadCase: (id: number) => [...evaluateKeys.all, 'load-case', id] as const,
 };
 
-export interface ShortlistChoiceDto {
-  id: number;
-  name: string;
-  status: ShortlistStatus;
-  loadCaseId: number;
-  author: { id: number; name: string };
-  itemCount: number;
-}
-
 export const savedLoadCaseQueryOptions = (id: number) =>
   queryOptions({ queryKey: evaluateProjectKeys.loadCase(id), queryFn: () => api.get<LoadCaseDto>(`/load-cases/${id}`), staleTime: 30_000 });
 
 export const myProjectsQueryOptions = () =>
-  queryOptions({ queryKey: evaluateProjectKeys.list(), queryFn: () => api.get<{ items: ProjectDto[] }>('/projects').then((r) => r.items), staleTime: 0 });
+  queryOptions({ queryKey: evaluateProjectKeys.list(), queryFn: () => api.get<ItemsDto<ProjectDto>>('/projects').then((r) => r.items), staleTime: 0 });
 
 export const useSavedLoadCase = (id: number | null) => useQuery({ ...savedLoadCaseQueryOptions(id ?? 0), enabled: id !== null });
 export const useMyProjects = (enabled = true) => useQuery({ ...myProjectsQueryOptions(), enabled });
@@ -40,7 +32,7 @@ export const useMyProjects = (enabled = true) => useQuery({ ...myProjectsQueryOp
 export function useShortlistChoices(projectId: number, loadCaseId: number, authorId: number, enabled: boolean) {
   return useQuery({
     queryKey: evaluateProjectKeys.shortlists(projectId),
-    queryFn: () => api.get<{ items: ShortlistChoiceDto[] }>(`/projects/${projectId}/shortlists`).then((r) => r.items),
+    queryFn: () => api.get<ItemsDto<ShortlistSummaryDto>>(`/projects/${projectId}/shortlists`).then((r) => r.items),
     staleTime: 0,
     enabled,
     select: (items) => items.filter((s) => s.author.id === authorId && s.loadCaseId === loadCaseId && (s.status === 'open' || s.status === 'returned')),

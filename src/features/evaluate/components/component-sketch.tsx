@@ -1,4 +1,5 @@
 import type { ComponentType } from '@shared/schemas/evaluate';
+import { colors } from '@shared/design-tokens';
 
 interface SketchProps {
   type: ComponentType;
@@ -6,10 +7,10 @@ interface SketchProps {
   labels: { diameter?: string; minorDiameter?: string; thickness?: string; includedAngle?: string; innerRadius?: string; length?: string; frameSpacing?: string };
 }
 
-const INK = '#10242f';
-const DIM = '#9c6a1c';
-const BODY = '#d6e8ea';
-const SEAT = '#6b7f89';
+const INK = colors.ink.DEFAULT;
+const DIM = colors.brass.DEFAULT;
+const BODY = colors.sounding.light;
+const SEAT = colors.ink.faint;
 
 function Arrowhead() {
   return (

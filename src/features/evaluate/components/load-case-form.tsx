@@ -261,6 +261,12 @@ export function LoadCaseFormPanel({
         <label className="flex items-center gap-2 text-sm">
           <input type="checkbox" {...register('coversTemperature')} /> Service range must cover the design temperatures
         </label>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" {...register('confirmedOnly')} /> Confirmed inputs only (every value the calculation uses checked against its source)
+        </label>
+        <label className="flex items-center gap-2 text-sm">
+          <input type="checkbox" {...register('excludeDemo')} /> Exclude demo data
+        </label>
       </Fieldset>
 
       <FormError message={errors.root?.message} />

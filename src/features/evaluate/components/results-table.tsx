@@ -13,6 +13,7 @@ import { useUnits } from '@/lib/unit-system';
 import { factorsText } from '@shared/labels';
 import { SortableHeader } from '@/components/ui/sortable-header';
 import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
+import { InputsMark } from '@/components/inputs-mark';
 import { splitCandidateName } from '../candidate-name';
 
 /** Rows in the first paint of the ranking; the rest render right after. */
@@ -91,6 +92,12 @@ export function ResultsTable({
             </div>
           );
         },
+      }),
+      col.accessor((r) => (r.inputs ? r.inputs.confirmed / Math.max(r.inputs.total, 1) : -1), {
+        id: 'inputs',
+        header: 'Inputs confirmed',
+        cell: (c) => <InputsMark inputs={c.row.original.inputs} />,
+        meta: { numeric: true },
       }),
       col.accessor('governingMode', { header: 'Governed by', cell: (c) => <ModeTag mode={c.getValue()} /> }),
       col.accessor('safetyFactor', {

@@ -1,11 +1,12 @@
 import { useMemo } from 'react';
 import { Line } from 'react-chartjs-2';
-import '@/components/charts/setup';
+import { palette } from '@/components/charts/setup';
 import { sweepThickness, type CandidateMaterial } from '@shared/engine';
 import type { LoadCaseInput } from '@shared/schemas/evaluate';
 import { useUnits } from '@/lib/unit-system';
 import { toDisplay } from '@/lib/units';
-import { MODE_COLOURS, MODE_LABELS } from '../modes';
+import { FAILURE_MODE_LABELS } from '@shared/labels';
+import { MODE_COLOURS } from '../modes';
 
 /** Safety factor of every mode against thickness for one candidate, computed here by the shared engine. */
 export function ThicknessChart({ loadCase, candidate, thickness, requiredThickness }: { loadCase: LoadCaseInput; candidate: CandidateMaterial; thickness: number; requiredThickness: number | null }) {
@@ -20,7 +21,7 @@ export function ThicknessChart({ loadCase, candidate, thickness, requiredThickne
   const data = {
     datasets: [
       ...sweep.series.map((s) => ({
-        label: s.check ? `${MODE_LABELS[s.mode]} (${s.check})` : MODE_LABELS[s.mode],
+        label: s.check ? `${FAILURE_MODE_LABELS[s.mode]} (${s.check})` : FAILURE_MODE_LABELS[s.mode],
         borderColor: MODE_COLOURS[s.mode],
         backgroundColor: MODE_COLOURS[s.mode],
         pointRadius: 0,
@@ -34,7 +35,7 @@ export function ThicknessChart({ loadCase, candidate, thickness, requiredThickne
       })),
       {
         label: `Target ${sweep.targetSafetyFactor}`,
-        borderColor: '#10242f',
+        borderColor: palette.ink.DEFAULT,
         borderDash: [6, 4],
         borderWidth: 1,
         pointRadius: 0,
@@ -45,7 +46,7 @@ export function ThicknessChart({ loadCase, candidate, thickness, requiredThickne
       },
       {
         label: 'Evaluated thickness',
-        borderColor: '#9c6a1c',
+        borderColor: palette.brass.DEFAULT,
         borderWidth: 1.5,
         pointRadius: 0,
         data: [
@@ -79,15 +80,15 @@ export function ThicknessChart({ loadCase, candidate, thickness, requiredThickne
           Dashed grey:{' '}
           {sweep.series
             .filter((s) => s.invalidReason)
-            .map((s) => `${MODE_LABELS[s.mode]}${s.check ? ` (${s.check})` : ''} — ${s.invalidReason}`)
+            .map((s) => `${FAILURE_MODE_LABELS[s.mode]}${s.check ? ` (${s.check})` : ''} — ${s.invalidReason}`)
             .join('; ')}
           .
         </p>
       ) : null}
       <p className="text-xs text-ink-soft" data-testid="mode-transitions">
         {sweep.governingTransitions.length
-          ? sweep.governingTransitions.map((t) => `${MODE_LABELS[t.from]} gives way to ${MODE_LABELS[t.to].toLowerCase()} at ${format('length', t.thickness)}`).join('; ') + '.'
-          : `${MODE_LABELS[sweep.governing[0]]} governs across this range.`}
+          ? sweep.governingTransitions.map((t) => `${FAILURE_MODE_LABELS[t.from]} gives way to ${FAILURE_MODE_LABELS[t.to].toLowerCase()} at ${format('length', t.thickness)}`).join('; ') + '.'
+          : `${FAILURE_MODE_LABELS[sweep.governing[0]]} governs across this range.`}
       </p>
     </figure>
   );

@@ -1,20 +1,10 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { DraftInput, LibrarySetDto, ValueChangeDto } from '@shared/schemas/library';
-import type { MaterialDto, PropertySetListDto } from '@shared/schemas/catalogue';
+import type { DraftInput, LibrarySetDto, LibrarySetListDto, SetChangesDto } from '@shared/schemas/library';
+import type { MaterialListDto, PropertySetListDto } from '@shared/schemas/catalogue';
 import { CATALOGUE_KEY_ROOTS, libraryMaterialKeys, librarySetKeys, referenceKeys, type LibraryQueueFilters } from './keys';
 
 export type { LibraryQueueFilters };
-
-export interface LibrarySetListDto {
-  items: LibrarySetDto[];
-  total: number;
-}
-
-export interface SetChangesDto {
-  previous: LibrarySetDto | null;
-  changes: ValueChangeDto[];
-}
 
 export const fetchLibrarySets = (filters: LibraryQueueFilters) =>
   api.get<LibrarySetListDto>('/library/sets', { status: filters.status, mine: filters.mine === undefined ? undefined : String(filters.mine) });
@@ -35,7 +25,7 @@ export const publishedSetsQueryOptions = () =>
 export const materialsQueryOptions = () =>
   queryOptions({
     queryKey: libraryMaterialKeys.list(),
-    queryFn: () => api.get<{ items: MaterialDto[]; total: number }>('/materials'),
+    queryFn: () => api.get<MaterialListDto>('/materials'),
     staleTime: 5 * 60_000,
   });
 

@@ -1,13 +1,8 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { ReferenceInput } from '@shared/schemas/catalogue';
-import type { ReferenceDetailDto } from '@shared/schemas/library';
+import type { ReferenceDetailDto, ReferenceListDto } from '@shared/schemas/library';
 import { CATALOGUE_KEY_ROOTS, librarySetKeys, referenceKeys } from './keys';
-
-export interface ReferenceListDto {
-  items: ReferenceDetailDto[];
-  total: number;
-}
 
 export const referencesQueryOptions = (q: string) =>
   queryOptions({ queryKey: referenceKeys.list(q), queryFn: () => api.get<ReferenceListDto>('/references', { q }), staleTime: 30_000 });

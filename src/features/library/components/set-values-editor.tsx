@@ -5,7 +5,7 @@ import { TextField } from '@/components/ui/field';
 import { useUnits } from '@/lib/unit-system';
 import { unitOf } from '@/lib/units';
 import { QUANTITY_KIND, REQUIRED_QUANTITIES } from '../draft-form';
-import { BASIS_LABELS } from '../labels';
+import { VALUE_BASIS_LABELS } from '../labels';
 import { CellInput, CellSelect } from './cells';
 import { Fieldset, type SetEditorSectionProps } from './set-editor-fieldset';
 
@@ -51,7 +51,7 @@ export function ValuesSection({ form, err }: SetEditorSectionProps) {
                       <option value="">—</option>
                       {VALUE_BASES.map((b) => (
                         <option key={b} value={b}>
-                          {BASIS_LABELS[b]}
+                          {VALUE_BASIS_LABELS[b]}
                         </option>
                       ))}
                     </CellSelect>

@@ -2,7 +2,7 @@ import { QUANTITIES, QUANTITY_LABELS, type PropertySetDto, type Quantity } from 
 import { useUnits } from '@/lib/unit-system';
 import { changedCells, type ValueCell } from '../changes';
 import { QUANTITY_KIND } from '../draft-form';
-import { BASIS_LABELS } from '../labels';
+import { VALUE_BASIS_LABELS } from '../labels';
 
 type Row = Quantity | 'serviceTemperature.min' | 'serviceTemperature.max';
 
@@ -41,7 +41,7 @@ export function SetValues({ set, previous = null }: { set: PropertySetDto; previ
   const detail = (s: PropertySetDto | null, q: Quantity, cell: Exclude<ValueCell, 'value'>) => {
     const d = s?.valueDetails[q];
     if (!d) return '—';
-    if (cell === 'basis') return BASIS_LABELS[d.basis];
+    if (cell === 'basis') return VALUE_BASIS_LABELS[d.basis];
     if (cell === 'testMethod') return d.testMethod ?? '—';
     return d.temperature === undefined ? '—' : format('temperature', d.temperature);
   };

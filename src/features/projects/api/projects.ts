@@ -1,33 +1,11 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { LoadCaseDto, ProjectDto, ShortlistStatus, UserSummaryDto } from '@shared/schemas/projects';
+import type { DesignRecordSummaryDto, LoadCaseDto, ProjectDto, ShortlistSummaryDto, UserSummaryDto } from '@shared/schemas/projects';
+import type { ItemsDto } from '@shared/schemas/responses';
 import { peopleKeys, projectKeys } from './keys';
 
-/** A row of GET /api/projects/:id/shortlists. */
-export interface ShortlistSummaryDto {
-  id: number;
-  name: string;
-  status: ShortlistStatus;
-  loadCaseId: number;
-  author: { id: number; name: string };
-  itemCount: number;
-  designRecordId: number | null;
-  updatedAt: string;
-}
-
-/** A row of GET /api/projects/:id/records. */
-export interface DesignRecordSummaryDto {
-  id: number;
-  shortlistId: number;
-  name: string;
-  loadCase: string;
-  author: string;
-  checker: string;
-  checkedAt: string;
-}
-
 export const projectsQueryOptions = () =>
-  queryOptions({ queryKey: projectKeys.list(), queryFn: () => api.get<{ items: ProjectDto[] }>('/projects').then((r) => r.items), staleTime: 10_000 });
+  queryOptions({ queryKey: projectKeys.list(), queryFn: () => api.get<ItemsDto<ProjectDto>>('/projects').then((r) => r.items), staleTime: 10_000 });
 
 export const projectQueryOptions = (id: number) =>
   queryOptions({ queryKey: projectKeys.detail(id), queryFn: () => api.get<ProjectDto>(`/projects/${id}`), staleTime: 10_000 });
@@ -35,27 +13,27 @@ export const projectQueryOptions = (id: number) =>
 export const projectLoadCasesQueryOptions = (id: number) =>
   queryOptions({
     queryKey: projectKeys.loadCases(id),
-    queryFn: () => api.get<{ items: LoadCaseDto[] }>(`/projects/${id}/load-cases`).then((r) => r.items),
+    queryFn: () => api.get<ItemsDto<LoadCaseDto>>(`/projects/${id}/load-cases`).then((r) => r.items),
     staleTime: 10_000,
   });
 
 export const projectShortlistsQueryOptions = (id: number) =>
   queryOptions({
     queryKey: projectKeys.shortlists(id),
-    queryFn: () => api.get<{ items: ShortlistSummaryDto[] }>(`/projects/${id}/shortlists`).then((r) => r.items),
+    queryFn: () => api.get<ItemsDto<ShortlistSummaryDto>>(`/projects/${id}/shortlists`).then((r) => r.items),
     staleTime: 10_000,
   });
 
 export const projectRecordsQueryOptions = (id: number) =>
   queryOptions({
     queryKey: projectKeys.records(id),
-    queryFn: () => api.get<{ items: DesignRecordSummaryDto[] }>(`/projects/${id}/records`).then((r) => r.items),
+    queryFn: () => api.get<ItemsDto<DesignRecordSummaryDto>>(`/projects/${id}/records`).then((r) => r.items),
     staleTime: 10_000,
   });
 
 /** Active accounts that can be added to a project (needs project:write). */
 export const peopleQueryOptions = () =>
-  queryOptions({ queryKey: peopleKeys.list(), queryFn: () => api.get<{ items: UserSummaryDto[] }>('/people').then((r) => r.items), staleTime: 60_000 });
+  queryOptions({ queryKey: peopleKeys.list(), queryFn: () => api.get<ItemsDto<UserSummaryDto>>('/people').then((r) => r.items), staleTime: 60_000 });
 
 export const useProjects = () => useQuery(projectsQueryOptions());
 /** A project; pass 0 while its id is not known yet. */

@@ -2,26 +2,20 @@ import { lazy, Suspense } from 'react';
 import { Link } from 'react-router-dom';
 import type { CandidateResult } from '@shared/engine';
 import type { DesignRecordContent, DesignRecordDto } from '@shared/schemas/projects';
-import { FAMILY_LABELS, type ReferenceDto } from '@shared/schemas/catalogue';
+import { FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
 import { Button } from '@/components/ui/button';
 import { ErrorState, Spinner, Tag } from '@/components/ui/states';
 import { formatDateTime } from '@/lib/dates';
 import { useUnits } from '@/lib/unit-system';
-import { factorsText } from '@shared/labels';
+import { REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
 import { designRecordPdfUrl, useDesignRecord } from '../api/shortlists';
 import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
+import { Rounds } from './rounds';
+import { describeInputs, VALUE_STATUS_LABELS } from '@shared/schemas/provenance';
 import './record-print.css';
 
 const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
-
-const REFERENCE_KINDS: Record<ReferenceDto['kind'], string> = {
-  standard: 'Standard',
-  handbook: 'Handbook',
-  paper: 'Paper',
-  'test-report': 'Test report',
-  'supplier-data-sheet': 'Supplier data sheet',
-};
 
 /** A titled part of the record; short ones are kept on one printed page. */
 function Section({ title, children, className = '', keepTogether = false }: { title: string; children: React.ReactNode; className?: string; keepTogether?: boolean }) {
@@ -168,10 +162,18 @@ function Sources({ content }: { content: DesignRecordContent }) {
               <Link to={`/sets/${s.id}`} className="no-print text-xs text-sounding underline">
                 Open in the catalogue
               </Link>
+              <ul className="mt-1 text-xs" aria-label={`Inputs of ${s.material.name}`} data-testid="record-inputs">
+                {describeInputs(s).map((v) => (
+                  <li key={v.key}>
+                    {v.label}: <span className={v.status === 'confirmed' ? 'text-verdict-pass' : v.status === 'demo' ? 'text-verdict-fail' : 'text-verdict-watch'}>{VALUE_STATUS_LABELS[v.status]}</span>
+                    {v.detail ? <span className="text-ink-faint"> — {v.detail}</span> : null}
+                  </li>
+                ))}
+              </ul>
             </div>
             {r ? (
               <div>
-                <Tag tone="brass">{REFERENCE_KINDS[r.kind]}</Tag> {r.identifier ? <span className="font-mono text-xs">{r.identifier}</span> : null}
+                <Tag tone="brass">{REFERENCE_KIND_LABELS[r.kind]}</Tag> {r.identifier ? <span className="font-mono text-xs">{r.identifier}</span> : null}
                 <p className="font-bold">{r.title}</p>
                 <p className="text-ink-soft">
                   {[r.authors, r.year].filter(Boolean).join(', ')}
@@ -256,6 +258,12 @@ function RecordView({ record, canExport }: { record: DesignRecordDto; canExport:
       <Section title="Sign-off" keepTogether>
         <SignOff content={c} />
       </Section>
+
+      {c.rounds?.length ? (
+        <Section title="Rounds of checking" keepTogether>
+          <Rounds rounds={c.rounds} />
+        </Section>
+      ) : null}
 
       <Section title="Load case" keepTogether>
         <p className="mb-2 font-bold">{c.loadCase.name}</p>

@@ -1,72 +1,24 @@
 import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { shortlistItemUpdateSchema, shortlistReturnSchema, type ShortlistDto, type ShortlistItemDto } from '@shared/schemas/projects';
+import { shortlistItemUpdateSchema, type ShortlistDto, type ShortlistItemDto } from '@shared/schemas/projects';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { LinkButton } from '@/components/ui/link-button';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { TextAreaField } from '@/components/ui/text-area';
 import { ApiError } from '@/lib/api-client';
-import { formatDateTime } from '@/lib/dates';
 import { useUnits } from '@/lib/unit-system';
 import { useProject } from '../api/projects';
 import { useShortlist, useShortlistStep } from '../api/shortlists';
 import { moveItem, shortlistRights, type ShortlistRights, type Viewer } from '../shortlist-model';
-import { Breadcrumb, LoadCaseFacts, SetName, ShortlistStatusTag } from './bits';
+import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
 import { ComparisonTable } from './comparison-table';
+import { SignOff, StatusBanner } from './sign-off';
+import { Rounds } from './rounds';
+import { formatDateTime } from '@/lib/dates';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 const isStale = (err: unknown) => err instanceof ApiError && err.status === 409 && (err.code === 'stale' || err.code === 'wrong_status');
-
-function StatusBanner({ shortlist }: { shortlist: ShortlistDto }) {
-  const s = shortlist;
-  const box = 'rounded-plate border-l-4 px-4 py-3 text-sm';
-  switch (s.status) {
-    case 'open':
-      return (
-        <div className={`${box} border-sounding bg-sounding-light/60`} data-testid="shortlist-status">
-          <p>
-            <ShortlistStatusTag status="open" /> <strong>{s.author.name}</strong> is choosing candidates. When the list and its notes are ready, the author submits it for
-            checking.
-          </p>
-        </div>
-      );
-    case 'submitted':
-      return (
-        <div className={`${box} border-brass bg-brass-light/60`} data-testid="shortlist-status">
-          <p>
-            <ShortlistStatusTag status="submitted" /> Submitted by <strong>{s.author.name}</strong> on {formatDateTime(s.submittedAt)}; waiting for a second engineer to check
-            it. It cannot be changed meanwhile.
-          </p>
-        </div>
-      );
-    case 'checked':
-      return (
-        <div className={`${box} border-verdict-pass bg-verdict-pass/10`} data-testid="shortlist-status">
-          <p>
-            <ShortlistStatusTag status="checked" /> Checked by <strong>{s.checker?.name ?? 'a checker'}</strong> on {formatDateTime(s.checkedAt)}. Its design record is
-            frozen.
-          </p>
-          {s.checkComment ? <blockquote className="mt-2 whitespace-pre-line border-l-2 border-verdict-pass/40 pl-3 italic">{s.checkComment}</blockquote> : null}
-          {s.designRecordId ? (
-            <LinkButton to={`/records/${s.designRecordId}`} className="mt-3">
-              Open the design record
-            </LinkButton>
-          ) : null}
-        </div>
-      );
-    case 'returned':
-      return (
-        <div className={`${box} border-verdict-fail bg-verdict-fail/5`} data-testid="shortlist-status">
-          <p>
-            <ShortlistStatusTag status="returned" /> Returned by <strong>{s.checker?.name ?? 'a checker'}</strong> with this comment; the author changes it and submits it
-            again.
-          </p>
-          {s.returnedComment ? <blockquote className="mt-2 whitespace-pre-line border-l-2 border-verdict-fail/40 pl-3 italic">{s.returnedComment}</blockquote> : null}
-        </div>
-      );
-  }
-}
 
 function NoteEditor({ item, shortlistId, onDone }: { item: ShortlistItemDto; shortlistId: number; onDone: () => void }) {
   const step = useShortlistStep(shortlistId);
@@ -288,142 +240,6 @@ function Items({ shortlist, rights, onReload }: { shortlist: ShortlistDto; right
   );
 }
 
-function Decision({ shortlist, rights, onReload }: { shortlist: ShortlistDto; rights: ShortlistRights; onReload: () => void }) {
-  const step = useShortlistStep(shortlist.id);
-  const [dialog, setDialog] = useState<'submit' | 'check' | 'return' | null>(null);
-  const [comment, setComment] = useState('');
-  const [commentError, setCommentError] = useState<string>();
-  const open = (which: 'submit' | 'check' | 'return') => {
-    step.reset();
-    setComment('');
-    setCommentError(undefined);
-    setDialog(which);
-  };
-  const close = () => setDialog(null);
-
-  const confirm = () => {
-    if (dialog === 'submit') return step.mutate({ step: 'submit', lockVersion: shortlist.lockVersion }, { onSuccess: close });
-    if (dialog === 'check') return step.mutate({ step: 'check', lockVersion: shortlist.lockVersion, comment: comment.trim() || undefined }, { onSuccess: close });
-    if (dialog === 'return') {
-      const parsed = shortlistReturnSchema.shape.comment.safeParse(comment);
-      if (!parsed.success) return setCommentError(parsed.error.issues[0]?.message);
-      setCommentError(undefined);
-      step.mutate({ step: 'return', lockVersion: shortlist.lockVersion, comment: parsed.data }, { onSuccess: close });
-    }
-  };
-
-  const stepError = step.isError ? (
-    <>
-      {errorText(step.error)}
-      {isStale(step.error) ? (
-        <button
-          type="button"
-          className="ml-1 font-bold text-sounding underline"
-          onClick={() => {
-            close();
-            onReload();
-          }}
-        >
-          Reload the shortlist
-        </button>
-      ) : null}
-    </>
-  ) : undefined;
-
-  const { status } = shortlist;
-  const submittable = status === 'open' || status === 'returned';
-  let body: React.ReactNode = null;
-  if (rights.canEdit && submittable) {
-    body = (
-      <div className="flex flex-wrap items-center gap-3">
-        <Button onClick={() => open('submit')} disabled={!rights.canSubmit}>
-          Submit for checking…
-        </Button>
-        <p className="text-sm text-ink-soft">
-          {rights.canSubmit ? 'A second engineer, a checker in this project, then checks it or returns it with comments.' : 'Add at least one candidate before submitting.'}
-        </p>
-      </div>
-    );
-  } else if (status === 'submitted') {
-    body =
-      rights.decision === 'allowed' ? (
-        <div className="flex flex-wrap items-center gap-3">
-          <Button onClick={() => open('check')}>Check…</Button>
-          <Button tone="quiet" onClick={() => open('return')}>
-            Return with comments…
-          </Button>
-          <p className="text-sm text-ink-soft">Check each candidate's data and note against the load case before you decide.</p>
-        </div>
-      ) : (
-        <p className="rounded-plate bg-sounding-light px-3 py-2 text-sm text-sounding-dark" data-testid="second-engineer">
-          {rights.decision === 'own-work'
-            ? 'You wrote this shortlist, so a second engineer must check it: a checker who is a member of this project.'
-            : rights.decision === 'not-member'
-              ? 'Only a checker who is a member of this project can check it.'
-              : 'A checker who is a member of this project checks it.'}
-        </p>
-      );
-  }
-  if (!body) return null;
-
-  return (
-    <Panel title="Sign-off" className="no-print">
-      {body}
-      <ConfirmDialog
-        open={dialog === 'submit'}
-        title={`Submit “${shortlist.name}” for checking?`}
-        confirmLabel="Submit for checking"
-        busy={step.isPending}
-        busyLabel="Submitting…"
-        error={stepError}
-        onClose={close}
-        onConfirm={confirm}
-      >
-        <p>
-          Its {shortlist.items.length} candidate{shortlist.items.length === 1 ? '' : 's'} and notes are locked while it waits. The project's checkers are told by e-mail.
-        </p>
-      </ConfirmDialog>
-      <ConfirmDialog
-        open={dialog === 'check'}
-        title={`Check “${shortlist.name}”?`}
-        confirmLabel="Check and freeze the record"
-        busy={step.isPending}
-        busyLabel="Checking…"
-        error={stepError}
-        onClose={close}
-        onConfirm={confirm}
-      >
-        <p>
-          Checking freezes a design record: the load case, each candidate's results, the property set versions and both names, as they are now. It cannot be changed
-          afterwards.
-        </p>
-        <TextAreaField label="Comment (optional)" data-autofocus value={comment} maxLength={4000} onChange={(e) => setComment(e.target.value)} hint="Kept in the design record." />
-      </ConfirmDialog>
-      <ConfirmDialog
-        open={dialog === 'return'}
-        title={`Return “${shortlist.name}” to ${shortlist.author.name}?`}
-        confirmLabel="Return with comments"
-        busy={step.isPending}
-        busyLabel="Returning…"
-        error={stepError}
-        onClose={close}
-        onConfirm={confirm}
-      >
-        <TextAreaField
-          label="What must change"
-          data-autofocus
-          value={comment}
-          maxLength={4000}
-          rows={4}
-          error={commentError}
-          onChange={(e) => setComment(e.target.value)}
-          hint="The author reads this on the shortlist and by e-mail."
-        />
-      </ConfirmDialog>
-    </Panel>
-  );
-}
-
 export function ShortlistPage({ id, me }: { id: number; me: Viewer }) {
   const { format } = useUnits();
   const shortlist = useShortlist(id);
@@ -453,13 +269,19 @@ export function ShortlistPage({ id, me }: { id: number; me: Viewer }) {
         </p>
       </div>
       <StatusBanner shortlist={s} />
+      {s.frozenInputs ? (
+        <p className="rounded-plate border border-chart-line bg-white px-4 py-2 text-sm" role="note" data-testid="frozen-inputs">
+          The load case, candidates and results below are those submitted on {formatDateTime(s.submittedAt)}: the check reviews and freezes exactly these. Later
+          edits to the load case apply to a new submission.
+        </p>
+      ) : null}
       {newer.length ? (
         <p className="rounded-plate border-l-4 border-brass bg-brass-light/60 px-4 py-2 text-sm" role="note">
           <strong>Newer data exists</strong> for {newer.length === 1 ? 'one candidate' : `${newer.length} candidates`}: the catalogue has published a newer version since
           it was shortlisted. The results here use the shortlisted versions.
         </p>
       ) : null}
-      <Decision shortlist={s} rights={rights} onReload={reload} />
+      <SignOff shortlist={s} rights={rights} viewer={me} memberIds={project.data ? project.data.members.map((m) => m.id) : null} onReload={reload} />
 
       <div className="grid gap-4 lg:grid-cols-[1fr_22rem]">
         <Panel title="Candidates in order">
@@ -491,6 +313,12 @@ export function ShortlistPage({ id, me }: { id: number; me: Viewer }) {
           {s.loadCase.notes ? <p className="mt-2 whitespace-pre-line text-sm text-ink-soft">{s.loadCase.notes}</p> : null}
         </Panel>
       </div>
+
+      {s.rounds.length ? (
+        <Panel title="Rounds of checking">
+          <Rounds rounds={s.rounds} />
+        </Panel>
+      ) : null}
 
       {s.items.length ? (
         <Panel title="Side by side">

@@ -1,6 +1,6 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, upload } from '@/lib/api-client';
-import type { RatingTableData, RatingTableDraftInput, RatingTableDto, RatingTableListDto, RatingTableStepInput } from '@shared/schemas/rating-tables';
+import type { RatingTableCsvDto, RatingTableData, RatingTableDraftInput, RatingTableDto, RatingTableListDto, RatingTableStepInput } from '@shared/schemas/rating-tables';
 
 export interface RatingTableFilters {
   materialId?: number;
@@ -55,10 +55,10 @@ export function useRatingTableStep(id: number) {
 }
 
 /** Reads a CSV grid on the server (nothing is written) and hands it to the editor. */
-export function readRatingCsv(file: File, form: RatingTableData['form']): Promise<{ data: RatingTableData }> {
+export function readRatingCsv(file: File, form: RatingTableData['form']): Promise<RatingTableCsvDto> {
   const body = new FormData();
   body.append('file', file);
-  return upload<{ data: RatingTableData }>(`/rating-tables/csv?form=${form}`, body);
+  return upload<RatingTableCsvDto>(`/rating-tables/csv?form=${form}`, body);
 }
 
 export const ratingCsvTemplateUrl = (form: RatingTableData['form']) => `/api/rating-tables/csv-template?form=${form}`;

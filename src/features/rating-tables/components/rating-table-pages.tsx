@@ -8,13 +8,12 @@ import { SelectField } from '@/components/ui/field';
 import { LinkButton } from '@/components/ui/link-button';
 import { WorkflowSteps } from '@/components/workflow-steps';
 import { useQuery } from '@tanstack/react-query';
-import { materialsQueryOptions } from '@/features/library/api/library-sets';
-import { referencesQueryOptions } from '@/features/library/api/references';
-import { materialQueryOptions } from '@/features/catalogue/api/property-sets';
+import { materialsQueryOptions, referencesQueryOptions } from '@/features/library';
+import { materialQueryOptions } from '@/features/catalogue';
 import { useCreateRatingTable, useRatingTable, useRatingTables, useRatingTableStep, useUpdateRatingTable } from '../api/rating-tables';
 import { EMPTY_EDITOR, editorFrom } from '../editor-model';
-import { RatingGrid } from './rating-grid';
 import { RatingTableEditor } from './rating-table-editor';
+import { RatingTableSummary } from './rating-table-summary';
 
 const TONE = { draft: 'brass', 'in-review': 'sounding', published: 'pass', retired: 'neutral' } as const;
 
@@ -172,11 +171,11 @@ export function RatingTablePage({ me }: { me: SessionUserDto | null | undefined 
         <Panel title="Review">
           <WorkflowSteps
             steps={CURATED_STEPS}
-            subject={{ status: t.status, authorIds: [t.draftedBy?.id, t.lastEditedBy?.id] }}
+            subject={{ status: t.status, authorIds: [t.draftedBy?.id, t.lastEditedBy?.id], facts: { cited: t.reference !== null } }}
             viewer={{ id: me.id, role: me.role }}
             busy={step.isPending}
-            error={step.error ? (step.error as Error).message : null}
             onStep={onStep}
+            onReload={() => void query.refetch()}
           />
           <p className="mt-2 text-xs text-ink-soft">
             {t.draftedBy ? `Drafted by ${t.draftedBy.name}. ` : 'Seeded from public sources. '}
@@ -205,38 +204,5 @@ export function RatingTablePage({ me }: { me: SessionUserDto | null | undefined 
         <RatingTableSummary table={t} />
       )}
     </div>
-  );
-}
-
-/** A table as read: grid, grade, limits, covered sets, citation and note. */
-export function RatingTableSummary({ table: t }: { table: RatingTableDto }) {
-  return (
-    <Panel title={t.content.name}>
-      <div className="flex flex-col gap-3">
-        <RatingGrid content={t.content} />
-        <dl className="grid gap-1 text-sm md:grid-cols-[12rem_1fr]">
-          <dt className="text-ink-soft">Material grade</dt>
-          <dd>{t.content.grade}</dd>
-          <dt className="text-ink-soft">Covers</dt>
-          <dd>{t.covers.length ? t.covers.map((c) => c.condition).join('; ') : `every set of ${t.material.name}`}</dd>
-          {t.content.includedAngle ? (
-            <>
-              <dt className="text-ink-soft">Included angles</dt>
-              <dd>
-                {t.content.includedAngle.min}° to {t.content.includedAngle.max}°
-              </dd>
-            </>
-          ) : null}
-          <dt className="text-ink-soft">Data support</dt>
-          <dd>
-            {t.content.limits?.sustainedHours ? `up to ${t.content.limits.sustainedHours.toLocaleString('en-GB')} h of sustained load` : 'no stated limit on sustained load'}
-            {t.content.limits?.cycles ? `, up to ${t.content.limits.cycles.toLocaleString('en-GB')} cycles` : ''}
-          </dd>
-          <dt className="text-ink-soft">Source</dt>
-          <dd>{t.reference ? [t.reference.authors, t.reference.year, t.reference.title, t.reference.identifier, t.reference.location].filter(Boolean).join('; ') : 'none yet'}</dd>
-        </dl>
-        {t.content.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{t.content.note}</p> : null}
-      </div>
-    </Panel>
   );
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatQuantity, fromDisplay, toDisplay, type QuantityKind } from './units';
+import { formatQuantity, fromDisplay, toDisplay, unitByLabel, type QuantityKind } from './units';
 
 describe('units', () => {
   // Conversion factors: NIST SP 811 (2008), Appendix B: 1 psi = 6894.757 Pa, 1 in = 25.4 mm,
@@ -31,5 +31,20 @@ describe('units', () => {
     expect(formatQuantity('temperature', 'US', 10)).toBe('50 °F');
     expect(formatQuantity('stress', 'SI', null)).toBe('—');
     expect(formatQuantity('stress', 'SI', Number.NaN)).toBe('—');
+  });
+});
+
+describe('units by label', () => {
+  it('finds a unit of a kind by its label in either system and converts to SI', () => {
+    expect(unitByLabel('modulus', 'GPa')!.toSI(3.1)).toBe(3.1e9);
+    expect(unitByLabel('stress', 'MPa')!.toSI(85.5)).toBe(85.5e6);
+    expect(unitByLabel('fraction', '%')!.toSI(3)).toBeCloseTo(0.03, 15);
+    // 1 ksi = 6.894757 MPa (NIST SP 811 (2008), Appendix B).
+    expect(unitByLabel('stress', 'ksi')!.toSI(1)).toBeCloseTo(6894757, 0);
+  });
+
+  it('knows no unit by a label of another kind', () => {
+    expect(unitByLabel('stress', 'GPa')).toBeUndefined();
+    expect(unitByLabel('temperature', 'K')).toBeUndefined();
   });
 });
