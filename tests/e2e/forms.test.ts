@@ -3,15 +3,9 @@
 // the server's refusals on the form, and the one stale-write banner. Harrow Sound demo data only.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startBrowserSession, signInThroughForm, type BrowserSession } from '../helpers/browser';
+import { DEMO_CHAMBER_PORT } from '../../shared/demo-load-cases';
 
 const TITLE = 'Harrow Sound port blank creep tests, lot 14';
-const CHAMBER_PORT = {
-  pressure: { value: 0.5e6 },
-  temperature: { min: 15, max: 40 },
-  sustainedHours: 5000,
-  cycles: 10000,
-  component: { type: 'flat-disc', diameter: 0.25, thickness: 0.04, edge: 'simply-supported' },
-};
 // The shape of a mailed token (43 base64url characters), but never issued.
 const UNISSUED_TOKEN = 'Zq3Xw8Lm2Nb7Vc1Kd9Hs4Jf6Gt0Pr5Ye2Ua8Io3Wm7Q';
 
@@ -104,14 +98,14 @@ describe('forms in chromium', () => {
     await context.clearCookies();
     await signInThroughForm(page, baseUrl, 'engineer');
     const project = (await (await page.request.post(`${baseUrl}/api/projects`, { data: { name: 'TC-7 chamber ports', description: 'Harrow Sound treatment chamber' } })).json()) as { id: number };
-    const created = await page.request.post(`${baseUrl}/api/projects/${project.id}/load-cases`, { data: { name: 'Side port', loadCase: CHAMBER_PORT } });
+    const created = await page.request.post(`${baseUrl}/api/projects/${project.id}/load-cases`, { data: { name: 'Side port', loadCase: DEMO_CHAMBER_PORT } });
     expect(created.status()).toBe(201);
     const { id } = (await created.json()) as { id: number };
     await page.goto(`${baseUrl}/evaluate?loadCase=${id}`);
     await page.getByTestId('saved-load-case').getByText('Side port').waitFor();
 
     // Meanwhile the case is renamed elsewhere.
-    const renamed = await page.request.put(`${baseUrl}/api/load-cases/${id}`, { data: { name: 'Side port, upper', loadCase: CHAMBER_PORT, notes: '', lockVersion: 0 } });
+    const renamed = await page.request.put(`${baseUrl}/api/load-cases/${id}`, { data: { name: 'Side port, upper', loadCase: DEMO_CHAMBER_PORT, notes: '', lockVersion: 0 } });
     expect(renamed.status()).toBe(200);
 
     await page.getByRole('button', { name: 'Save to a project…' }).click();
