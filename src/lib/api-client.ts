@@ -25,6 +25,9 @@ export class ApiError extends Error {
   }
 }
 
+/** The server's 409 `stale`: someone saved the record after this form read it (optimistic locking). */
+export const isStale = (err: unknown): err is ApiError => err instanceof ApiError && err.status === 409 && err.code === 'stale';
+
 type Query = Record<string, string | number | boolean | undefined | null>;
 
 export function toQueryString(query?: Query): string {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { ApiError } from './api-client';
-import { fieldSentence, mapServerErrors } from './field-errors';
+import { fieldSentence, mapServerErrors, setServerErrors } from './field-errors';
 
 describe('fieldSentence', () => {
   it('puts the field label before a fragment so it reads as a sentence', () => {
@@ -36,5 +36,25 @@ describe('mapServerErrors', () => {
 
   it('explains a network failure', () => {
     expect(mapServerErrors(new TypeError('failed'), { email: 'E-mail' }).root).toMatch(/did not answer/);
+  });
+});
+
+describe('setServerErrors', () => {
+  it('puts each placed message on its form field through setError and the rest on the form root', () => {
+    const calls: [string, string | undefined][] = [];
+    const setError = (name: string, error: { message?: string }) => void calls.push([name, error.message]);
+    // A PUT names the draft's fields under "draft."; the form's own paths have no prefix.
+    const err = new ApiError(400, 'invalid_input', 'The draft has invalid fields.', { 'draft.condition': 'is too long', 'draft.colour': 'is not a recognised field' });
+    setServerErrors(setError, err, (field) => (field === 'condition' ? 'Condition' : undefined), (path) => path.replace(/^draft\./, ''));
+    expect(calls).toEqual([
+      ['condition', 'Condition is too long.'],
+      ['root', 'The draft has invalid fields. draft.colour is not a recognised field.'],
+    ]);
+  });
+
+  it('sets only the root for an error that names no field', () => {
+    const calls: string[] = [];
+    setServerErrors((name: string) => void calls.push(name), new ApiError(409, 'frozen', 'The load case is used by a checked shortlist.'), { name: 'Name' });
+    expect(calls).toEqual(['root']);
   });
 });

@@ -1,3 +1,4 @@
+import type { FieldValues, Path, UseFormSetError } from 'react-hook-form';
 import { ApiError } from './api-client';
 
 /**
@@ -20,23 +21,42 @@ export interface MappedErrors<K extends string> {
   root: string | null;
 }
 
+/** Each form field's label by field path, or a function giving it (undefined: the form has no such field). */
+export type FieldLabels<K extends string> = Record<K, string> | ((field: string) => string | undefined);
+
 /**
  * Maps an error from the api client onto a form: `known` gives each form field's label, keyed by
- * the server's field path. Anything the form cannot place goes to `root`, so nothing is lost.
+ * the server's field path, or by the form's path that `fieldOf` makes of it. Anything the form
+ * cannot place goes to `root`, so nothing is lost.
  */
-export function mapServerErrors<K extends string>(error: unknown, known: Record<K, string>): MappedErrors<K> {
+export function mapServerErrors<K extends string>(error: unknown, known: FieldLabels<K>, fieldOf: (path: string) => string = (p) => p): MappedErrors<K> {
   if (!(error instanceof ApiError)) return { fields: {}, root: 'The server did not answer. Check your connection and try again.' };
+  const labelOf = (key: string) => (typeof known === 'function' ? known(key) : Object.prototype.hasOwnProperty.call(known, key) ? known[key as K] : undefined);
   const fields: Partial<Record<K, string>> = {};
   const rest: string[] = [];
   for (const [path, message] of Object.entries(error.fields)) {
-    if (Object.prototype.hasOwnProperty.call(known, path)) {
-      const key = path as K;
-      fields[key] ??= fieldSentence(known[key], message);
-    } else {
-      rest.push(fieldSentence(path, message));
-    }
+    const key = fieldOf(path) as K;
+    const label = labelOf(key);
+    if (label !== undefined) fields[key] ??= fieldSentence(label, message);
+    else rest.push(fieldSentence(path, message));
   }
   const placed = Object.keys(fields).length > 0;
   const root = [placed && !rest.length ? null : error.message, ...rest].filter(Boolean).join(' ');
   return { fields, root: root || null };
+}
+
+/**
+ * How every form shows a refused save: the server's field errors on the react-hook-form fields
+ * they name (mapServerErrors), the rest as the form's root error (`formState.errors.root`), which
+ * the next submit clears.
+ */
+export function setServerErrors<T extends FieldValues>(
+  setError: UseFormSetError<T>,
+  error: unknown,
+  known: FieldLabels<string>,
+  fieldOf?: (path: string) => string,
+): void {
+  const { fields, root } = mapServerErrors(error, known, fieldOf);
+  for (const [field, message] of Object.entries(fields)) setError(field as Path<T>, { type: 'server', message: message as string });
+  if (root) setError('root', { type: 'server', message: root });
 }

@@ -1,46 +1,39 @@
-import { invitationAcceptSchema, passwordChangeSchema, passwordResetRequestSchema, passwordSchema } from '@shared/schemas/projects';
+import { z } from 'zod';
+import { invitationAcceptSchema, passwordChangeSchema, passwordResetSchema } from '@shared/schemas/projects';
 
-export type Errors<K extends string> = Partial<Record<K, string>>;
-
-const firstByField = <K extends string>(issues: { path: PropertyKey[]; message: string }[], fields: readonly K[]): Errors<K> => {
-  const out: Errors<K> = {};
-  for (const issue of issues) {
-    const key = String(issue.path[0]) as K;
-    if (fields.includes(key)) out[key] ??= issue.message;
-  }
-  return out;
-};
+/**
+ * The account forms' zod schemas, for zodResolver: the shared request schemas (the link token
+ * comes from the address, not the form) plus the new password typed a second time.
+ */
 
 const REPEAT = 'The two new passwords differ; type the same one twice.';
 
-/** The change-password form, checked with the shared schema, plus the repeated new password. */
-export function checkPasswordChange(v: { currentPassword: string; newPassword: string; repeat: string }): Errors<'currentPassword' | 'newPassword' | 'repeat'> {
-  const parsed = passwordChangeSchema.safeParse({ currentPassword: v.currentPassword, newPassword: v.newPassword });
-  const errors: Errors<'currentPassword' | 'newPassword' | 'repeat'> = parsed.success ? {} : firstByField(parsed.error.issues, ['currentPassword', 'newPassword'] as const);
-  if (!errors.newPassword && v.repeat !== v.newPassword) errors.repeat = REPEAT;
-  if (!errors.newPassword && v.newPassword && v.newPassword === v.currentPassword) errors.newPassword = 'Choose a password different from the current one.';
-  return errors;
-}
+/** A check on one field that runs only once that field itself is valid. */
+const onceValid = (field: string) => (payload: z.core.ParsePayload) => !payload.issues.some((issue) => issue.path?.[0] === field);
 
-/** A new password typed twice (reset or invitation). */
-export function checkNewPassword(password: string, repeat: string): Errors<'password' | 'repeat'> {
-  const parsed = passwordSchema.safeParse(password);
-  if (!parsed.success) return { password: parsed.error.issues[0]?.message };
-  return repeat === password ? {} : { repeat: REPEAT };
-}
+export const passwordChangeFormSchema = passwordChangeSchema
+  .extend({ repeat: z.string() })
+  .refine((v) => v.repeat === v.newPassword, { path: ['repeat'], message: REPEAT, when: onceValid('newPassword') })
+  .refine((v) => v.newPassword !== v.currentPassword, {
+    path: ['newPassword'],
+    message: 'Choose a password different from the current one.',
+    when: onceValid('newPassword'),
+  });
+export type PasswordChangeForm = z.input<typeof passwordChangeFormSchema>;
 
-/** The welcome form: name and a new password typed twice. */
-export function checkWelcome(v: { token: string; name: string; password: string; repeat: string }): Errors<'name' | 'password' | 'repeat'> {
-  const parsed = invitationAcceptSchema.safeParse({ token: v.token, name: v.name, password: v.password });
-  const errors: Errors<'name' | 'password' | 'repeat'> = parsed.success ? {} : firstByField(parsed.error.issues, ['name', 'password'] as const);
-  if (!errors.password && v.repeat !== v.password) errors.repeat = REPEAT;
-  return errors;
-}
+/** Reset: a new password typed twice. */
+export const newPasswordFormSchema = passwordResetSchema
+  .omit({ token: true })
+  .extend({ repeat: z.string() })
+  .refine((v) => v.repeat === v.password, { path: ['repeat'], message: REPEAT, when: onceValid('password') });
+export type NewPasswordForm = z.input<typeof newPasswordFormSchema>;
 
-export function checkResetRequest(email: string): Errors<'email'> {
-  const parsed = passwordResetRequestSchema.safeParse({ email });
-  return parsed.success ? {} : firstByField(parsed.error.issues, ['email'] as const);
-}
+/** Invitation: a name and a new password typed twice. */
+export const welcomeFormSchema = invitationAcceptSchema
+  .omit({ token: true })
+  .extend({ repeat: z.string() })
+  .refine((v) => v.repeat === v.password, { path: ['repeat'], message: REPEAT, when: onceValid('password') });
+export type WelcomeForm = z.input<typeof welcomeFormSchema>;
 
 /** A link token as the server issues them (base64url, 43 characters for 32 bytes); anything else is not worth sending. */
 export const plausibleToken = (token: string | null): token is string => !!token && /^[A-Za-z0-9_-]{20,200}$/.test(token);

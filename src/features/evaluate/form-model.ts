@@ -7,6 +7,7 @@ import {
   type LoadCaseInput,
 } from '@shared/schemas/evaluate';
 import type { Family } from '@shared/schemas/catalogue';
+import { checkedFormSchema } from '@/lib/form-schema';
 import { fromDisplay, toDisplay, type QuantityKind, type UnitSystem } from '@/lib/units';
 
 /**
@@ -285,6 +286,13 @@ export function checkForm(shown: LoadCaseForm, system: UnitSystem): FormCheck {
   }
   return { ok: false, errors };
 }
+
+/** The form's zod schema for zodResolver: the typed form in, the checked request in SI out. */
+export const loadCaseFormSchema = (system: () => UnitSystem) =>
+  checkedFormSchema((shown: LoadCaseForm) => {
+    const check = checkForm(shown, system());
+    return check.ok ? { ok: true, value: check.request } : check;
+  });
 
 // ---- Saved load cases ------------------------------------------------------------------------
 

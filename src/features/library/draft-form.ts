@@ -9,6 +9,7 @@ import {
   type ValueBasis,
   type ValueDetail,
 } from '@shared/schemas/catalogue';
+import { checkedFormSchema } from '@/lib/form-schema';
 import { fromDisplay, toDisplay, type QuantityKind, type UnitSystem } from '@/lib/units';
 
 /**
@@ -332,6 +333,16 @@ export function checkDraftForm(form: DraftForm, system: UnitSystem, baseline?: P
   }
   return { ok: false, errors: all };
 }
+
+/**
+ * The editor's zod schema for zodResolver: the typed form in, the draft in SI out, checked by the
+ * shared draft schema with its issues on the form's fields. `system` gives the units of the moment.
+ */
+export const draftFormSchema = (system: () => UnitSystem, baseline?: PropertySetDto) =>
+  checkedFormSchema((form: DraftForm) => {
+    const check = checkDraftForm(form, system(), baseline);
+    return check.ok ? { ok: true, value: check.input } : check;
+  });
 
 /** The server's 400 field errors, keyed by form path (several on one field: the first wins). */
 export function serverErrorsToForm(fields: Record<string, string>): DraftErrors {

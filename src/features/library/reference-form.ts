@@ -1,4 +1,5 @@
 import { referenceInputSchema, type ReferenceDto, type ReferenceInput, type ReferenceKind } from '@shared/schemas/catalogue';
+import { checkedFormSchema } from '@/lib/form-schema';
 import { issueMessage, parseNumber } from './draft-form';
 
 /** The reference form as typed (the year is text until checked). */
@@ -53,3 +54,20 @@ export function checkReferenceForm(form: ReferenceForm): ReferenceCheck {
   }
   return { ok: false, errors };
 }
+
+/** The reference form's zod schema for zodResolver: the typed form in, the reference input out. */
+export const referenceFormSchema = checkedFormSchema((form: ReferenceForm) => {
+  const check = checkReferenceForm(form);
+  return check.ok ? { ok: true, value: check.input } : check;
+});
+
+/** Each field's label (also the path under "reference." in a draft's new reference). */
+export const REFERENCE_FIELD_LABELS: Record<keyof ReferenceForm, string> = {
+  kind: 'Kind',
+  title: 'Title',
+  authors: 'Authors or issuer',
+  year: 'Year',
+  identifier: 'Identifier',
+  location: 'Table or page',
+  note: 'Note',
+};

@@ -4,6 +4,7 @@
  * and grid cells they name.
  */
 import { ratingTableDraftSchema, type RatingTableDraftInput, type RatingTableDto } from '@shared/schemas/rating-tables';
+import { checkedFormSchema } from '@/lib/form-schema';
 
 export const ENTRY_UNITS = { bar: 1e5, MPa: 1e6, psi: 6894.757293168 } as const;
 export type EntryUnit = keyof typeof ENTRY_UNITS;
@@ -139,6 +140,30 @@ export function checkDraft(s: EditorState, materialId: number): { ok: true; draf
   for (const issue of parsed.error.issues) errors[issue.path.map(String).join('.')] ??= issue.message;
   return { ok: false, errors };
 }
+
+/** The editor's zod schema for zodResolver: the typed editor in, the draft in SI out; errors at the draft's paths. */
+export const ratingDraftFormSchema = (materialId: number) =>
+  checkedFormSchema((s: EditorState) => {
+    const check = checkDraft(s, materialId);
+    return check.ok ? { ok: true, value: check.draft } : check;
+  });
+
+/** Labels of the server's field paths the editor shows at a field; grid paths are listed under the grid. */
+const FIELD_LABELS: Record<string, string> = {
+  'content.name': 'Name',
+  'content.geometry': 'Geometry',
+  'content.includedAngle': 'Included angles',
+  'content.includedAngle.min': 'Smallest included angle',
+  'content.includedAngle.max': 'Largest included angle',
+  'content.grade': 'Material grade',
+  'content.limits.sustainedHours': 'Sustained load limit',
+  'content.limits.cycles': 'Cycle limit',
+  referenceId: 'Reference',
+  coversLineageIds: 'Property sets it covers',
+};
+export const editorFieldLabel = (path: string): string | undefined => FIELD_LABELS[path] ?? (path.startsWith('content.data.') ? path.slice('content.data.'.length) : undefined);
+/** A PUT nests the draft under "draft."; the editor's paths are the draft's own. */
+export const editorPathFor = (serverPath: string) => serverPath.replace(/^draft\./, '');
 
 /** Adds or removes a row or column of the minimum-ratio grid, keeping the cells aligned. */
 export function resizeGrid(s: EditorState, change: 'add-row' | 'remove-row' | 'add-column' | 'remove-column'): EditorState {

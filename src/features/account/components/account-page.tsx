@@ -1,68 +1,48 @@
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { ROLE_LABELS, type SessionUserDto } from '@shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
+import { FormError } from '@/components/ui/form-error';
 import { Panel } from '@/components/ui/states';
-import { mapServerErrors } from '@/lib/field-errors';
+import { setServerErrors } from '@/lib/field-errors';
 import { useChangePassword } from '../api/account';
-import { checkPasswordChange, type Errors } from '../password-form';
+import { passwordChangeFormSchema, type PasswordChangeForm } from '../password-form';
 import { NewPasswordFields } from './password-fields';
-import { FormError } from './public-card';
 
-type Field = 'currentPassword' | 'newPassword' | 'repeat';
+const EMPTY: PasswordChangeForm = { currentPassword: '', newPassword: '', repeat: '' };
+const LABELS = { currentPassword: 'Current password', newPassword: 'New password' };
 
 function ChangePassword() {
   const change = useChangePassword();
-  const [values, setValues] = useState({ currentPassword: '', newPassword: '', repeat: '' });
-  const [errors, setErrors] = useState<Errors<Field> & { root?: string | null }>({});
+  const form = useForm({ resolver: zodResolver(passwordChangeFormSchema), defaultValues: EMPTY });
+  const { errors } = form.formState;
   const [done, setDone] = useState<string | null>(null);
 
-  const submit = () => {
-    setDone(null);
-    const found = checkPasswordChange(values);
-    if (Object.keys(found).length) return setErrors(found);
-    setErrors({});
-    change.mutate(
-      { currentPassword: values.currentPassword, newPassword: values.newPassword },
-      {
-        onSuccess: (r) => {
-          setDone(r.message);
-          setValues({ currentPassword: '', newPassword: '', repeat: '' });
-        },
-        onError: (err) => {
-          const mapped = mapServerErrors(err, { currentPassword: 'Current password', newPassword: 'New password' });
-          setErrors({ ...mapped.fields, root: mapped.root });
-        },
-      },
-    );
-  };
+  const submit = form.handleSubmit(async ({ currentPassword, newPassword }) => {
+    try {
+      const r = await change.mutateAsync({ currentPassword, newPassword });
+      setDone(r.message);
+      form.reset(EMPTY);
+    } catch (err) {
+      setServerErrors(form.setError, err, LABELS);
+    }
+  });
 
   return (
-    <form
-      aria-label="Change your password"
-      noValidate
-      className="flex max-w-sm flex-col gap-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        submit();
+    <form aria-label="Change your password" noValidate className="flex max-w-sm flex-col gap-3" onSubmit={(e) => {
+        setDone(null);
+        void submit(e);
       }}
     >
-      <TextField
-        label="Current password"
-        type="password"
-        autoComplete="current-password"
-        value={values.currentPassword}
-        error={errors.currentPassword}
-        onChange={(e) => setValues({ ...values, currentPassword: e.target.value })}
-      />
+      <TextField label="Current password" type="password" autoComplete="current-password" error={errors.currentPassword?.message} {...form.register('currentPassword')} />
       <NewPasswordFields
-        password={values.newPassword}
-        repeat={values.repeat}
-        errors={{ password: errors.newPassword, repeat: errors.repeat }}
-        onPassword={(v) => setValues({ ...values, newPassword: v })}
-        onRepeat={(v) => setValues({ ...values, repeat: v })}
+        password={form.register('newPassword')}
+        repeat={form.register('repeat')}
+        errors={{ password: errors.newPassword?.message, repeat: errors.repeat?.message }}
       />
-      <FormError message={errors.root} />
+      <FormError message={errors.root?.message} />
       {done ? (
         <p role="status" className="text-sm font-bold text-verdict-pass">
           {done}

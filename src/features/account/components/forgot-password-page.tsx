@@ -1,33 +1,31 @@
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { passwordResetRequestSchema } from '@shared/schemas/projects';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
-import { mapServerErrors } from '@/lib/field-errors';
+import { FormError } from '@/components/ui/form-error';
+import { setServerErrors } from '@/lib/field-errors';
 import { useRequestPasswordReset } from '../api/account';
-import { checkResetRequest } from '../password-form';
-import { FormError, PublicCard } from './public-card';
+import { PublicCard } from './public-card';
 
 /** Asks for a reset link. The answer is the same whether or not the address has an account. */
 export function ForgotPasswordPage() {
   const request = useRequestPasswordReset();
-  const [email, setEmail] = useState('');
-  const [errors, setErrors] = useState<{ email?: string; root?: string | null }>({});
+  const form = useForm({ resolver: zodResolver(passwordResetRequestSchema), defaultValues: { email: '' } });
+  const { errors } = form.formState;
   const [sentTo, setSentTo] = useState<string | null>(null);
 
-  const submit = () => {
-    const found = checkResetRequest(email);
-    if (found.email) return setErrors(found);
-    setErrors({});
-    request.mutate(
-      { email: email.trim() },
-      {
-        onSuccess: () => setSentTo(email.trim()),
-        onError: (err) => {
-          const mapped = mapServerErrors(err, { email: 'E-mail' });
-          setErrors({ ...mapped.fields, root: mapped.root });
-        },
-      },
-    );
-  };
+  const submit = form.handleSubmit(async () => {
+    // The address as typed (the schema's output is lower-cased), for the message and the request.
+    const email = form.getValues('email').trim();
+    try {
+      await request.mutateAsync({ email });
+      setSentTo(email);
+    } catch (err) {
+      setServerErrors(form.setError, err, { email: 'E-mail' });
+    }
+  });
 
   if (sentTo) {
     return (
@@ -43,17 +41,9 @@ export function ForgotPasswordPage() {
   return (
     <PublicCard title="Forgot your password?">
       <p className="mb-3 text-sm text-ink-soft">Enter the e-mail address you sign in with; we send a link to choose a new password.</p>
-      <form
-        aria-label="Ask for a reset link"
-        noValidate
-        className="flex flex-col gap-3"
-        onSubmit={(e) => {
-          e.preventDefault();
-          submit();
-        }}
-      >
-        <TextField label="E-mail" type="email" autoComplete="username" autoFocus value={email} error={errors.email} onChange={(e) => setEmail(e.target.value)} />
-        <FormError message={errors.root} />
+      <form aria-label="Ask for a reset link" noValidate className="flex flex-col gap-3" onSubmit={submit}>
+        <TextField label="E-mail" type="email" autoComplete="username" autoFocus error={errors.email?.message} {...form.register('email')} />
+        <FormError message={errors.root?.message} />
         <Button type="submit" disabled={request.isPending}>
           {request.isPending ? 'Sending…' : 'Send the link'}
         </Button>

@@ -24,11 +24,3 @@ export function PublicCard({ title, children }: { title: string; children: React
     </main>
   );
 }
-
-export function FormError({ message }: { message?: string | null }) {
-  return message ? (
-    <p role="alert" className="text-sm font-bold text-verdict-fail">
-      {message}
-    </p>
-  ) : null;
-}

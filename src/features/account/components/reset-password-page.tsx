@@ -1,21 +1,23 @@
-import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useSearchParams } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
+import { FormError } from '@/components/ui/form-error';
 import { LinkButton } from '@/components/ui/link-button';
 import { ApiError } from '@/lib/api-client';
-import { mapServerErrors } from '@/lib/field-errors';
+import { setServerErrors } from '@/lib/field-errors';
 import { useResetPassword } from '../api/account';
-import { checkNewPassword, plausibleToken, type Errors } from '../password-form';
+import { newPasswordFormSchema, plausibleToken } from '../password-form';
 import { NewPasswordFields } from './password-fields';
-import { FormError, PublicCard } from './public-card';
+import { PublicCard } from './public-card';
 
 /** /reset-password?token=…: choose a new password, then sign in with it. */
 export function ResetPasswordPage() {
   const [params] = useSearchParams();
   const token = params.get('token');
   const reset = useResetPassword();
-  const [values, setValues] = useState({ password: '', repeat: '' });
-  const [errors, setErrors] = useState<Errors<'password' | 'repeat'> & { root?: string | null }>({});
+  const form = useForm({ resolver: zodResolver(newPasswordFormSchema), defaultValues: { password: '', repeat: '' } });
+  const { errors } = form.formState;
 
   if (!plausibleToken(token)) {
     return (
@@ -42,41 +44,20 @@ export function ResetPasswordPage() {
     );
   }
 
-  const submit = () => {
-    const found = checkNewPassword(values.password, values.repeat);
-    if (Object.keys(found).length) return setErrors(found);
-    setErrors({});
-    reset.mutate(
-      { token, password: values.password },
-      {
-        onError: (err) => {
-          if (err instanceof ApiError && err.code === 'invalid_token') return setErrors({ root: err.message });
-          const mapped = mapServerErrors(err, { password: 'Password' });
-          setErrors({ ...mapped.fields, root: mapped.root });
-        },
-      },
-    );
-  };
+  const submit = form.handleSubmit(async ({ password }) => {
+    try {
+      await reset.mutateAsync({ token, password });
+    } catch (err) {
+      if (err instanceof ApiError && err.code === 'invalid_token') form.setError('root', { type: 'server', message: err.message });
+      else setServerErrors(form.setError, err, { password: 'Password' });
+    }
+  });
 
   return (
     <PublicCard title="Choose a new password">
-      <form
-        aria-label="Choose a new password"
-        noValidate
-        className="flex flex-col gap-3"
-        onSubmit={(e) => {
-          e.preventDefault();
-          submit();
-        }}
-      >
-        <NewPasswordFields
-          password={values.password}
-          repeat={values.repeat}
-          errors={errors}
-          onPassword={(v) => setValues({ ...values, password: v })}
-          onRepeat={(v) => setValues({ ...values, repeat: v })}
-        />
-        <FormError message={errors.root} />
+      <form aria-label="Choose a new password" noValidate className="flex flex-col gap-3" onSubmit={submit}>
+        <NewPasswordFields password={form.register('password')} repeat={form.register('repeat')} errors={{ password: errors.password?.message, repeat: errors.repeat?.message }} />
+        <FormError message={errors.root?.message} />
         {errors.root && reset.error instanceof ApiError && reset.error.code === 'invalid_token' ? (
           <Link to="/forgot-password" className="text-sm font-bold text-sounding underline">
             Ask for a new link

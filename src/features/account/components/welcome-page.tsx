@@ -1,22 +1,24 @@
-import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useSearchParams } from 'react-router-dom';
 import type { SessionUserDto } from '@shared/schemas/auth';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
+import { FormError } from '@/components/ui/form-error';
 import { ApiError } from '@/lib/api-client';
-import { mapServerErrors } from '@/lib/field-errors';
+import { setServerErrors } from '@/lib/field-errors';
 import { useAcceptInvitation } from '../api/account';
-import { checkWelcome, plausibleToken, type Errors } from '../password-form';
+import { plausibleToken, welcomeFormSchema } from '../password-form';
 import { NewPasswordFields } from './password-fields';
-import { FormError, PublicCard } from './public-card';
+import { PublicCard } from './public-card';
 
 /** /welcome?token=…: accept an invitation with a name and a password; signs in. */
 export function WelcomePage({ onSignedIn }: { onSignedIn: (user: SessionUserDto) => void }) {
   const [params] = useSearchParams();
   const token = params.get('token');
   const accept = useAcceptInvitation();
-  const [values, setValues] = useState({ name: '', password: '', repeat: '' });
-  const [errors, setErrors] = useState<Errors<'name' | 'password' | 'repeat'> & { root?: string | null }>({});
+  const form = useForm({ resolver: zodResolver(welcomeFormSchema), defaultValues: { name: '', password: '', repeat: '' } });
+  const { errors } = form.formState;
 
   if (!plausibleToken(token)) {
     return (
@@ -28,45 +30,28 @@ export function WelcomePage({ onSignedIn }: { onSignedIn: (user: SessionUserDto)
     );
   }
 
-  const submit = () => {
-    const found = checkWelcome({ token, ...values });
-    if (Object.keys(found).length) return setErrors(found);
-    setErrors({});
-    accept.mutate(
-      { token, name: values.name.trim(), password: values.password },
-      {
-        onSuccess: ({ user }) => onSignedIn(user),
-        onError: (err) => {
-          if (err instanceof ApiError && err.code === 'invalid_token') return setErrors({ root: err.message });
-          const mapped = mapServerErrors(err, { name: 'Name', password: 'Password' });
-          setErrors({ ...mapped.fields, root: mapped.root });
-        },
-      },
-    );
-  };
+  const submit = form.handleSubmit(async ({ name, password }) => {
+    try {
+      const { user } = await accept.mutateAsync({ token, name, password });
+      onSignedIn(user);
+    } catch (err) {
+      if (err instanceof ApiError && err.code === 'invalid_token') form.setError('root', { type: 'server', message: err.message });
+      else setServerErrors(form.setError, err, { name: 'Name', password: 'Password' });
+    }
+  });
 
   return (
     <PublicCard title="Welcome: set up your account">
       <p className="mb-3 text-sm text-ink-soft">You were invited to Isobath. Tell your colleagues who you are and choose a password.</p>
-      <form
-        aria-label="Accept the invitation"
-        noValidate
-        className="flex flex-col gap-3"
-        onSubmit={(e) => {
-          e.preventDefault();
-          submit();
-        }}
-      >
-        <TextField label="Your name" autoComplete="name" autoFocus value={values.name} error={errors.name} onChange={(e) => setValues({ ...values, name: e.target.value })} />
+      <form aria-label="Accept the invitation" noValidate className="flex flex-col gap-3" onSubmit={submit}>
+        <TextField label="Your name" autoComplete="name" autoFocus error={errors.name?.message} {...form.register('name')} />
         <NewPasswordFields
           label="Password"
-          password={values.password}
-          repeat={values.repeat}
-          errors={{ password: errors.password, repeat: errors.repeat }}
-          onPassword={(v) => setValues({ ...values, password: v })}
-          onRepeat={(v) => setValues({ ...values, repeat: v })}
+          password={form.register('password')}
+          repeat={form.register('repeat')}
+          errors={{ password: errors.password?.message, repeat: errors.repeat?.message }}
         />
-        <FormError message={errors.root} />
+        <FormError message={errors.root?.message} />
         {errors.root && accept.error instanceof ApiError && accept.error.code === 'invalid_token' ? (
           <p className="text-xs text-ink-soft">
             Already set up? <Link to="/sign-in" className="font-bold text-sounding underline">Sign in</Link>.

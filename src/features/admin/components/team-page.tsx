@@ -1,13 +1,16 @@
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { ROLES, ROLE_LABELS, type Role } from '@shared/schemas/auth';
 import { invitationCreateSchema } from '@shared/schemas/projects';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { SelectField, TextField } from '@/components/ui/field';
+import { FormError } from '@/components/ui/form-error';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/dates';
-import { mapServerErrors } from '@/lib/field-errors';
+import { setServerErrors } from '@/lib/field-errors';
 import type { AdminUserDto, InvitationState } from '@shared/schemas/projects';
 import { useInvitations, useInvite, useUpdateUser, useUsers } from '../api/users';
 import { AdminNav } from './admin-nav';
@@ -61,35 +64,25 @@ function UserRow({ user, self, onToggle }: { user: AdminUserDto; self: boolean; 
   );
 }
 
+const INVITE_LABELS = { email: 'E-mail', role: 'Role' };
+
 function InviteForm() {
   const invite = useInvite();
-  const [email, setEmail] = useState('');
-  const [role, setRole] = useState<Role>('engineer');
-  const [errors, setErrors] = useState<{ email?: string; role?: string; root?: string | null }>({});
+  const form = useForm({ resolver: zodResolver(invitationCreateSchema), defaultValues: { email: '', role: 'engineer' as Role } });
+  const { errors } = form.formState;
   const [sent, setSent] = useState<string | null>(null);
 
-  const submit = () => {
-    setSent(null);
-    const parsed = invitationCreateSchema.safeParse({ email, role });
-    if (!parsed.success) {
-      const next: typeof errors = {};
-      for (const i of parsed.error.issues) next[i.path[0] as 'email' | 'role'] ??= i.message;
-      return setErrors(next);
+  const submit = form.handleSubmit(async (input) => {
+    try {
+      const inv = await invite.mutateAsync(input);
+      setSent(`Invitation sent to ${inv.email}; the link works once, until ${formatDateTime(inv.expiresAt)}.`);
+      form.resetField('email');
+    } catch (err) {
+      // An address that has an account belongs to that field.
+      if (err instanceof ApiError && err.code === 'has_account') form.setError('email', { type: 'server', message: err.message });
+      else setServerErrors(form.setError, err, INVITE_LABELS);
     }
-    setErrors({});
-    invite.mutate(parsed.data, {
-      onSuccess: (inv) => {
-        setSent(`Invitation sent to ${inv.email}; the link works once, until ${formatDateTime(inv.expiresAt)}.`);
-        setEmail('');
-      },
-      onError: (err) => {
-        // An address that has an account belongs to that field.
-        if (err instanceof ApiError && err.code === 'has_account') return setErrors({ email: err.message });
-        const mapped = mapServerErrors(err, { email: 'E-mail', role: 'Role' });
-        setErrors({ ...mapped.fields, root: mapped.root });
-      },
-    });
-  };
+  });
 
   return (
     <form
@@ -97,13 +90,13 @@ function InviteForm() {
       noValidate
       className="flex flex-col gap-3"
       onSubmit={(e) => {
-        e.preventDefault();
-        submit();
+        setSent(null);
+        void submit(e);
       }}
     >
       <div className="grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-start">
-        <TextField label="E-mail" type="email" autoComplete="off" value={email} error={errors.email} onChange={(e) => setEmail(e.target.value)} placeholder="name@harrow.example" />
-        <SelectField label="Role" value={role} error={errors.role} onChange={(e) => setRole(e.target.value as Role)}>
+        <TextField label="E-mail" type="email" autoComplete="off" error={errors.email?.message} placeholder="name@harrow.example" {...form.register('email')} />
+        <SelectField label="Role" error={errors.role?.message} {...form.register('role')}>
           {ROLES.map((r) => (
             <option key={r} value={r}>
               {ROLE_LABELS[r]}
@@ -114,11 +107,7 @@ function InviteForm() {
           {invite.isPending ? 'Sending…' : 'Send invitation'}
         </Button>
       </div>
-      {errors.root ? (
-        <p role="alert" className="text-sm font-bold text-verdict-fail">
-          {errors.root}
-        </p>
-      ) : null}
+      <FormError message={errors.root?.message} />
       {sent ? (
         <p role="status" className="text-sm text-verdict-pass">
           {sent}

@@ -5,7 +5,8 @@ import { loginSchema, type LoginInput } from '@shared/schemas/auth';
 import { useSignIn } from '../api/session';
 import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
-import { ApiError } from '@/lib/api-client';
+import { FormError } from '@/components/ui/form-error';
+import { setServerErrors } from '@/lib/field-errors';
 import { Logo } from '@/components/logo';
 
 export function SignInPage() {
@@ -21,14 +22,7 @@ export function SignInPage() {
       await signIn.mutateAsync(values);
       navigate(safeNext, { replace: true });
     } catch (err) {
-      if (err instanceof ApiError) {
-        for (const [field, message] of Object.entries(err.fields)) {
-          if (field === 'email' || field === 'password') form.setError(field, { message });
-        }
-        form.setError('root', { message: err.message });
-      } else {
-        form.setError('root', { message: 'Sign-in failed. Try again.' });
-      }
+      setServerErrors(form.setError, err, { email: 'E-mail', password: 'Password' });
     }
   });
 
@@ -46,11 +40,7 @@ export function SignInPage() {
         <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Sign in">
           <TextField label="E-mail" type="email" autoComplete="username" autoFocus error={errors.email?.message} {...form.register('email')} />
           <TextField label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...form.register('password')} />
-          {errors.root ? (
-            <p role="alert" className="text-sm font-bold text-verdict-fail">
-              {errors.root.message}
-            </p>
-          ) : null}
+          <FormError message={errors.root?.message} />
           <Button type="submit" disabled={isSubmitting}>
             {isSubmitting ? 'Signing in…' : 'Sign in'}
           </Button>

@@ -82,6 +82,9 @@ export function EvaluatePage({ canSave = false, meId = 0 }: { canSave?: boolean;
   const raw = params.get('loadCase');
   const loadCaseId = raw && /^[1-9]\d{0,9}$/.test(raw) ? Number(raw) : null;
   const saved = useSavedLoadCase(loadCaseId);
+  // Opening the saved case again (someone else changed it) starts the workspace afresh from it.
+  const [opening, setOpening] = useState(0);
+  const reopen = () => void saved.refetch().then(() => setOpening((n) => n + 1));
   if (raw !== null) {
     if (loadCaseId === null || saved.isError) {
       return (
@@ -95,12 +98,12 @@ export function EvaluatePage({ canSave = false, meId = 0 }: { canSave?: boolean;
       );
     }
     if (saved.isPending) return <Spinner label="Opening the saved load case…" />;
-    return <EvaluateWorkspace key={`saved-${saved.data.id}`} saved={saved.data} canSave={canSave} meId={meId} />;
+    return <EvaluateWorkspace key={`saved-${saved.data.id}-${opening}`} saved={saved.data} canSave={canSave} meId={meId} onReopen={reopen} />;
   }
-  return <EvaluateWorkspace key="example" saved={null} canSave={canSave} meId={meId} />;
+  return <EvaluateWorkspace key="example" saved={null} canSave={canSave} meId={meId} onReopen={reopen} />;
 }
 
-function EvaluateWorkspace({ saved, canSave, meId }: { saved: LoadCaseDto | null; canSave: boolean; meId: number }) {
+function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCaseDto | null; canSave: boolean; meId: number; onReopen: () => void }) {
   const { format } = useUnits();
   const navigate = useNavigate();
   const location = useLocation();
@@ -275,6 +278,7 @@ function EvaluateWorkspace({ saved, canSave, meId }: { saved: LoadCaseDto | null
               setPendingCandidate(null);
             }}
             onSaved={onSaved}
+            onReload={onReopen}
           />
           {saved ? <ShortlistDialog result={shortlisting} loadCase={saved} authorId={meId} onClose={() => setShortlisting(null)} onAdded={onAdded} /> : null}
         </>

@@ -1,14 +1,16 @@
 import { useEffect, useMemo, useRef } from 'react';
-import { useForm, type Resolver } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { FAMILIES, FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { COMPONENT_TYPES, type EvaluateRequest } from '@shared/schemas/evaluate';
 import { COMPONENT_LABELS, WINDOW_COMPONENTS } from '@shared/labels';
 import { pressureFromDepth, DEFAULT_TARGET_SAFETY_FACTORS } from '@shared/engine';
 import { SelectField, TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
+import { FormError } from '@/components/ui/form-error';
 import { useUnits } from '@/lib/unit-system';
 import { fromDisplay } from '@/lib/units';
-import { checkForm, convertForm, type LoadCaseForm } from '../form-model';
+import { convertForm, loadCaseFormSchema, type LoadCaseForm } from '../form-model';
 import { ComponentSketch } from './component-sketch';
 
 function Fieldset({ legend, children }: { legend: string; children: React.ReactNode }) {
@@ -35,16 +37,9 @@ export function LoadCaseFormPanel({
 }) {
   const { system, label, format } = useUnits();
   const systemRef = useRef(system);
-  const resolver: Resolver<LoadCaseForm> = useMemo(
-    () => async (values) => {
-      const check = checkForm(values, systemRef.current);
-      if (check.ok) return { values, errors: {} };
-      const errors = Object.fromEntries(Object.entries(check.errors).map(([k, message]) => [k, { type: 'validate', message }]));
-      return { values: {}, errors };
-    },
-    [],
-  );
-  const form = useForm<LoadCaseForm>({ resolver, defaultValues: convertForm(initial, 'SI-raw', system), mode: 'onSubmit', reValidateMode: 'onChange' });
+  // The schema reads the units of the moment: the form converts what is typed when they switch.
+  const resolver = useMemo(() => zodResolver(loadCaseFormSchema(() => systemRef.current)), []);
+  const form = useForm<LoadCaseForm, unknown, EvaluateRequest>({ resolver, defaultValues: convertForm(initial, 'SI-raw', system), mode: 'onSubmit', reValidateMode: 'onChange' });
   const { register, handleSubmit, watch, formState, reset, getValues } = form;
   const errors = formState.errors;
 
@@ -67,15 +62,9 @@ export function LoadCaseFormPanel({
     if (depthM <= 12_000) pressureReadout = `≈ ${format('pressure', pressureFromDepth(depthM, v.latitude, v.water).pressure)} gauge`;
   }
 
-  const submit = handleSubmit((values) => {
-    const check = checkForm(values, system);
-    if (check.ok) onSubmit(check.request, convertForm(values, system, 'SI-raw'));
-  });
+  const submit = handleSubmit((request) => onSubmit(request, convertForm(getValues(), system, 'SI-raw')));
   // Saving checks the form the same way, so what is saved is what would be evaluated.
-  const save = handleSubmit((values) => {
-    const check = checkForm(values, system);
-    if (check.ok) onSave?.(check.request, convertForm(values, system, 'SI-raw'));
-  });
+  const save = handleSubmit((request) => onSave?.(request, convertForm(getValues(), system, 'SI-raw')));
 
   const len = label('length');
   const sketchLabels = {
@@ -280,11 +269,7 @@ export function LoadCaseFormPanel({
         </label>
       </Fieldset>
 
-      {errors.root ? (
-        <p role="alert" className="text-sm font-bold text-verdict-fail">
-          {errors.root.message as string}
-        </p>
-      ) : null}
+      <FormError message={errors.root?.message} />
       <Button type="submit" disabled={busy}>
         {busy ? 'Evaluating…' : 'Evaluate candidates'}
       </Button>

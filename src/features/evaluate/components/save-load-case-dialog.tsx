@@ -1,17 +1,27 @@
 import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
 import { loadCaseSaveSchema, type LoadCaseDto } from '@shared/schemas/projects';
 import type { EvaluateRequest } from '@shared/schemas/evaluate';
+import { StaleBanner } from '@/components/stale-banner';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { SelectField, TextField } from '@/components/ui/field';
 import { TextAreaField } from '@/components/ui/text-area';
 import { Spinner } from '@/components/ui/states';
-import { ApiError } from '@/lib/api-client';
-import { mapServerErrors } from '@/lib/field-errors';
+import { ApiError, isStale } from '@/lib/api-client';
+import { setServerErrors } from '@/lib/field-errors';
 import { useMyProjects, useSaveLoadCase } from '../api/project-links';
 
-type Field = 'projectId' | 'name' | 'notes';
-const LABELS: Record<Field, string> = { projectId: 'Project', name: 'Name', notes: 'Notes' };
+const LABELS = { projectId: 'Project', name: 'Name', notes: 'Notes' };
+
+/** The dialog's own fields around the shared schema's name and notes (the load case is the checked request). */
+const saveFormSchema = loadCaseSaveSchema
+  .pick({ name: true, notes: true })
+  .extend({ mode: z.enum(['new', 'update']), projectId: z.string() })
+  .refine((v) => v.mode === 'update' || v.projectId !== '', { path: ['projectId'], message: 'Choose the project to keep it in.' });
+type SaveForm = z.input<typeof saveFormSchema>;
 
 /**
  * Saves the load case in the form to a project (or, when it was opened from one, updates that
@@ -24,6 +34,7 @@ export function SaveLoadCaseDialog({
   purpose,
   onClose,
   onSaved,
+  onReload,
 }: {
   open: boolean;
   /** The validated request built from the form, or null while the dialog is closed. */
@@ -34,60 +45,45 @@ export function SaveLoadCaseDialog({
   purpose?: string;
   onClose: () => void;
   onSaved: (saved: LoadCaseDto) => void;
+  /** Opens the saved load case again as it is now (after someone else changed it). */
+  onReload: () => void;
 }) {
   const projects = useMyProjects(open);
   const save = useSaveLoadCase();
-  const [mode, setMode] = useState<'new' | 'update'>('new');
-  const [projectId, setProjectId] = useState('');
-  const [name, setName] = useState('');
-  const [notes, setNotes] = useState('');
-  const [errors, setErrors] = useState<Partial<Record<Field, string>> & { root?: string | null }>({});
+  const form = useForm<SaveForm, unknown, z.output<typeof saveFormSchema>>({
+    resolver: zodResolver(saveFormSchema),
+    defaultValues: { mode: 'new', projectId: '', name: '', notes: '' },
+  });
+  const { errors } = form.formState;
+  const mode = form.watch('mode');
+  const projectId = form.watch('projectId');
+  const [stale, setStale] = useState<ApiError | null>(null);
 
   // Start afresh each time the dialog opens (not while the user types).
   useEffect(() => {
     if (!open) return;
     save.reset();
-    setErrors({});
-    setMode('new');
-    setProjectId(opened ? String(opened.projectId) : '');
-    setName(opened ? `${opened.name} (revised)` : '');
-    setNotes(opened?.notes ?? '');
+    setStale(null);
+    form.reset({ mode: 'new', projectId: opened ? String(opened.projectId) : '', name: opened ? `${opened.name} (revised)` : '', notes: opened?.notes ?? '' });
   }, [open]);
 
   // With a single project there is nothing to choose.
   useEffect(() => {
-    if (open && !projectId && projects.data?.length === 1) setProjectId(String(projects.data[0].id));
+    if (open && !projectId && projects.data?.length === 1) form.setValue('projectId', String(projects.data[0].id));
   }, [open, projectId, projects.data]);
 
-  const confirm = () => {
+  const confirm = form.handleSubmit(async ({ mode, projectId, name, notes }) => {
     if (!request) return;
-    const next: typeof errors = {};
-    if (mode === 'new' && !projectId) next.projectId = 'Choose the project to keep it in.';
-    const parsed = loadCaseSaveSchema.safeParse({ name, notes, loadCase: request.loadCase, ...(request.filters ? { filters: request.filters } : {}) });
-    if (!parsed.success) {
-      for (const issue of parsed.error.issues) {
-        const key = String(issue.path[0]);
-        if (key === 'name' || key === 'notes') next[key] ??= issue.message;
-        else next.root ??= issue.message;
-      }
+    setStale(null);
+    const body = { name, notes, request };
+    try {
+      onSaved(await save.mutateAsync(mode === 'update' && opened ? { mode: 'update', loadCase: opened, ...body } : { mode: 'new', projectId: Number(projectId), ...body }));
+    } catch (err) {
+      if (isStale(err)) setStale(err);
+      else if (err instanceof ApiError && err.code === 'frozen') form.setError('root', { type: 'server', message: `${err.message} Choose “Save as a new load case”.` });
+      else setServerErrors(form.setError, err, LABELS);
     }
-    if (Object.keys(next).length) return setErrors(next);
-    setErrors({});
-    const body = { name: name.trim(), notes: notes.trim(), request };
-    save.mutate(mode === 'update' && opened ? { mode: 'update', loadCase: opened, ...body } : { mode: 'new', projectId: Number(projectId), ...body }, {
-      onSuccess: onSaved,
-      onError: (err) => {
-        const mapped = mapServerErrors(err, LABELS);
-        const hint =
-          err instanceof ApiError && err.code === 'frozen'
-            ? ' Choose “Save as a new load case”.'
-            : err instanceof ApiError && err.code === 'stale'
-              ? ' Save it as a new load case, or reopen the saved one to see the other change.'
-              : '';
-        setErrors({ ...mapped.fields, root: mapped.root ? mapped.root + hint : null });
-      },
-    });
-  };
+  });
 
   const noProjects = projects.data?.length === 0;
   return (
@@ -97,29 +93,22 @@ export function SaveLoadCaseDialog({
       confirmLabel={mode === 'update' ? 'Save changes' : 'Save load case'}
       busy={save.isPending}
       busyLabel="Saving…"
-      error={errors.root}
+      error={errors.root?.message}
       confirmDisabled={noProjects && mode === 'new'}
       onClose={onClose}
-      onConfirm={confirm}
+      onConfirm={() => void confirm()}
     >
+      {stale ? <StaleBanner message={stale.message} onReload={onReload} /> : null}
       {purpose ? <p className="rounded-plate bg-sounding-light px-3 py-2 text-sounding-dark">{purpose}</p> : null}
       <p className="text-ink-soft">The inputs are kept in SI with their catalogue filters; the project's members can open it in Evaluate and shortlist candidates for it.</p>
       {opened ? (
         <fieldset className="flex flex-col gap-1">
           <legend className="text-xs font-bold uppercase tracking-wide text-ink-soft">Save as</legend>
           <label className="flex items-center gap-2">
-            <input type="radio" name="save-mode" checked={mode === 'new'} onChange={() => setMode('new')} /> A new load case
+            <input type="radio" value="new" {...form.register('mode')} /> A new load case
           </label>
           <label className="flex items-center gap-2">
-            <input
-              type="radio"
-              name="save-mode"
-              checked={mode === 'update'}
-              onChange={() => {
-                setMode('update');
-                setName(opened.name);
-              }}
-            />{' '}
+            <input type="radio" value="update" {...form.register('mode', { onChange: (e) => e.target.value === 'update' && form.setValue('name', opened.name) })} />{' '}
             Changes to “{opened.name}”
           </label>
         </fieldset>
@@ -140,7 +129,7 @@ export function SaveLoadCaseDialog({
             first, then save the load case to it.
           </p>
         ) : (
-          <SelectField label="Project" data-autofocus value={projectId} error={errors.projectId} onChange={(e) => setProjectId(e.target.value)}>
+          <SelectField label="Project" data-autofocus error={errors.projectId?.message} {...form.register('projectId')}>
             <option value="">Choose a project…</option>
             {projects.data.map((p) => (
               <option key={p.id} value={p.id}>
@@ -150,21 +139,13 @@ export function SaveLoadCaseDialog({
           </SelectField>
         )
       ) : null}
-      <TextField
-        label="Name"
-        value={name}
-        maxLength={200}
-        error={errors.name}
-        placeholder="e.g. Forward viewport, 90° cone at 1,200 m"
-        onChange={(e) => setName(e.target.value)}
-      />
+      <TextField label="Name" maxLength={200} error={errors.name?.message} placeholder="e.g. Forward viewport, 90° cone at 1,200 m" {...form.register('name')} />
       <TextAreaField
         label="Notes"
-        value={notes}
         maxLength={4000}
-        error={errors.notes}
+        error={errors.notes?.message}
         hint="Where the numbers come from: the seat drawing, the dive profile, the client's specification."
-        onChange={(e) => setNotes(e.target.value)}
+        {...form.register('notes')}
       />
     </ConfirmDialog>
   );

@@ -1,4 +1,7 @@
-import { useEffect, useState } from 'react';
+import { useEffect } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
 import type { CandidateResult } from '@shared/engine';
 import { shortlistCreateSchema, shortlistItemAddSchema, type LoadCaseDto, type ShortlistDto } from '@shared/schemas/projects';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
@@ -6,11 +9,22 @@ import { TextField } from '@/components/ui/field';
 import { TextAreaField } from '@/components/ui/text-area';
 import { Spinner } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
-import { mapServerErrors } from '@/lib/field-errors';
+import { setServerErrors } from '@/lib/field-errors';
 import { useAddToShortlist, useShortlistChoices } from '../api/project-links';
 
-type Field = 'name' | 'note';
-const LABELS: Record<Field, string> = { name: 'Shortlist name', note: 'Note' };
+const LABELS = { name: 'Shortlist name', note: 'Note' };
+
+/**
+ * The target ("new" or a shortlist's id, set by the radios), the shared schemas' note and, for a
+ * new shortlist, its name: the name field exists only while "A new shortlist" is chosen
+ * (shouldUnregister), so an absent name is one not asked for.
+ */
+const shortlistFormSchema = z.object({
+  target: z.string().min(1),
+  name: shortlistCreateSchema.shape.name.optional(),
+  note: shortlistItemAddSchema.shape.note,
+});
+type ShortlistForm = z.input<typeof shortlistFormSchema>;
 
 /**
  * Adds one catalogue candidate to one of the caller's open (or returned) shortlists for the saved
@@ -33,51 +47,42 @@ export function ShortlistDialog({
   const open = result !== null;
   const choices = useShortlistChoices(loadCase.projectId, loadCase.id, authorId, open);
   const add = useAddToShortlist();
-  const [target, setTarget] = useState<string>('');
-  const [name, setName] = useState('');
-  const [note, setNote] = useState('');
-  const [errors, setErrors] = useState<Partial<Record<Field, string>> & { root?: string | null }>({});
+  const form = useForm<ShortlistForm, unknown, z.output<typeof shortlistFormSchema>>({
+    resolver: zodResolver(shortlistFormSchema),
+    defaultValues: { target: '', name: '', note: '' },
+  });
+  const { errors } = form.formState;
 
   // Start afresh each time the dialog opens.
   useEffect(() => {
     if (!open) return;
     add.reset();
-    setErrors({});
-    setNote('');
-    setName('');
-    setTarget('');
+    form.reset({ target: '', name: '', note: '' });
   }, [open, result?.propertySetId]);
 
   // Offer the newest of the caller's shortlists first; "new" when there is none.
   const list = choices.data ?? [];
+  const target = form.watch('target');
   const chosen = target || (choices.isSuccess ? (list[0] ? String(list[0].id) : 'new') : '');
+  const choose = (value: string) => form.setValue('target', value);
 
-  const confirm = () => {
-    if (!result || result.propertySetId === undefined || !chosen) return;
-    const next: typeof errors = {};
-    const item = shortlistItemAddSchema.safeParse({ propertySetId: result.propertySetId, note });
-    if (!item.success) next.note = item.error.issues[0]?.message;
-    if (chosen === 'new') {
-      const created = shortlistCreateSchema.safeParse({ loadCaseId: loadCase.id, name });
-      if (!created.success) next.name = created.error.issues.find((i) => i.path[0] === 'name')?.message ?? created.error.issues[0]?.message;
+  const confirm = form.handleSubmit(async ({ target, name, note }) => {
+    if (!result || result.propertySetId === undefined) return;
+    try {
+      onAdded(
+        await add.mutateAsync(
+          target === 'new'
+            ? { to: 'new', projectId: loadCase.projectId, loadCaseId: loadCase.id, name: name ?? '', propertySetId: result.propertySetId, note }
+            : { to: 'existing', shortlistId: Number(target), propertySetId: result.propertySetId, note },
+        ),
+      );
+    } catch (err) {
+      // A shortlist made before the item failed now exists: offer it next time.
+      if (target === 'new') void choices.refetch();
+      if (err instanceof ApiError && err.code === 'duplicate') form.setError('root', { type: 'server', message: `${result.name} is already on that shortlist.` });
+      else setServerErrors(form.setError, err, LABELS);
     }
-    if (Object.keys(next).length) return setErrors(next);
-    setErrors({});
-    add.mutate(
-      chosen === 'new'
-        ? { to: 'new', projectId: loadCase.projectId, loadCaseId: loadCase.id, name: name.trim(), propertySetId: result.propertySetId, note: note.trim() }
-        : { to: 'existing', shortlistId: Number(chosen), propertySetId: result.propertySetId, note: note.trim() },
-      {
-        onSuccess: onAdded,
-        onError: (err) => {
-          const mapped = mapServerErrors(err, LABELS);
-          // A shortlist made before the item failed now exists: offer it next time.
-          if (chosen === 'new') void choices.refetch();
-          setErrors({ ...mapped.fields, root: err instanceof ApiError && err.code === 'duplicate' ? `${result.name} is already on that shortlist.` : mapped.root });
-        },
-      },
-    );
-  };
+  });
 
   return (
     <ConfirmDialog
@@ -86,10 +91,14 @@ export function ShortlistDialog({
       confirmLabel="Add to shortlist"
       busy={add.isPending}
       busyLabel="Adding…"
-      error={errors.root}
+      error={errors.root?.message}
       confirmDisabled={!chosen}
       onClose={onClose}
-      onConfirm={confirm}
+      onConfirm={() => {
+        // Nothing clicked: the shortlist offered first is the one meant.
+        if (!target) choose(chosen);
+        void confirm();
+      }}
     >
       <p>
         <strong>{result?.name}</strong> for the load case “{loadCase.name}”.
@@ -105,7 +114,7 @@ export function ShortlistDialog({
           <legend className="mb-1 text-xs font-bold uppercase tracking-wide text-ink-soft">Shortlist</legend>
           {list.map((s) => (
             <label key={s.id} className="flex items-center gap-2">
-              <input type="radio" name="shortlist-target" value={s.id} checked={chosen === String(s.id)} onChange={() => setTarget(String(s.id))} />
+              <input type="radio" name="shortlist-target" value={s.id} checked={chosen === String(s.id)} onChange={() => choose(String(s.id))} />
               <span>
                 {s.name}{' '}
                 <span className="text-xs text-ink-soft">
@@ -115,17 +124,16 @@ export function ShortlistDialog({
             </label>
           ))}
           <label className="flex items-center gap-2">
-            <input type="radio" name="shortlist-target" value="new" checked={chosen === 'new'} onChange={() => setTarget('new')} /> A new shortlist
+            <input type="radio" name="shortlist-target" value="new" checked={chosen === 'new'} onChange={() => choose('new')} /> A new shortlist
           </label>
           {chosen === 'new' ? (
             <TextField
               label="Shortlist name"
               wrapperClassName="ml-6"
-              value={name}
               maxLength={200}
-              error={errors.name}
+              error={errors.name?.message}
               placeholder="e.g. Viewport window material"
-              onChange={(e) => setName(e.target.value)}
+              {...form.register('name', { shouldUnregister: true })}
             />
           ) : null}
         </fieldset>
@@ -134,11 +142,10 @@ export function ShortlistDialog({
         label="Note"
         data-autofocus
         rows={4}
-        value={note}
         maxLength={2000}
-        error={errors.note}
+        error={errors.note?.message}
         hint="Why it is on the list, and what to confirm with the supplier (lot data, certification, lead time)."
-        onChange={(e) => setNote(e.target.value)}
+        {...form.register('note')}
       />
     </ConfirmDialog>
   );

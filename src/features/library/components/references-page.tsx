@@ -1,17 +1,21 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
-import { useForm, type Resolver } from 'react-hook-form';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { createColumnHelper } from '@tanstack/react-table';
-import { REFERENCE_KINDS } from '@shared/schemas/catalogue';
+import { REFERENCE_KINDS, type ReferenceInput } from '@shared/schemas/catalogue';
 import { DOCUMENT_MAX_BYTES, type ReferenceDetailDto } from '@shared/schemas/library';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { TableView, useSortableTable } from '@/components/ui/table-view';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
-import { ApiError } from '@/lib/api-client';
+import { StaleBanner } from '@/components/stale-banner';
+import { FormError } from '@/components/ui/form-error';
+import { ApiError, isStale } from '@/lib/api-client';
+import { setServerErrors } from '@/lib/field-errors';
 import { documentUrl, useCreateReference, useReference, useReferences, useUpdateReference, useUploadDocument } from '../api/references';
 import { REFERENCE_KIND_LABELS, formatBytes, formatDate } from '../labels';
-import { checkReferenceForm, emptyReferenceForm, referenceFormFrom, type ReferenceForm } from '../reference-form';
+import { emptyReferenceForm, REFERENCE_FIELD_LABELS, referenceFormFrom, referenceFormSchema, type ReferenceForm } from '../reference-form';
 import { ProgressBar } from './progress';
 
 function useDebounced<T>(value: T, ms: number): T {
@@ -193,39 +197,30 @@ function ReferenceEditor({
   const create = useCreateReference();
   const update = useUpdateReference(reference?.id ?? 0);
   const [lockVersion, setLockVersion] = useState(reference?.lockVersion ?? 0);
-  const [banner, setBanner] = useState<{ message: string; stale: boolean; tone: 'error' | 'info' } | null>(null);
-  const resolver: Resolver<ReferenceForm> = useMemo(
-    () => async (values) => {
-      const check = checkReferenceForm(values);
-      if (check.ok) return { values, errors: {} };
-      return { values: {}, errors: Object.fromEntries(Object.entries(check.errors).map(([k, message]) => [k, { type: 'validate', message }])) };
-    },
-    [],
-  );
-  const form = useForm<ReferenceForm>({ resolver, defaultValues: reference ? referenceFormFrom(reference) : emptyReferenceForm() });
+  const [notice, setNotice] = useState<string | null>(null);
+  const [stale, setStale] = useState<ApiError | null>(null);
+  const form = useForm<ReferenceForm, unknown, ReferenceInput>({
+    resolver: zodResolver(referenceFormSchema),
+    defaultValues: reference ? referenceFormFrom(reference) : emptyReferenceForm(),
+  });
   const { register, handleSubmit, formState, reset, setFocus, setError } = form;
   const err = (k: keyof ReferenceForm) => formState.errors[k]?.message;
 
   useEffect(() => setFocus('kind'), [setFocus]);
 
-  const submit = handleSubmit(async (values) => {
-    const check = checkReferenceForm(values);
-    if (!check.ok) return;
-    setBanner(null);
+  const submit = handleSubmit(async (input) => {
+    setNotice(null);
+    setStale(null);
     try {
-      const saved = reference ? await update.mutateAsync({ lockVersion, reference: check.input }) : await create.mutateAsync(check.input);
+      const saved = reference ? await update.mutateAsync({ lockVersion, reference: input }) : await create.mutateAsync(input);
       setLockVersion(saved.lockVersion);
       reset(referenceFormFrom(saved));
-      setBanner({ tone: 'info', message: reference ? 'Reference saved.' : 'Reference created. You can attach its document now.', stale: false });
+      setNotice(reference ? 'Reference saved.' : 'Reference created. You can attach its document now.');
       if (!reference) onCreated(saved);
     } catch (e) {
-      if (e instanceof ApiError) {
-        for (const [path, message] of Object.entries(e.fields)) {
-          const key = path.replace(/^reference\./, '') as keyof ReferenceForm;
-          if (key in emptyReferenceForm()) setError(key, { type: 'server', message });
-        }
-        setBanner({ tone: 'error', message: e.message, stale: e.status === 409 && e.code === 'stale' });
-      } else setBanner({ tone: 'error', message: 'The reference could not be saved.', stale: false });
+      if (isStale(e)) setStale(e);
+      // A PUT names the fields under "reference.".
+      else setServerErrors(setError, e, REFERENCE_FIELD_LABELS, (path) => path.replace(/^reference\./, ''));
     }
   });
 
@@ -249,15 +244,12 @@ function ReferenceEditor({
         </div>
         <TextField label="Identifier" error={err('identifier')} hint="Standard number, DOI or report number" {...register('identifier')} />
         <TextField label="Note" error={err('note')} {...register('note')} />
-        {banner ? (
-          <div role={banner.tone === 'error' ? 'alert' : 'status'} className={`text-sm ${banner.tone === 'error' ? 'text-verdict-fail' : 'text-verdict-pass'}`}>
-            <p className="font-bold">{banner.message}</p>
-            {banner.stale ? (
-              <button type="button" className="mt-1 font-bold text-sounding underline" onClick={onReload}>
-                Load the saved version (discards your edits)
-              </button>
-            ) : null}
-          </div>
+        {stale ? <StaleBanner message={stale.message} onReload={onReload} /> : null}
+        <FormError message={formState.errors.root?.message} />
+        {notice ? (
+          <p role="status" className="text-sm font-bold text-verdict-pass">
+            {notice}
+          </p>
         ) : null}
         <div className="flex gap-2">
           <Button type="submit" disabled={busy}>

@@ -1,12 +1,13 @@
-import { useEffect, useState } from 'react';
+import { useEffect } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { projectCreateSchema } from '@shared/schemas/projects';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { TextField } from '@/components/ui/field';
 import { TextAreaField } from '@/components/ui/text-area';
-import { mapServerErrors } from '@/lib/field-errors';
+import { setServerErrors } from '@/lib/field-errors';
 
 type Values = { name: string; description: string };
-type Errors = Partial<Record<keyof Values, string>> & { root?: string | null };
 const LABELS = { name: 'Name', description: 'Description' };
 
 /** Name and description of a project, for creating one or changing it. */
@@ -25,55 +26,41 @@ export function ProjectFormDialog({
   onSave: (values: Values) => Promise<unknown>;
   onClose: () => void;
 }) {
-  const [values, setValues] = useState(initial);
-  const [errors, setErrors] = useState<Errors>({});
-  const [busy, setBusy] = useState(false);
+  const form = useForm({ resolver: zodResolver(projectCreateSchema), defaultValues: initial });
+  const { errors, isSubmitting } = form.formState;
 
   useEffect(() => {
-    if (open) {
-      setValues(initial);
-      setErrors({});
-    }
+    if (open) form.reset(initial);
     // Reset only when the dialog opens, not while the user types.
   }, [open]);
 
-  const save = async () => {
-    const parsed = projectCreateSchema.safeParse(values);
-    if (!parsed.success) {
-      const next: Errors = {};
-      for (const issue of parsed.error.issues) next[issue.path[0] as keyof Values] ??= issue.message;
-      return setErrors(next);
-    }
-    setBusy(true);
+  const save = form.handleSubmit(async (values) => {
     try {
-      await onSave(parsed.data);
+      await onSave(values);
     } catch (err) {
-      const mapped = mapServerErrors(err, LABELS);
-      setErrors({ ...mapped.fields, root: mapped.root });
-    } finally {
-      setBusy(false);
+      setServerErrors(form.setError, err, LABELS);
     }
-  };
+  });
 
   return (
-    <ConfirmDialog open={open} title={title} confirmLabel={confirmLabel} busy={busy} busyLabel="Saving…" error={errors.root} onConfirm={() => void save()} onClose={onClose}>
-      <TextField
-        label="Name"
-        data-autofocus
-        value={values.name}
-        maxLength={200}
-        error={errors.name}
-        onChange={(e) => setValues({ ...values, name: e.target.value })}
-        placeholder="e.g. HS-2 research submersible (1,200 m)"
-      />
+    <ConfirmDialog
+      open={open}
+      title={title}
+      confirmLabel={confirmLabel}
+      busy={isSubmitting}
+      busyLabel="Saving…"
+      error={errors.root?.message}
+      onConfirm={() => void save()}
+      onClose={onClose}
+    >
+      <TextField label="Name" data-autofocus maxLength={200} error={errors.name?.message} placeholder="e.g. HS-2 research submersible (1,200 m)" {...form.register('name')} />
       <TextAreaField
         label="Description"
-        value={values.description}
         maxLength={4000}
         rows={4}
-        error={errors.description}
+        error={errors.description?.message}
         hint="What is being designed, for which service; the members see it."
-        onChange={(e) => setValues({ ...values, description: e.target.value })}
+        {...form.register('description')}
       />
     </ConfirmDialog>
   );

@@ -1,7 +1,10 @@
 import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { z } from 'zod';
 import { Link } from 'react-router-dom';
 import { ROLE_LABELS } from '@shared/schemas/auth';
-import type { ProjectDto, UserSummaryDto } from '@shared/schemas/projects';
+import { memberAddSchema, type ProjectDto, type UserSummaryDto } from '@shared/schemas/projects';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { SelectField } from '@/components/ui/field';
@@ -9,6 +12,7 @@ import { LinkButton } from '@/components/ui/link-button';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
 import { formatDate, formatDateTime } from '@/lib/dates';
+import { setServerErrors } from '@/lib/field-errors';
 import { useUnits } from '@/lib/unit-system';
 import {
   useAddMember,
@@ -27,11 +31,18 @@ import { ProjectFormDialog } from './project-form-dialog';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 
+/** The member picker holds the chosen id as the select's text; the shared schema checks the number. */
+const memberFormSchema = z
+  .strictObject({ userId: z.string() })
+  .transform((v) => ({ userId: Number(v.userId) }))
+  .pipe(memberAddSchema);
+
 function Members({ project, canManage }: { project: ProjectDto; canManage: boolean }) {
   const people = usePeople(canManage);
   const add = useAddMember(project.id);
   const remove = useRemoveMember(project.id);
-  const [chosen, setChosen] = useState('');
+  const form = useForm({ resolver: zodResolver(memberFormSchema), defaultValues: { userId: '' } });
+  const chosen = form.watch('userId') !== '';
   const [removing, setRemoving] = useState<UserSummaryDto | null>(null);
   const memberIds = new Set(project.members.map((m) => m.id));
   const candidates = (people.data ?? []).filter((p) => !memberIds.has(p.id));
@@ -66,20 +77,22 @@ function Members({ project, canManage }: { project: ProjectDto; canManage: boole
       {canManage ? (
         <form
           className="mt-4 flex items-end gap-2 border-t border-chart-line pt-3"
-          onSubmit={(e) => {
-            e.preventDefault();
-            if (!chosen) return;
-            add.mutate(Number(chosen), { onSuccess: () => setChosen('') });
-          }}
+          onSubmit={form.handleSubmit(async ({ userId }) => {
+            try {
+              await add.mutateAsync(userId);
+              form.reset();
+            } catch (err) {
+              setServerErrors(form.setError, err, { userId: 'Add a member' });
+            }
+          })}
         >
           <SelectField
             label="Add a member"
             wrapperClassName="flex-1"
-            value={chosen}
-            onChange={(e) => setChosen(e.target.value)}
             disabled={people.isPending || people.isError}
-            error={add.isError ? errorText(add.error) : people.isError ? errorText(people.error) : undefined}
+            error={form.formState.errors.userId?.message ?? form.formState.errors.root?.message ?? (people.isError ? errorText(people.error) : undefined)}
             hint={people.isPending ? 'Loading people…' : candidates.length === 0 ? 'Everyone with an active account is a member already.' : undefined}
+            {...form.register('userId')}
           >
             <option value="">Choose a person…</option>
             {candidates.map((p) => (

@@ -1,16 +1,34 @@
 import { useRef, useState } from 'react';
+import { get, useForm, type FieldErrors } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import type { RatingTableDraftInput } from '@shared/schemas/rating-tables';
 import { RATING_GEOMETRIES, RATING_GEOMETRY_LABELS, RATIO_LABEL } from '@shared/schemas/rating-tables';
+import { StaleBanner } from '@/components/stale-banner';
 import { SelectField, TextField } from '@/components/ui/field';
+import { FormError } from '@/components/ui/form-error';
 import { TextAreaField } from '@/components/ui/text-area';
 import { Button } from '@/components/ui/button';
-import { ApiError } from '@/lib/api-client';
-import { checkDraft, ENTRY_UNITS, resizeGrid, type EditorErrors, type EditorState, type EntryUnit } from '../editor-model';
+import { ApiError, isStale } from '@/lib/api-client';
+import { setServerErrors } from '@/lib/field-errors';
+import { editorFieldLabel, editorPathFor, ENTRY_UNITS, ratingDraftFormSchema, resizeGrid, type EditorState } from '../editor-model';
 import { ratingCsvTemplateUrl, readRatingCsv } from '../api/rating-tables';
 
 interface Option {
   id: number;
   label: string;
+}
+
+/** Every message at or below `path` in react-hook-form's nested errors, by dotted path (an array's own error sits on "root"). */
+function messagesUnder(errors: FieldErrors, path: string): [string, string][] {
+  const out: [string, string][] = [];
+  const walk = (node: unknown, at: string) => {
+    if (!node || typeof node !== 'object') return;
+    const { message, type: _type, ref: _ref, types: _types, ...children } = node as Record<string, unknown>;
+    if (typeof message === 'string') out.push([at, message]);
+    for (const [key, child] of Object.entries(children)) walk(child, key === 'root' ? at : `${at}.${key}`);
+  };
+  walk(get(errors, path), path);
+  return out;
 }
 
 /**
@@ -22,39 +40,43 @@ export function RatingTableEditor({
   initial,
   references,
   sets,
-  busy,
-  serverErrors,
   onSave,
+  onReload,
 }: {
   materialId: number;
   initial: EditorState;
   references: Option[];
   /** The material's property-set lineages (id = lineage id). */
   sets: Option[];
-  busy: boolean;
-  serverErrors: EditorErrors;
-  onSave: (draft: RatingTableDraftInput) => void;
+  /** Sends the checked draft; a refusal comes back onto the form. */
+  onSave: (draft: RatingTableDraftInput) => Promise<unknown>;
+  /** Loads the table as saved now (after someone else saved it). */
+  onReload?: () => void;
 }) {
-  const [s, setS] = useState<EditorState>(initial);
-  const [errors, setErrors] = useState<EditorErrors>({});
+  const form = useForm<EditorState, unknown, RatingTableDraftInput>({ resolver: zodResolver(ratingDraftFormSchema(materialId)), defaultValues: initial });
+  const { register, formState } = form;
+  const s = form.watch();
+  const [stale, setStale] = useState<ApiError | null>(null);
   const [csvNote, setCsvNote] = useState<string | null>(null);
   const fileRef = useRef<HTMLInputElement>(null);
-  const all = { ...serverErrors, ...errors };
-  const err = (path: string) => all[path];
-  const set = <K extends keyof EditorState>(k: K, v: EditorState[K]) => setS((prev) => ({ ...prev, [k]: v }));
-  const cell = (i: number, j: number, v: string) => setS((prev) => ({ ...prev, cells: prev.cells.map((row, r) => (r === i ? row.map((c, k) => (k === j ? v : c)) : row)) }));
+  const err = (path: string) => (get(formState.errors, path) as { message?: string } | undefined)?.message;
+  const dataErrors = messagesUnder(formState.errors, 'content.data');
+  /** Replaces whole parts of the editor (rows and columns added, a grid read from a file). */
+  const change = (patch: Partial<EditorState>) => {
+    for (const [key, value] of Object.entries(patch)) form.setValue(key as keyof EditorState, value as never, { shouldDirty: true });
+  };
   const ratio = RATIO_LABEL[s.geometry];
   const unitFactor = ENTRY_UNITS[s.unit];
 
-  const save = () => {
-    const check = checkDraft(s, materialId);
-    if (!check.ok) {
-      setErrors(check.errors);
-      return;
+  const save = form.handleSubmit(async (draft) => {
+    setStale(null);
+    try {
+      await onSave(draft);
+    } catch (e) {
+      if (isStale(e) && onReload) setStale(e);
+      else setServerErrors(form.setError, e, editorFieldLabel, editorPathFor);
     }
-    setErrors({});
-    onSave(check.draft);
-  };
+  });
 
   const loadCsv = async (file: File) => {
     setCsvNote('Reading the file…');
@@ -62,9 +84,9 @@ export function RatingTableEditor({
       const { data } = await readRatingCsv(file, s.form);
       const fmt = (pa: number) => String(Number((pa / unitFactor).toPrecision(8)));
       if (data.form === 'minimum-ratio') {
-        setS((prev) => ({ ...prev, pressures: data.pressures.map(fmt), temperatures: data.temperatures.map(String), cells: data.ratios.map((row) => row.map((r) => (r === null ? '' : String(r)))) }));
+        change({ pressures: data.pressures.map(fmt), temperatures: data.temperatures.map(String), cells: data.ratios.map((row) => row.map((r) => (r === null ? '' : String(r)))) });
       } else {
-        setS((prev) => ({ ...prev, ratios: data.ratios.map(String), criticalPressures: data.criticalPressures.map(fmt) }));
+        change({ ratios: data.ratios.map(String), criticalPressures: data.criticalPressures.map(fmt) });
       }
       setCsvNote(`Read ${data.form === 'minimum-ratio' ? data.pressures.length : data.ratios.length} rows from ${file.name}. Check them, then save the draft.`);
     } catch (e) {
@@ -77,15 +99,12 @@ export function RatingTableEditor({
     <form
       aria-label="Rating table draft"
       noValidate
-      onSubmit={(e) => {
-        e.preventDefault();
-        save();
-      }}
+      onSubmit={save}
       className="flex flex-col gap-4"
     >
       <div className="grid gap-3 md:grid-cols-2">
-        <TextField label="Name" value={s.name} onChange={(e) => set('name', e.target.value)} error={err('content.name')} />
-        <SelectField label="Geometry" value={s.geometry} onChange={(e) => set('geometry', e.target.value as EditorState['geometry'])} error={err('content.geometry')}>
+        <TextField label="Name" {...register('name')} error={err('content.name')} />
+        <SelectField label="Geometry" {...register('geometry')} error={err('content.geometry')}>
           {RATING_GEOMETRIES.map((g) => (
             <option key={g} value={g}>
               {RATING_GEOMETRY_LABELS[g]}
@@ -94,16 +113,16 @@ export function RatingTableEditor({
         </SelectField>
         {s.geometry !== 'flat-disc' ? (
           <div className="grid grid-cols-2 gap-2">
-            <TextField label="Smallest included angle" unit="°" inputMode="decimal" value={s.angleMin} onChange={(e) => set('angleMin', e.target.value)} error={err('content.includedAngle.min') ?? err('content.includedAngle')} />
-            <TextField label="Largest included angle" unit="°" inputMode="decimal" value={s.angleMax} onChange={(e) => set('angleMax', e.target.value)} error={err('content.includedAngle.max')} />
+            <TextField label="Smallest included angle" unit="°" inputMode="decimal" {...register('angleMin')} error={err('content.includedAngle.min') ?? err('content.includedAngle')} />
+            <TextField label="Largest included angle" unit="°" inputMode="decimal" {...register('angleMax')} error={err('content.includedAngle.max')} />
           </div>
         ) : null}
-        <TextField label="Material grade" value={s.grade} onChange={(e) => set('grade', e.target.value)} error={err('content.grade')} hint="In words: which material the table holds for" />
+        <TextField label="Material grade" {...register('grade')} error={err('content.grade')} hint="In words: which material the table holds for" />
         <div className="grid grid-cols-2 gap-2">
-          <TextField label="Data support up to" unit="h" inputMode="decimal" value={s.limitHours} onChange={(e) => set('limitHours', e.target.value)} error={err('content.limits.sustainedHours')} hint="Sustained load; empty: no limit stated" />
-          <TextField label="… and up to" unit="cycles" inputMode="decimal" value={s.limitCycles} onChange={(e) => set('limitCycles', e.target.value)} error={err('content.limits.cycles')} />
+          <TextField label="Data support up to" unit="h" inputMode="decimal" {...register('limitHours')} error={err('content.limits.sustainedHours')} hint="Sustained load; empty: no limit stated" />
+          <TextField label="… and up to" unit="cycles" inputMode="decimal" {...register('limitCycles')} error={err('content.limits.cycles')} />
         </div>
-        <SelectField label="Reference" value={s.referenceId} onChange={(e) => set('referenceId', e.target.value)} error={err('referenceId')} hint="Needed before it can be published">
+        <SelectField label="Reference" {...register('referenceId')} error={err('referenceId')} hint="Needed before it can be published">
           <option value="">None yet</option>
           {references.map((r) => (
             <option key={r.id} value={r.id}>
@@ -121,7 +140,7 @@ export function RatingTableEditor({
             <input
               type="checkbox"
               checked={s.coversLineageIds.includes(o.id)}
-              onChange={(e) => set('coversLineageIds', e.target.checked ? [...s.coversLineageIds, o.id] : s.coversLineageIds.filter((x) => x !== o.id))}
+              onChange={(e) => change({ coversLineageIds: e.target.checked ? [...s.coversLineageIds, o.id] : s.coversLineageIds.filter((x) => x !== o.id) })}
             />
             {o.label}
           </label>
@@ -129,16 +148,16 @@ export function RatingTableEditor({
         {err('coversLineageIds') ? <p className="text-xs font-bold text-verdict-fail">{err('coversLineageIds')}</p> : null}
       </fieldset>
 
-      <TextAreaField label="Note" value={s.note} onChange={(e) => set('note', e.target.value)} hint="How each value was taken from the source: [pub], [memory], interpolated or inferred" rows={3} />
+      <TextAreaField label="Note" {...register('note')} hint="How each value was taken from the source: [pub], [memory], interpolated or inferred" rows={3} />
 
       <fieldset className="flex flex-col gap-2">
         <legend className="text-xs font-bold uppercase tracking-wide text-ink-soft">Grid</legend>
         <div className="flex flex-wrap items-end gap-3">
-          <SelectField label="Form" value={s.form} onChange={(e) => set('form', e.target.value as EditorState['form'])}>
+          <SelectField label="Form" {...register('form')}>
             <option value="minimum-ratio">Minimum {ratio} against pressure and temperature</option>
             <option value="critical-pressure">Short-term critical pressure against {ratio}, with conversion factors</option>
           </SelectField>
-          <SelectField label="Pressures entered in" value={s.unit} onChange={(e) => set('unit', e.target.value as EntryUnit)}>
+          <SelectField label="Pressures entered in" {...register('unit')}>
             {Object.keys(ENTRY_UNITS).map((u) => (
               <option key={u}>{u}</option>
             ))}
@@ -162,37 +181,34 @@ export function RatingTableEditor({
               <thead>
                 <tr>
                   <th className="pr-2 text-left text-xs text-ink-soft">Pressure ({s.unit}) ↓ · temperature (°C) →</th>
-                  {s.temperatures.map((t, j) => (
+                  {s.temperatures.map((_, j) => (
                     <th key={j} className="pr-1">
                       <input
                         aria-label={`Temperature of column ${j + 1} (°C)`}
                         className={`w-20 rounded-plate border px-1 py-0.5 text-right ${err(`content.data.temperatures.${j}`) || err('content.data.temperatures') ? 'border-verdict-fail' : 'border-chart-line'}`}
-                        value={t}
-                        onChange={(e) => set('temperatures', s.temperatures.map((x, k) => (k === j ? e.target.value : x)))}
+                        {...register(`temperatures.${j}`)}
                       />
                     </th>
                   ))}
                 </tr>
               </thead>
               <tbody>
-                {s.pressures.map((p, i) => (
+                {s.pressures.map((_, i) => (
                   <tr key={i}>
                     <td className="pr-2">
                       <input
                         aria-label={`Pressure of row ${i + 1} (${s.unit})`}
                         className={`w-24 rounded-plate border px-1 py-0.5 text-right ${err(`content.data.pressures.${i}`) || err('content.data.pressures') ? 'border-verdict-fail' : 'border-chart-line'}`}
-                        value={p}
-                        onChange={(e) => set('pressures', s.pressures.map((x, k) => (k === i ? e.target.value : x)))}
+                        {...register(`pressures.${i}`)}
                       />
                     </td>
-                    {s.cells[i].map((c, j) => (
+                    {s.cells[i].map((_, j) => (
                       <td key={j} className="pr-1">
                         <input
                           aria-label={`${ratio} at row ${i + 1}, column ${j + 1}`}
                           title={err(`content.data.ratios.${i}.${j}`)}
                           className={`w-20 rounded-plate border px-1 py-0.5 text-right ${err(`content.data.ratios.${i}.${j}`) ? 'border-verdict-fail' : 'border-chart-line'}`}
-                          value={c}
-                          onChange={(e) => cell(i, j, e.target.value)}
+                          {...register(`cells.${i}.${j}`)}
                         />
                       </td>
                     ))}
@@ -202,7 +218,7 @@ export function RatingTableEditor({
             </table>
             <div className="mt-1 flex flex-wrap gap-2">
               {(['add-row', 'remove-row', 'add-column', 'remove-column'] as const).map((c) => (
-                <Button key={c} tone="quiet" onClick={() => setS((prev) => resizeGrid(prev, c))}>
+                <Button key={c} tone="quiet" onClick={() => change(resizeGrid(form.getValues(), c))}>
                   {c.replace('-', ' a ')}
                 </Button>
               ))}
@@ -218,13 +234,13 @@ export function RatingTableEditor({
                 </tr>
               </thead>
               <tbody>
-                {s.ratios.map((r, i) => (
+                {s.ratios.map((_, i) => (
                   <tr key={i}>
                     <td className="pr-2">
-                      <input aria-label={`${ratio} of row ${i + 1}`} className="w-20 rounded-plate border border-chart-line px-1 py-0.5 text-right" value={r} onChange={(e) => set('ratios', s.ratios.map((x, k) => (k === i ? e.target.value : x)))} />
+                      <input aria-label={`${ratio} of row ${i + 1}`} className="w-20 rounded-plate border border-chart-line px-1 py-0.5 text-right" {...register(`ratios.${i}`)} />
                     </td>
                     <td>
-                      <input aria-label={`Critical pressure of row ${i + 1}`} className="w-24 rounded-plate border border-chart-line px-1 py-0.5 text-right" value={s.criticalPressures[i] ?? ''} onChange={(e) => set('criticalPressures', s.ratios.map((_, k) => (k === i ? e.target.value : (s.criticalPressures[k] ?? ''))))} />
+                      <input aria-label={`Critical pressure of row ${i + 1}`} className="w-24 rounded-plate border border-chart-line px-1 py-0.5 text-right" {...register(`criticalPressures.${i}`)} />
                     </td>
                   </tr>
                 ))}
@@ -238,45 +254,44 @@ export function RatingTableEditor({
                 </tr>
               </thead>
               <tbody>
-                {s.factorTemperatures.map((t, i) => (
+                {s.factorTemperatures.map((_, i) => (
                   <tr key={i}>
                     <td className="pr-2">
-                      <input aria-label={`Temperature of factor ${i + 1}`} className="w-20 rounded-plate border border-chart-line px-1 py-0.5 text-right" value={t} onChange={(e) => set('factorTemperatures', s.factorTemperatures.map((x, k) => (k === i ? e.target.value : x)))} />
+                      <input aria-label={`Temperature of factor ${i + 1}`} className="w-20 rounded-plate border border-chart-line px-1 py-0.5 text-right" {...register(`factorTemperatures.${i}`)} />
                     </td>
                     <td>
-                      <input aria-label={`Conversion factor ${i + 1}`} className="w-20 rounded-plate border border-chart-line px-1 py-0.5 text-right" value={s.factors[i] ?? ''} onChange={(e) => set('factors', s.factorTemperatures.map((_, k) => (k === i ? e.target.value : (s.factors[k] ?? ''))))} />
+                      <input aria-label={`Conversion factor ${i + 1}`} className="w-20 rounded-plate border border-chart-line px-1 py-0.5 text-right" {...register(`factors.${i}`)} />
                     </td>
                   </tr>
                 ))}
               </tbody>
             </table>
             <div className="flex gap-2">
-              <Button tone="quiet" onClick={() => setS((p) => ({ ...p, ratios: [...p.ratios, ''], criticalPressures: [...p.criticalPressures, ''] }))}>
+              <Button tone="quiet" onClick={() => change({ ratios: [...s.ratios, ''], criticalPressures: [...s.criticalPressures, ''] })}>
                 add a point
               </Button>
-              <Button tone="quiet" onClick={() => setS((p) => ({ ...p, factorTemperatures: [...p.factorTemperatures, ''], factors: [...p.factors, ''] }))}>
+              <Button tone="quiet" onClick={() => change({ factorTemperatures: [...s.factorTemperatures, ''], factors: [...s.factors, ''] })}>
                 add a factor
               </Button>
             </div>
           </div>
         )}
-        {Object.keys(all).some((k) => k.startsWith('content.data')) ? (
+        {dataErrors.length ? (
           <ul role="alert" className="list-disc pl-5 text-xs font-bold text-verdict-fail">
-            {Object.entries(all)
-              .filter(([k]) => k.startsWith('content.data'))
-              .slice(0, 12)
-              .map(([k, v]) => (
-                <li key={k}>
-                  {k.replace('content.data.', '')}: {v}
-                </li>
-              ))}
+            {dataErrors.slice(0, 12).map(([k, v]) => (
+              <li key={k}>
+                {k.replace('content.data.', '')}: {v}
+              </li>
+            ))}
           </ul>
         ) : null}
       </fieldset>
 
+      {stale && onReload ? <StaleBanner message={stale.message} onReload={onReload} /> : null}
+      <FormError message={formState.errors.root?.message} />
       <div className="flex gap-2">
-        <Button type="submit" disabled={busy}>
-          {busy ? 'Saving…' : 'Save draft'}
+        <Button type="submit" disabled={formState.isSubmitting}>
+          {formState.isSubmitting ? 'Saving…' : 'Save draft'}
         </Button>
       </div>
     </form>

@@ -7,12 +7,11 @@ import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/sta
 import { SelectField } from '@/components/ui/field';
 import { LinkButton } from '@/components/ui/link-button';
 import { WorkflowSteps } from '@/components/workflow-steps';
-import { ApiError } from '@/lib/api-client';
 import { useQuery } from '@tanstack/react-query';
 import { materialsQueryOptions, referencesQueryOptions } from '@/features/library';
 import { materialQueryOptions } from '@/features/catalogue';
 import { useCreateRatingTable, useRatingTable, useRatingTables, useRatingTableStep, useUpdateRatingTable } from '../api/rating-tables';
-import { EMPTY_EDITOR, editorFrom, type EditorErrors } from '../editor-model';
+import { EMPTY_EDITOR, editorFrom } from '../editor-model';
 import { RatingTableEditor } from './rating-table-editor';
 import { RatingTableSummary } from './rating-table-summary';
 
@@ -42,8 +41,6 @@ function useEditorChoices(materialId: number | null) {
     sets: (material.data?.propertySets ?? []).filter((s) => s.status === 'published').map((s) => ({ id: s.lineageId ?? s.id, label: s.condition })),
   };
 }
-
-const serverErrors = (e: unknown): EditorErrors => (e instanceof ApiError ? e.fields : {});
 
 /** Rating tables on the desk: the open ones (drafts and reviews) and every published one. */
 export function RatingTablesDesk() {
@@ -106,8 +103,10 @@ export function NewRatingTablePage() {
   const materials = useQuery(materialsQueryOptions());
   const choices = useEditorChoices(materialId);
   const create = useCreateRatingTable();
-  const save = (draft: RatingTableDraftInput) =>
-    create.mutate(draft, { onSuccess: (t) => navigate(`/library/rating-tables/${t.id}`, { replace: true }) });
+  const save = async (draft: RatingTableDraftInput) => {
+    const t = await create.mutateAsync(draft);
+    navigate(`/library/rating-tables/${t.id}`, { replace: true });
+  };
   return (
     <div className="flex flex-col gap-4">
       <Breadcrumb here="New" />
@@ -124,8 +123,7 @@ export function NewRatingTablePage() {
       </Panel>
       {materialId ? (
         <Panel title="Draft">
-          <RatingTableEditor materialId={materialId} initial={EMPTY_EDITOR} references={choices.references} sets={choices.sets} busy={create.isPending} serverErrors={serverErrors(create.error)} onSave={save} />
-          {create.error && !Object.keys(serverErrors(create.error)).length ? <p role="alert" className="mt-2 text-sm font-bold text-verdict-fail">{(create.error as Error).message}</p> : null}
+          <RatingTableEditor materialId={materialId} initial={EMPTY_EDITOR} references={choices.references} sets={choices.sets} onSave={save} />
         </Panel>
       ) : null}
     </div>
@@ -195,15 +193,12 @@ export function RatingTablePage({ me }: { me: SessionUserDto | null | undefined 
             initial={initial}
             references={choices.references}
             sets={choices.sets}
-            busy={update.isPending}
-            serverErrors={serverErrors(update.error)}
-            onSave={(draft) => update.mutate({ lockVersion: t.lockVersion, draft }, { onSuccess: () => setSaved('Draft saved.') })}
+            onSave={async (draft) => {
+              await update.mutateAsync({ lockVersion: t.lockVersion, draft });
+              setSaved('Draft saved.');
+            }}
+            onReload={() => void query.refetch()}
           />
-          {update.error instanceof ApiError && update.error.code === 'stale' ? (
-            <p role="alert" className="mt-2 text-sm font-bold text-verdict-fail">
-              {update.error.message}
-            </p>
-          ) : null}
         </Panel>
       ) : (
         <RatingTableSummary table={t} />
