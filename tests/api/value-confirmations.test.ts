@@ -2,7 +2,7 @@
 // or rejected by another; approval marks the value confirmed on the set, and the audit log says so.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, signIn, type Agent } from '../helpers/app';
-import { createAccount, signInAs } from '../helpers/library';
+import { createAccount, draftBody, materialId, signInAs } from '../helpers/library';
 import { AuditEntry, PropertySet } from '../../server/db/models';
 
 let handle: Awaited<ReturnType<typeof startTestApp>>;
@@ -21,14 +21,20 @@ afterAll(async () => {
   await handle.stop();
 });
 
-async function publishedSetId(offset = 0): Promise<number> {
-  const rows = await PropertySet.findAll({ where: { status: 'published' }, order: [['id', 'ASC']], limit: 1, offset });
-  return rows[0].id;
+/** A published set (the `skip`-th such) holding `key` with a status other than confirmed. */
+async function setWithUnconfirmed(key: string, skip = 0): Promise<number> {
+  const rows = await PropertySet.findAll({ where: { status: 'published' }, order: [['id', 'ASC']] });
+  const open = rows.filter((r) => {
+    const row = r.get({ plain: true }) as Record<string, unknown> & { provenance?: Record<string, { status?: string }> | null };
+    return row[key] != null && row.provenance?.[key]?.status !== 'confirmed';
+  });
+  if (open.length <= skip) throw new Error(`the seed has fewer than ${skip + 1} published sets with ${key} unconfirmed`);
+  return open[skip].id;
 }
 
 describe('value confirmations', () => {
   it('refuses the proposer approving their own confirmation (403 own_work); another librarian approves it and the value reads confirmed', async () => {
-    const id = await publishedSetId(2);
+    const id = await setWithUnconfirmed('poissonsRatio');
     const before = (await engineer.get(`/api/property-sets/${id}`)).body;
     const proposed = await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'poissonsRatio', location: 'Table 2, row 4 (Poisson’s ratio 0.35)' });
     expect(proposed.status, JSON.stringify(proposed.body)).toBe(201);
@@ -54,7 +60,7 @@ describe('value confirmations', () => {
   });
 
   it('rejects with a comment and leaves the value as it was; one open proposal per value', async () => {
-    const id = await publishedSetId(3);
+    const id = await setWithUnconfirmed('density', 1);
     const p = await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'density', location: 'p. 7' });
     expect(p.status).toBe(201);
     const dup = await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'density', location: 'p. 8' });
@@ -70,10 +76,12 @@ describe('value confirmations', () => {
   });
 
   it('refuses a value the set does not have, a missing location, and a draft (400, 400, 409)', async () => {
-    const id = await publishedSetId(4);
+    const id = await setWithUnconfirmed('density', 2);
     expect((await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'notAValue', location: 'p. 1' })).status).toBe(400);
     expect((await librarian.post(`/api/library/sets/${id}/confirmations`).send({ key: 'density' })).status).toBe(400);
-    const draft = await PropertySet.findOne({ where: { status: 'draft' } });
-    if (draft) expect((await librarian.post(`/api/library/sets/${draft.id}/confirmations`).send({ key: 'density', location: 'p. 1' })).status).toBe(409);
+    const material = await materialId(librarian, 'Cast acrylic (PMMA)');
+    const draft = await librarian.post('/api/library/sets').send(draftBody(material));
+    expect(draft.status, JSON.stringify(draft.body)).toBe(201);
+    expect((await librarian.post(`/api/library/sets/${draft.body.id}/confirmations`).send({ key: 'density', location: 'p. 1' })).status).toBe(409);
   });
 });
