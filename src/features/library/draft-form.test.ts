@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkDraftForm, convertDraftForm, emptyDraftForm, formFromSet, formPathFor, parseNumber, serverErrorsToForm, toDraftInput } from './draft-form';
 import { harrowDraft } from './test-fixtures';
+import type { LibrarySetDto } from '@shared/schemas/library';
 
 describe('property-set editor form model', () => {
   it('shows a set in SI display units (MPa, GPa, %, °C) and builds the same SI draft back', () => {
@@ -118,6 +119,29 @@ describe('property-set editor form model', () => {
     expect(check.errors['reference.kind']).toBe('Choose one of the options');
     expect(check.errors['reference.title']).toBe('Required');
     expect(check.errors['reference.year']).toBe('Enter a number');
+  });
+
+  it('round-trips each value’s status claim, drops who confirmed it (the server keeps that), and sends nothing for a value not said', () => {
+    const set = harrowDraft({
+      provenance: {
+        tensileStrength: { status: 'confirmed', location: 'Table 2', confirmedBy: { id: 3, name: 'Tamsin Oyelaran' }, confirmedAt: '2026-11-30T10:00:00.000Z' },
+        shearStrength: { status: 'derived', rule: 'tensile yield/√3 (von Mises)' },
+      },
+    } as Partial<LibrarySetDto>);
+    const form = formFromSet(set, 'SI');
+    expect(form.provenance.tensileStrength).toEqual({ status: 'confirmed', location: 'Table 2', source: '', rule: '' });
+    expect(form.provenance.density.status).toBe('');
+    form.provenance.density = { status: 'demo', location: '', source: '', rule: '' };
+    const check = checkDraftForm(form, 'SI');
+    expect(check.ok).toBe(true);
+    if (!check.ok) return;
+    expect(check.draft.provenance).toEqual({
+      tensileStrength: { status: 'confirmed', location: 'Table 2' },
+      shearStrength: { status: 'derived', rule: 'tensile yield/√3 (von Mises)' },
+      density: { status: 'demo' },
+    });
+    expect(formPathFor('draft.provenance.tensileStrength.location')).toBe('provenance.tensileStrength.location');
+    expect(formPathFor('draft.provenance.density')).toBe('provenance.density.status');
   });
 
   it('maps the server’s field paths (POST and PUT bodies) onto the form', () => {

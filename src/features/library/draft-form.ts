@@ -1,4 +1,5 @@
 import type { z } from 'zod';
+import { PROVENANCE_KEYS, type ProvenanceKey, type ValueStatus, type ValueStatusRecord } from '@shared/schemas/provenance';
 import { draftInputSchema, type DraftData, type DraftInput } from '@shared/schemas/library';
 import {
   QUANTITIES,
@@ -63,7 +64,19 @@ export interface DraftForm extends Record<Quantity, string> {
   temperatureFactors: { temperature: string; factor: string }[];
   sustainedLoadFactors: { hours: string; factor: string }[];
   cyclicFactors: { cycles: string; factor: string }[];
+  /** Each value's status as claimed ('' = not said: recalled), with the location, other source or rule. */
+  provenance: Record<ProvenanceKey, StatusForm>;
 }
+
+export interface StatusForm {
+  status: ValueStatus | '';
+  location: string;
+  source: string;
+  rule: string;
+}
+
+const emptyStatuses = (): Record<ProvenanceKey, StatusForm> =>
+  Object.fromEntries(PROVENANCE_KEYS.map((k) => [k, { status: '', location: '', source: '', rule: '' }])) as Record<ProvenanceKey, StatusForm>;
 
 const emptyDetails = (): Record<Quantity, ValueDetailForm> =>
   Object.fromEntries(QUANTITIES.map((q) => [q, { basis: '', testMethod: '', temperature: '' }])) as Record<Quantity, ValueDetailForm>;
@@ -83,6 +96,7 @@ export function emptyDraftForm(): DraftForm {
     temperatureFactors: [],
     sustainedLoadFactors: [],
     cyclicFactors: [],
+    provenance: emptyStatuses(),
   };
 }
 
@@ -123,6 +137,9 @@ export function formFromSet(set: PropertySetDto, system: UnitSystem): DraftForm 
   form.temperatureFactors = set.temperatureFactors.map((p) => ({ temperature: showNumber('temperature', system, p.temperature), factor: tidy(p.factor) }));
   form.sustainedLoadFactors = set.sustainedLoadFactors.map((p) => ({ hours: tidy(p.hours), factor: tidy(p.factor) }));
   form.cyclicFactors = set.cyclicFactors.map((p) => ({ cycles: tidy(p.cycles), factor: tidy(p.factor) }));
+  for (const [k, e] of Object.entries(set.provenance ?? {}) as [ProvenanceKey, ValueStatusRecord][]) {
+    form.provenance[k] = { status: e.status, location: e.location ?? '', source: e.source ?? '', rule: e.rule ?? '' };
+  }
   return form;
 }
 
@@ -265,6 +282,15 @@ export function toDraftInput(form: DraftForm, system: UnitSystem, baseline?: Pro
     factor: num(`cyclicFactors.${i}.factor`, p.factor),
   }));
 
+  // The claims only: who confirmed and approved a value is the server's to keep (it keeps them for an unchanged value).
+  const provenance: Record<string, unknown> = {};
+  for (const k of PROVENANCE_KEYS) {
+    const p = form.provenance[k];
+    if (p.status === '') continue;
+    provenance[k] = { status: p.status, location: optionalText(p.location ?? ''), source: optionalText(p.source ?? ''), rule: optionalText(p.rule ?? '') };
+  }
+  input.provenance = provenance;
+
   return { input: input as DraftInput, errors };
 }
 
@@ -309,6 +335,8 @@ export function formPathFor(path: string): string {
   if (/^serviceTemperature(\.(min|max))?$/.test(p)) return p === 'serviceTemperature' ? 'serviceTemperature.min' : p;
   if (/^valueDetails\.[a-zA-Z]+\.(basis|testMethod|temperature)$/.test(p)) return p;
   if (/^valueDetails\.[a-zA-Z]+$/.test(p)) return `${p}.basis`;
+  if (/^provenance\.[a-zA-Z]+\.(status|location|source|rule)$/.test(p)) return p;
+  if (/^provenance\.[a-zA-Z]+$/.test(p)) return `${p}.status`;
   if (/^(temperatureFactors|sustainedLoadFactors|cyclicFactors)\.\d+\.[a-z]+$/i.test(p)) return p;
   if (/^(temperatureFactors|sustainedLoadFactors|cyclicFactors)(\.\d+)?$/.test(p)) return p.split('.')[0];
   return 'root';

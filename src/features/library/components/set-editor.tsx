@@ -18,6 +18,7 @@ import { convertDraftForm, draftFormSchema, emptyDraftForm, formFromSet, formPat
 import { SetHistory } from './set-history';
 import { MaterialSection, ReferenceSection } from './set-source-fields';
 import { DependenceSection, ValuesSection } from './set-values-editor';
+import { StatusSection } from './set-status-editor';
 
 type Banner = { tone: 'error' | 'info'; message: string } | null;
 
@@ -158,6 +159,9 @@ export function SetEditor({ set }: { set?: LibrarySetDto }) {
           </Panel>
           <Panel>
             <DependenceSection form={form} err={err} />
+          </Panel>
+          <Panel>
+            <StatusSection form={form} err={err} />
           </Panel>
         </div>
 
