@@ -1,5 +1,7 @@
 // The scalar quantities of a property set, apart from the schemas so every module can name them.
 
+import type { QuantityKind } from '../units';
+
 /**
  * Scalar quantities a property set may carry, all SI:
  * density kg/m³; moduli and strengths Pa; Poisson's ratio, elongation and
@@ -34,3 +36,17 @@ export const QUANTITY_LABELS: Record<Quantity, string> = {
   luminousTransmittance: 'Luminous transmittance',
 };
 
+/** Unit of each quantity on screen and in files (null: dimensionless). */
+export const QUANTITY_KIND: Record<Quantity, QuantityKind | null> = {
+  density: 'density',
+  youngsModulus: 'modulus',
+  poissonsRatio: null,
+  tensileStrength: 'stress',
+  tensileYield: 'stress',
+  compressiveStrength: 'stress',
+  compressiveYield: 'stress',
+  shearStrength: 'stress',
+  shearYield: 'stress',
+  elongation: 'fraction',
+  luminousTransmittance: 'fraction',
+};

@@ -70,3 +70,16 @@ export const SelectField = forwardRef<HTMLSelectElement, SelectProps>(function S
     </FieldShell>
   );
 });
+
+/** One option per value, shown by its label (for a SelectField over a shared list). */
+export function LabelledOptions<T extends string>({ values, labels }: { values: readonly T[]; labels: Record<T, string> }) {
+  return (
+    <>
+      {values.map((v) => (
+        <option key={v} value={v}>
+          {labels[v]}
+        </option>
+      ))}
+    </>
+  );
+}

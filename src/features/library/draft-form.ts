@@ -10,6 +10,7 @@ import {
   type ValueBasis,
   type ValueDetail,
 } from '@shared/schemas/catalogue';
+import { QUANTITY_KIND } from '@shared/schemas/quantities';
 import { checkedFormSchema } from '@/lib/form-schema';
 import { fromDisplay, toDisplay, type QuantityKind, type UnitSystem } from '@/lib/units';
 
@@ -19,20 +20,7 @@ import { fromDisplay, toDisplay, type QuantityKind, type UnitSystem } from '@/li
  * back under the same dotted paths the form uses (e.g. "valueDetails.tensileStrength.basis").
  */
 
-/** Unit of each quantity on screen (null: dimensionless). */
-export const QUANTITY_KIND: Record<Quantity, QuantityKind | null> = {
-  density: 'density',
-  youngsModulus: 'modulus',
-  poissonsRatio: null,
-  tensileStrength: 'stress',
-  tensileYield: 'stress',
-  compressiveStrength: 'stress',
-  compressiveYield: 'stress',
-  shearStrength: 'stress',
-  shearYield: 'stress',
-  elongation: 'fraction',
-  luminousTransmittance: 'fraction',
-};
+export { QUANTITY_KIND } from '@shared/schemas/quantities';
 
 /** Quantities every property set must carry (the rest are optional). */
 export const REQUIRED_QUANTITIES: readonly Quantity[] = [

@@ -7,7 +7,7 @@ import { TextField } from '@/components/ui/field';
 import { FormError } from '@/components/ui/form-error';
 import { setServerErrors } from '@/lib/field-errors';
 import { useRequestPasswordReset } from '../api/account';
-import { PublicCard } from './public-card';
+import { PublicCard } from '@/components/public-card';
 
 /** Asks for a reset link. The answer is the same whether or not the address has an account. */
 export function ForgotPasswordPage() {

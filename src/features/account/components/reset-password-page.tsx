@@ -9,7 +9,7 @@ import { setServerErrors } from '@/lib/field-errors';
 import { useResetPassword } from '../api/account';
 import { newPasswordFormSchema, plausibleToken } from '../password-form';
 import { NewPasswordFields } from './password-fields';
-import { PublicCard } from './public-card';
+import { PublicCard } from '@/components/public-card';
 
 /** /reset-password?token=…: choose a new password, then sign in with it. */
 export function ResetPasswordPage() {

@@ -10,7 +10,7 @@ import { setServerErrors } from '@/lib/field-errors';
 import { useAcceptInvitation } from '../api/account';
 import { plausibleToken, welcomeFormSchema } from '../password-form';
 import { NewPasswordFields } from './password-fields';
-import { PublicCard } from './public-card';
+import { PublicCard } from '@/components/public-card';
 
 /** /welcome?token=…: accept an invitation with a name and a password; signs in. */
 export function WelcomePage({ onSignedIn }: { onSignedIn: (user: SessionUserDto) => void }) {

@@ -5,7 +5,7 @@ import { ROLES, ROLE_LABELS, type Role } from '@shared/schemas/auth';
 import { invitationCreateSchema } from '@shared/schemas/projects';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { FormError } from '@/components/ui/form-error';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { ApiError } from '@/lib/api-client';
@@ -14,6 +14,7 @@ import { setServerErrors } from '@/lib/field-errors';
 import type { AdminUserDto, InvitationState } from '@shared/schemas/projects';
 import { useInvitations, useInvite, useUpdateUser, useUsers } from '../api/users';
 import { AdminNav } from './admin-nav';
+import { ColumnHeads } from '@/components/ui/column-heads';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 
@@ -42,11 +43,7 @@ function UserRow({ user, self, onToggle }: { user: AdminUserDto; self: boolean; 
           }}
           wrapperClassName="w-40"
         >
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {ROLE_LABELS[r]}
-            </option>
-          ))}
+          <LabelledOptions values={ROLES} labels={ROLE_LABELS} />
         </SelectField>
       </td>
       <td className="py-2 pr-3">
@@ -97,11 +94,7 @@ function InviteForm() {
       <div className="grid gap-3 sm:grid-cols-[1fr_12rem_auto] sm:items-start">
         <TextField label="E-mail" type="email" autoComplete="off" error={errors.email?.message} placeholder="name@harrow.example" {...form.register('email')} />
         <SelectField label="Role" error={errors.role?.message} {...form.register('role')}>
-          {ROLES.map((r) => (
-            <option key={r} value={r}>
-              {ROLE_LABELS[r]}
-            </option>
-          ))}
+          <LabelledOptions values={ROLES} labels={ROLE_LABELS} />
         </SelectField>
         <Button type="submit" className="sm:mt-5" disabled={invite.isPending}>
           {invite.isPending ? 'Sending…' : 'Send invitation'}
@@ -126,15 +119,7 @@ function Invitations() {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label="Invitations">
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th scope="col" className="py-1 pr-3">E-mail</th>
-            <th scope="col" className="py-1 pr-3">Role</th>
-            <th scope="col" className="py-1 pr-3">State</th>
-            <th scope="col" className="py-1 pr-3">Sent</th>
-            <th scope="col" className="py-1">Expires</th>
-          </tr>
-        </thead>
+        <ColumnHeads columns={['E-mail', 'Role', 'State', 'Sent', 'Expires']} />
         <tbody>
           {invitations.data.map((i) => (
             <tr key={i.id} className="border-t border-chart-line/60">
@@ -174,15 +159,7 @@ export function TeamPage({ meId }: { meId: number }) {
         ) : (
           <div className="overflow-x-auto">
             <table className="w-full text-sm" aria-label="People">
-              <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-                <tr>
-                  <th scope="col" className="py-1 pr-3">Name</th>
-                  <th scope="col" className="py-1 pr-3">E-mail</th>
-                  <th scope="col" className="py-1 pr-3">Role</th>
-                  <th scope="col" className="py-1 pr-3">Account</th>
-                  <th scope="col" className="py-1">Last signed in</th>
-                </tr>
-              </thead>
+              <ColumnHeads columns={['Name', 'E-mail', 'Role', 'Account', 'Last signed in']} />
               <tbody>
                 {users.data.map((u) => (
                   <UserRow

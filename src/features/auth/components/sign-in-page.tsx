@@ -7,7 +7,7 @@ import { TextField } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { setServerErrors } from '@/lib/field-errors';
-import { Logo } from '@/components/logo';
+import { PublicCard } from '@/components/public-card';
 
 export function SignInPage() {
   const navigate = useNavigate();
@@ -28,29 +28,20 @@ export function SignInPage() {
 
   const { errors, isSubmitting } = form.formState;
   return (
-    <main className="flex min-h-screen items-center justify-center bg-trench px-4">
-      <div className="w-full max-w-sm rounded-plate bg-chart-raised p-6 shadow-plate">
-        <div className="mb-5 flex items-center gap-3">
-          <Logo className="h-9 w-9" />
-          <div>
-            <h1 className="text-xl font-bold">Isobath</h1>
-            <p className="text-xs text-ink-soft">Windows and hulls for deep water, with their sources</p>
-          </div>
-        </div>
-        <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Sign in">
-          <TextField label="E-mail" type="email" autoComplete="username" autoFocus error={errors.email?.message} {...form.register('email')} />
-          <TextField label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...form.register('password')} />
-          <FormError message={errors.root?.message} />
-          <Button type="submit" disabled={isSubmitting}>
-            {isSubmitting ? 'Signing in…' : 'Sign in'}
-          </Button>
-        </form>
-        <p className="mt-4 text-center text-sm">
-          <Link to="/forgot-password" className="text-sounding underline hover:text-sounding-dark">
-            Forgot your password?
-          </Link>
-        </p>
-      </div>
-    </main>
+    <PublicCard>
+      <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Sign in">
+        <TextField label="E-mail" type="email" autoComplete="username" autoFocus error={errors.email?.message} {...form.register('email')} />
+        <TextField label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...form.register('password')} />
+        <FormError message={errors.root?.message} />
+        <Button type="submit" disabled={isSubmitting}>
+          {isSubmitting ? 'Signing in…' : 'Sign in'}
+        </Button>
+      </form>
+      <p className="mt-4 text-center text-sm">
+        <Link to="/forgot-password" className="text-sounding underline hover:text-sounding-dark">
+          Forgot your password?
+        </Link>
+      </p>
+    </PublicCard>
   );
 }

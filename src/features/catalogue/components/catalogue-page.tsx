@@ -5,7 +5,7 @@ import { FAMILIES, FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { usePropertySets } from '../api/property-sets';
 import { filtersFromSearch, serverFilters } from '../filters';
 import { CatalogueTable } from './catalogue-table';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { EmptyState, ErrorState, Spinner } from '@/components/ui/states';
 import { Button } from '@/components/ui/button';
 import { useUnits } from '@/lib/unit-system';
@@ -69,11 +69,7 @@ export function CataloguePage() {
         />
         <SelectField label="Family" value={filters.family ?? ''} onChange={(e) => setParam('family', e.target.value || undefined)}>
           <option value="">All families</option>
-          {FAMILIES.map((f) => (
-            <option key={f} value={f}>
-              {FAMILY_LABELS[f]}
-            </option>
-          ))}
+          <LabelledOptions values={FAMILIES} labels={FAMILY_LABELS} />
         </SelectField>
         <SelectField
           label="Transparency"

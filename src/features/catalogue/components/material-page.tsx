@@ -1,6 +1,7 @@
 import { lazy, Suspense } from 'react';
-import { Link, useParams, useSearchParams } from 'react-router-dom';
-import { FAMILY_LABELS, QUANTITIES, QUANTITY_LABELS, type PropertySetDto, type Quantity } from '@shared/schemas/catalogue';
+import { useParams, useSearchParams } from 'react-router-dom';
+import { FAMILY_LABELS, QUANTITIES, QUANTITY_LABELS, type PropertySetDto } from '@shared/schemas/catalogue';
+import { QUANTITY_KIND } from '@shared/schemas/quantities';
 import { useMaterial } from '../api/property-sets';
 import { ReferenceCard } from '@/components/reference-card';
 import { ValueStatusNote } from '@/components/inputs-mark';
@@ -8,43 +9,22 @@ import { VALUE_BASIS_LABELS } from '@shared/labels';
 import { engineInputKeys, inputStatus, inputStatusText, PROVENANCE_LABELS } from '@shared/schemas/provenance';
 import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
-import { toDisplay, type QuantityKind } from '@/lib/units';
+import { toDisplay } from '@/lib/units';
 import { RatingTableSummary, useRatingTables } from '@/features/rating-tables';
+import { ColumnHeads, numeric } from '@/components/ui/column-heads';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 const FactorChart = lazy(() => import('@/components/charts/factor-chart').then((m) => ({ default: m.FactorChart })));
-
-const KIND_OF: Record<Quantity, QuantityKind | null> = {
-  density: 'density',
-  youngsModulus: 'modulus',
-  poissonsRatio: null,
-  tensileStrength: 'stress',
-  tensileYield: 'stress',
-  compressiveStrength: 'stress',
-  compressiveYield: 'stress',
-  shearStrength: 'stress',
-  shearYield: 'stress',
-  elongation: 'fraction',
-  luminousTransmittance: 'fraction',
-};
 
 function ValuesTable({ set }: { set: PropertySetDto }) {
   const { format } = useUnits();
   const rows = QUANTITIES.filter((q) => set[q] !== null && set[q] !== undefined);
   return (
     <table className="w-full text-sm" aria-label="Values">
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th className="py-1 pr-3">Quantity</th>
-          <th className="py-1 pr-3 text-right">Value</th>
-          <th className="py-1 pr-3">Basis</th>
-          <th className="py-1 pr-3">Test method</th>
-          <th className="py-1 pr-3">Tested at</th>
-          <th className="py-1">Status</th>
-        </tr>
-      </thead>
+      <ColumnHeads columns={['Quantity', numeric('Value'), 'Basis', 'Test method', 'Tested at', 'Status']} />
       <tbody>
         {rows.map((q) => {
-          const kind = KIND_OF[q];
+          const kind = QUANTITY_KIND[q];
           const value = set[q] as number;
           const detail = set.valueDetails[q];
           return (
@@ -148,12 +128,7 @@ export function MaterialPage() {
 
   return (
     <div className="flex flex-col gap-4">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link to="/catalogue" className="text-sounding hover:underline">
-          Catalogue
-        </Link>{' '}
-        / {material.name}
-      </nav>
+      <Breadcrumb trail={[{ to: '/catalogue', label: 'Catalogue' }, { label: material.name }]} />
       <div>
         <h1 className="text-2xl font-bold">{material.name}</h1>
         <p className="text-sm text-ink-soft">

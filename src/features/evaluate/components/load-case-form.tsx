@@ -5,7 +5,7 @@ import { FAMILIES, FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { COMPONENT_TYPES, type EvaluateRequest } from '@shared/schemas/evaluate';
 import { COMPONENT_LABELS, WINDOW_COMPONENTS } from '@shared/labels';
 import { pressureFromDepth, DEFAULT_TARGET_SAFETY_FACTORS } from '@shared/engine';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { useUnits } from '@/lib/unit-system';
@@ -130,11 +130,7 @@ export function LoadCaseFormPanel({
 
       <Fieldset legend="Component">
         <SelectField label="Geometry" error={err('componentType')} {...register('componentType')}>
-          {COMPONENT_TYPES.map((t) => (
-            <option key={t} value={t}>
-              {COMPONENT_LABELS[t]}
-            </option>
-          ))}
+          <LabelledOptions values={COMPONENT_TYPES} labels={COMPONENT_LABELS} />
         </SelectField>
         <ComponentSketch type={v.componentType} labels={sketchLabels} />
         <div className="grid grid-cols-2 gap-2">
@@ -246,11 +242,7 @@ export function LoadCaseFormPanel({
         <div className="grid grid-cols-2 gap-2">
           <SelectField label="Family" {...register('family')}>
             <option value="">All families</option>
-            {FAMILIES.map((f) => (
-              <option key={f} value={f}>
-                {FAMILY_LABELS[f]}
-              </option>
-            ))}
+            <LabelledOptions values={FAMILIES} labels={FAMILY_LABELS} />
           </SelectField>
           <SelectField label="Transparency" {...register('transparent')}>
             <option value="">Any</option>

@@ -1,5 +1,4 @@
 import { useEffect, useRef, useState } from 'react';
-import { Link } from 'react-router-dom';
 import { IMPORT_MAX_BYTES, type ImportIssueDto } from '@shared/schemas/library';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { ApiError } from '@/lib/api-client';
@@ -10,6 +9,7 @@ import { PreviewPanel } from './import-preview';
 import { TemplatePanel } from './import-template';
 import { UploadPanel, type ImportPhase } from './import-upload';
 import { ProgressBar } from './progress';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 function useSeconds(since: number | null) {
   const [now, setNow] = useState(() => Date.now());
@@ -93,12 +93,7 @@ export function ImportPage() {
 
   return (
     <div className="flex flex-col gap-4">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link to="/library" className="text-sounding hover:underline">
-          Library desk
-        </Link>{' '}
-        / Import CSV
-      </nav>
+      <Breadcrumb trail={[{ to: '/library', label: 'Library desk' }, { label: 'Import CSV' }]} />
       <div>
         <h1 className="text-2xl font-bold">Import property sets from CSV</h1>
         <p className="text-sm text-ink-soft">

@@ -5,23 +5,14 @@ import { Button } from '@/components/ui/button';
 import { Panel } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
 import { IssuesTable } from './import-issues-table';
+import { ColumnHeads, numeric } from '@/components/ui/column-heads';
 
 function SampleTable({ sample }: { sample: ImportPreviewDto['sample'] }) {
   const { format, label } = useUnits();
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label="Sample rows">
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th scope="col" className="py-1 pr-3 text-right">Row</th>
-            <th scope="col" className="py-1 pr-3">Material</th>
-            <th scope="col" className="py-1 pr-3">Condition</th>
-            <th scope="col" className="py-1 pr-3">Source</th>
-            <th scope="col" className="py-1 pr-3 text-right">Tensile ({label('stress')})</th>
-            <th scope="col" className="py-1 pr-3 text-right">Compressive ({label('stress')})</th>
-            <th scope="col" className="py-1 text-right">Shear ({label('stress')})</th>
-          </tr>
-        </thead>
+        <ColumnHeads columns={[numeric('Row'), 'Material', 'Condition', 'Source', numeric(`Tensile (${label('stress')})`), numeric(`Compressive (${label('stress')})`), numeric(`Shear (${label('stress')})`)]} />
         <tbody>
           {sample.map((s) => (
             <tr key={s.row} className="border-t border-chart-line/60 align-top">

@@ -1,18 +1,13 @@
 import { IMPORT_COLUMNS } from '@shared/schemas/library';
 import { Panel, Tag } from '@/components/ui/states';
 import { TEMPLATE_URL } from '../api/csv-import';
+import { ColumnHeads } from '@/components/ui/column-heads';
 
 /** The template's columns, read from the one column list: name, required or not, unit, what to enter. */
 function ColumnsTable() {
   return (
     <table className="w-full text-sm" aria-label="Template columns">
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th scope="col" className="py-1 pr-3">Column</th>
-          <th scope="col" className="py-1 pr-3">Unit</th>
-          <th scope="col" className="py-1">What to enter</th>
-        </tr>
-      </thead>
+      <ColumnHeads columns={['Column', 'Unit', 'What to enter']} />
       <tbody>
         {IMPORT_COLUMNS.map((c) => (
           <tr key={c.name} className="border-t border-chart-line/60 align-top">

@@ -8,6 +8,8 @@ import { useLibrarySets, usePublishedSets } from '../api/library-sets';
 import { STATUS_LABELS, STATUS_TONE, formatDateTime } from '../labels';
 import { isOwnWork } from './review-panel';
 import { LinkButton } from '@/components/ui/link-button';
+import { ColumnHeads } from '@/components/ui/column-heads';
+import { Notice } from '@/components/ui/form-error';
 
 const setLink = (s: { id: number; material: { name: string }; condition: string }) => (
   <Link to={`/library/sets/${s.id}`} className="font-bold text-sounding hover:underline">
@@ -20,16 +22,7 @@ function SetTable({ label, items, columns }: { label: string; items: LibrarySetD
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label={label}>
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th scope="col" className="py-1 pr-3">Material and condition</th>
-            {columns.map((c) => (
-              <th key={c.header} scope="col" className="py-1 pr-3">
-                {c.header}
-              </th>
-            ))}
-          </tr>
-        </thead>
+        <ColumnHeads columns={['Material and condition', ...columns.map((c) => c.header)]} />
         <tbody>
           {items.map((s) => (
             <tr key={s.id} className="border-t border-chart-line/60 align-top">
@@ -124,11 +117,7 @@ export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
         </nav>
       </div>
 
-      {notice ? (
-        <p role="status" className="rounded-plate border border-verdict-pass/30 bg-white px-3 py-2 text-sm text-verdict-pass">
-          {notice}
-        </p>
-      ) : null}
+      <Notice message={notice} boxed />
 
       <div className="grid gap-5 xl:grid-cols-2">
         <div className="flex flex-col gap-5">

@@ -1,22 +1,22 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
-import { Link } from 'react-router-dom';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { createColumnHelper } from '@tanstack/react-table';
 import { REFERENCE_KINDS, type ReferenceInput } from '@shared/schemas/catalogue';
 import { DOCUMENT_MAX_BYTES, type ReferenceDetailDto } from '@shared/schemas/library';
 import { Button } from '@/components/ui/button';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { TableView, useSortableTable } from '@/components/ui/table-view';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { StaleBanner } from '@/components/stale-banner';
-import { FormError } from '@/components/ui/form-error';
+import { FormError, Notice } from '@/components/ui/form-error';
 import { ApiError, isStale } from '@/lib/api-client';
 import { setServerErrors } from '@/lib/field-errors';
 import { documentUrl, useCreateReference, useReference, useReferences, useUpdateReference, useUploadDocument } from '../api/references';
 import { REFERENCE_KIND_LABELS, formatBytes, formatDate } from '../labels';
 import { emptyReferenceForm, REFERENCE_FIELD_LABELS, referenceFormFrom, referenceFormSchema, type ReferenceForm } from '../reference-form';
 import { ProgressBar } from './progress';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 function useDebounced<T>(value: T, ms: number): T {
   const [v, setV] = useState(value);
@@ -230,11 +230,7 @@ function ReferenceEditor({
       <form onSubmit={submit} noValidate aria-label={reference ? 'Edit reference' : 'New reference'} className="flex flex-col gap-3">
         <SelectField label="Kind" error={err('kind')} {...register('kind')}>
           <option value="">Choose a kind…</option>
-          {REFERENCE_KINDS.map((k) => (
-            <option key={k} value={k}>
-              {REFERENCE_KIND_LABELS[k]}
-            </option>
-          ))}
+          <LabelledOptions values={REFERENCE_KINDS} labels={REFERENCE_KIND_LABELS} />
         </SelectField>
         <TextField label="Title" error={err('title')} {...register('title')} />
         <TextField label="Authors or issuer" error={err('authors')} {...register('authors')} />
@@ -246,11 +242,7 @@ function ReferenceEditor({
         <TextField label="Note" error={err('note')} {...register('note')} />
         {stale ? <StaleBanner message={stale.message} onReload={onReload} /> : null}
         <FormError message={formState.errors.root?.message} />
-        {notice ? (
-          <p role="status" className="text-sm font-bold text-verdict-pass">
-            {notice}
-          </p>
-        ) : null}
+        <Notice message={notice} />
         <div className="flex gap-2">
           <Button type="submit" disabled={busy}>
             {busy ? 'Saving…' : reference ? 'Save reference' : 'Create reference'}
@@ -282,12 +274,7 @@ export function ReferencesPage({ canDraft }: { canDraft: boolean }) {
 
   return (
     <div className="flex flex-col gap-4">
-      <nav aria-label="Breadcrumb" className="text-sm">
-        <Link to="/library" className="text-sounding hover:underline">
-          Library desk
-        </Link>{' '}
-        / References
-      </nav>
+      <Breadcrumb trail={[{ to: '/library', label: 'Library desk' }, { label: 'References' }]} />
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <h1 className="text-2xl font-bold">References</h1>

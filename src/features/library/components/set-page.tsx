@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link, useParams } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import { FAMILY_LABELS } from '@shared/schemas/catalogue';
 import type { LibrarySetDto } from '@shared/schemas/library';
 import type { SessionUserDto } from '@shared/schemas/auth';
@@ -14,17 +14,9 @@ import { PublishedActions, ReviewPanel } from './review-panel';
 import { SetEditor } from './set-editor';
 import { SetHistory } from './set-history';
 import { SetValues } from './set-values';
-
-function Breadcrumb({ here }: { here: string }) {
-  return (
-    <nav aria-label="Breadcrumb" className="no-print text-sm">
-      <Link to="/library" className="text-sounding hover:underline">
-        Library desk
-      </Link>{' '}
-      / {here}
-    </nav>
-  );
-}
+import { ColumnHeads } from '@/components/ui/column-heads';
+import { Notice } from '@/components/ui/form-error';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 
 function DependenceList({ set }: { set: LibrarySetDto }) {
@@ -66,13 +58,7 @@ function ChangesPanel({ set }: { set: LibrarySetDto }) {
             <p className="text-sm text-ink-soft">No values changed.</p>
           ) : (
             <table className="w-full text-sm" aria-label="Changes">
-              <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-                <tr>
-                  <th scope="col" className="py-1 pr-3">Field</th>
-                  <th scope="col" className="py-1 pr-3">Before</th>
-                  <th scope="col" className="py-1">After</th>
-                </tr>
-              </thead>
+              <ColumnHeads columns={['Field', 'Before', 'After']} />
               <tbody>
                 {rows.map((r) => (
                   <tr key={r.field} className="border-t border-chart-line/60 align-top">
@@ -96,11 +82,7 @@ function SetView({ set, me, onReload }: { set: LibrarySetDto; me: SessionUserDto
   const [notice, setNotice] = useState<string | null>(null);
   return (
     <div className="flex flex-col gap-4">
-      {notice ? (
-        <p role="status" className="rounded-plate border border-verdict-pass/30 bg-white px-3 py-2 text-sm font-bold text-verdict-pass">
-          {notice}
-        </p>
-      ) : null}
+      <Notice message={notice} boxed />
       <div className="grid gap-5 lg:grid-cols-[1fr_20rem]">
         <div className="flex min-w-0 flex-col gap-4">
           {compare ? (
@@ -164,7 +146,7 @@ export function SetPage({ me }: { me: SessionUserDto | null | undefined }) {
   const set = query.data;
   return (
     <div className="flex flex-col gap-4">
-      <Breadcrumb here={`${set.material.name} — ${set.condition}`} />
+      <Breadcrumb trail={[{ to: '/library', label: 'Library desk' }, { label: `${set.material.name} — ${set.condition}` }]} />
       <SetHeading set={set} />
       {set.status === 'draft' ? (
         <SetEditor key={set.id} set={set} />
@@ -178,7 +160,7 @@ export function SetPage({ me }: { me: SessionUserDto | null | undefined }) {
 export function NewSetPage() {
   return (
     <div className="flex flex-col gap-4">
-      <Breadcrumb here="New property set" />
+      <Breadcrumb trail={[{ to: '/library', label: 'Library desk' }, { label: 'New property set' }]} />
       <div>
         <h1 className="text-2xl font-bold">New property set</h1>
         <p className="text-sm text-ink-soft">One cited set of values for a material in one condition. It starts as your draft.</p>

@@ -1,7 +1,7 @@
 import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { FAMILIES, FAMILY_LABELS, REFERENCE_KINDS, type MaterialDto } from '@shared/schemas/catalogue';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { Spinner } from '@/components/ui/states';
 import { useMaterials } from '../api/library-sets';
 import { useReferences } from '../api/references';
@@ -13,12 +13,17 @@ import { Fieldset, type SetEditorSectionProps } from './set-editor-fieldset';
  * existing reference, a new one or none yet.
  */
 
-function Choice<T extends string>({ name, value, current, onChange, children }: { name: string; value: T; current: T; onChange: (v: T) => void; children: ReactNode }) {
+/** A row of radio buttons, one per choice, naming the group for assistive tech. */
+function Choices<T extends string>({ label, name, current, onChange, options }: { label: string; name: string; current: T; onChange: (v: T) => void; options: [T, ReactNode][] }) {
   return (
-    <label className="flex items-center gap-1.5 text-sm">
-      <input type="radio" name={name} value={value} checked={current === value} onChange={() => onChange(value)} />
-      {children}
-    </label>
+    <div role="radiogroup" aria-label={label} className="flex flex-wrap gap-4">
+      {options.map(([value, text]) => (
+        <label key={value} className="flex items-center gap-1.5 text-sm">
+          <input type="radio" name={name} value={value} checked={current === value} onChange={() => onChange(value)} />
+          {text}
+        </label>
+      ))}
+    </div>
   );
 }
 
@@ -31,14 +36,13 @@ export function MaterialSection({ form, err }: SetEditorSectionProps) {
   const mode = form.watch('materialMode');
   return (
     <Fieldset legend="Material and condition">
-      <div role="radiogroup" aria-label="Material: existing or new" className="flex flex-wrap gap-4">
-        <Choice name="materialMode" value="existing" current={mode} onChange={(v) => form.setValue('materialMode', v)}>
-          Existing material
-        </Choice>
-        <Choice name="materialMode" value="new" current={mode} onChange={(v) => form.setValue('materialMode', v)}>
-          New material
-        </Choice>
-      </div>
+      <Choices
+        label="Material: existing or new"
+        name="materialMode"
+        current={mode}
+        onChange={(v) => form.setValue('materialMode', v)}
+        options={[['existing', 'Existing material'], ['new', 'New material']]}
+      />
       {mode === 'existing' ? (
         materials.isPending ? (
           <Spinner label="Loading materials…" />
@@ -66,11 +70,7 @@ export function MaterialSection({ form, err }: SetEditorSectionProps) {
           <TextField label="Material name" error={err('material.name')} hint="Generic name, no trade names (e.g. “cast acrylic”)" {...form.register('material.name')} />
           <SelectField label="Family" error={err('material.family')} {...form.register('material.family')}>
             <option value="">Choose a family…</option>
-            {FAMILIES.map((f) => (
-              <option key={f} value={f}>
-                {FAMILY_LABELS[f]}
-              </option>
-            ))}
+            <LabelledOptions values={FAMILIES} labels={FAMILY_LABELS} />
           </SelectField>
           <label className="flex items-center gap-2 text-sm">
             <input type="checkbox" {...form.register('material.transparent')} /> Transparent (a window material)
@@ -88,17 +88,13 @@ export function ReferenceSection({ form, err }: SetEditorSectionProps) {
   const mode = form.watch('referenceMode');
   return (
     <Fieldset legend="Source">
-      <div role="radiogroup" aria-label="Reference: existing, new or none yet" className="flex flex-wrap gap-4">
-        <Choice name="referenceMode" value="existing" current={mode} onChange={(v) => form.setValue('referenceMode', v)}>
-          Existing reference
-        </Choice>
-        <Choice name="referenceMode" value="new" current={mode} onChange={(v) => form.setValue('referenceMode', v)}>
-          New reference
-        </Choice>
-        <Choice name="referenceMode" value="none" current={mode} onChange={(v) => form.setValue('referenceMode', v)}>
-          None yet
-        </Choice>
-      </div>
+      <Choices
+        label="Reference: existing, new or none yet"
+        name="referenceMode"
+        current={mode}
+        onChange={(v) => form.setValue('referenceMode', v)}
+        options={[['existing', 'Existing reference'], ['new', 'New reference'], ['none', 'None yet']]}
+      />
       {mode === 'existing' ? (
         references.isPending ? (
           <Spinner label="Loading references…" />
@@ -127,11 +123,7 @@ export function ReferenceSection({ form, err }: SetEditorSectionProps) {
         <div className="grid gap-3 md:grid-cols-2">
           <SelectField label="Kind" error={err('reference.kind')} {...form.register('reference.kind')}>
             <option value="">Choose a kind…</option>
-            {REFERENCE_KINDS.map((k) => (
-              <option key={k} value={k}>
-                {REFERENCE_KIND_LABELS[k]}
-              </option>
-            ))}
+            <LabelledOptions values={REFERENCE_KINDS} labels={REFERENCE_KIND_LABELS} />
           </SelectField>
           <TextField label="Title" error={err('reference.title')} {...form.register('reference.title')} />
           <TextField label="Authors or issuer" error={err('reference.authors')} {...form.register('reference.authors')} />

@@ -1,6 +1,8 @@
 import { PROVENANCE_KEYS, PROVENANCE_LABELS, VALUE_STATUSES, VALUE_STATUS_LABELS } from '@shared/schemas/provenance';
 import { CellInput, CellSelect } from './cells';
 import { Fieldset, type SetEditorSectionProps } from './set-editor-fieldset';
+import { ColumnHeads } from '@/components/ui/column-heads';
+import { LabelledOptions } from '@/components/ui/field';
 
 /**
  * The status of each value: not said (recalled), confirmed with where the source shows it,
@@ -15,14 +17,7 @@ export function StatusSection({ form, err }: SetEditorSectionProps) {
     >
       <div className="overflow-x-auto">
         <table className="w-full text-sm" aria-label="Status of each value">
-          <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-            <tr>
-              <th scope="col" className="py-1 pr-3">Value</th>
-              <th scope="col" className="w-44 py-1 pr-3">Status</th>
-              <th scope="col" className="py-1 pr-3">Location, or rule</th>
-              <th scope="col" className="py-1">Other source (when not the reference)</th>
-            </tr>
-          </thead>
+          <ColumnHeads columns={['Value', { label: 'Status', className: 'w-44' }, 'Location, or rule', 'Other source (when not the reference)']} />
           <tbody>
             {PROVENANCE_KEYS.map((k) => {
               const name = PROVENANCE_LABELS[k];
@@ -36,11 +31,7 @@ export function StatusSection({ form, err }: SetEditorSectionProps) {
                   <td className="py-1.5 pr-3">
                     <CellSelect label={`Status of ${lower}`} error={err(`provenance.${k}.status`)} {...form.register(`provenance.${k}.status`)}>
                       <option value="">not said (recalled)</option>
-                      {VALUE_STATUSES.map((s) => (
-                        <option key={s} value={s}>
-                          {VALUE_STATUS_LABELS[s]}
-                        </option>
-                      ))}
+                      <LabelledOptions values={VALUE_STATUSES} labels={VALUE_STATUS_LABELS} />
                     </CellSelect>
                   </td>
                   <td className="py-1.5 pr-3">

@@ -1,13 +1,14 @@
 import { useRef } from 'react';
 import { useFieldArray } from 'react-hook-form';
 import { QUANTITIES, QUANTITY_LABELS, VALUE_BASES, type Quantity } from '@shared/schemas/catalogue';
-import { TextField } from '@/components/ui/field';
+import { TextField, LabelledOptions } from '@/components/ui/field';
 import { useUnits } from '@/lib/unit-system';
 import { unitOf } from '@/lib/units';
 import { QUANTITY_KIND, REQUIRED_QUANTITIES } from '../draft-form';
 import { VALUE_BASIS_LABELS } from '../labels';
 import { CellInput, CellSelect } from './cells';
 import { Fieldset, type SetEditorSectionProps } from './set-editor-fieldset';
+import { ColumnHeads } from '@/components/ui/column-heads';
 
 /** The property-set editor's numbers: the values grid (value, basis, method, test temperature) and the dependence points. */
 
@@ -18,15 +19,7 @@ export function ValuesSection({ form, err }: SetEditorSectionProps) {
     <Fieldset legend="Values" hint={`Enter values in ${system === 'SI' ? 'SI' : 'US customary'} units (switch at the top right); they are saved in SI.`}>
       <div className="overflow-x-auto">
         <table className="w-full text-sm" aria-label="Values to enter">
-          <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-            <tr>
-              <th scope="col" className="py-1 pr-3">Quantity</th>
-              <th scope="col" className="w-32 py-1 pr-3">Value</th>
-              <th scope="col" className="w-44 py-1 pr-3">Basis</th>
-              <th scope="col" className="py-1 pr-3">Test method</th>
-              <th scope="col" className="w-28 py-1">Tested at ({label('temperature')})</th>
-            </tr>
-          </thead>
+          <ColumnHeads columns={['Quantity', { label: 'Value', className: 'w-32' }, { label: 'Basis', className: 'w-44' }, 'Test method', { label: `Tested at (${label('temperature')})`, className: 'w-28' }]} />
           <tbody>
             {QUANTITIES.map((q: Quantity) => {
               const kind = QUANTITY_KIND[q];
@@ -49,11 +42,7 @@ export function ValuesSection({ form, err }: SetEditorSectionProps) {
                   <td className="py-1.5 pr-3">
                     <CellSelect label={`Basis of ${lower}`} error={err(`valueDetails.${q}.basis`)} {...form.register(`valueDetails.${q}.basis`)}>
                       <option value="">—</option>
-                      {VALUE_BASES.map((b) => (
-                        <option key={b} value={b}>
-                          {VALUE_BASIS_LABELS[b]}
-                        </option>
-                      ))}
+                      <LabelledOptions values={VALUE_BASES} labels={VALUE_BASIS_LABELS} />
                     </CellSelect>
                   </td>
                   <td className="py-1.5 pr-3">

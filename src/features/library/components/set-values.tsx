@@ -3,6 +3,7 @@ import { useUnits } from '@/lib/unit-system';
 import { changedCells, type ValueCell } from '../changes';
 import { QUANTITY_KIND } from '../draft-form';
 import { VALUE_BASIS_LABELS } from '../labels';
+import { ColumnHeads, numeric } from '@/components/ui/column-heads';
 
 type Row = Quantity | 'serviceTemperature.min' | 'serviceTemperature.max';
 
@@ -50,15 +51,7 @@ export function SetValues({ set, previous = null }: { set: PropertySetDto; previ
 
   return (
     <table className="w-full text-sm" aria-label={previous ? 'Values against the previous version' : 'Values'}>
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th scope="col" className="py-1 pr-3">Quantity</th>
-          <th scope="col" className="py-1 pr-3 text-right">Value</th>
-          <th scope="col" className="py-1 pr-3">Basis</th>
-          <th scope="col" className="py-1 pr-3">Test method</th>
-          <th scope="col" className="py-1">Tested at</th>
-        </tr>
-      </thead>
+      <ColumnHeads columns={['Quantity', numeric('Value'), 'Basis', 'Test method', 'Tested at']} />
       <tbody>
         {rows.map((q) => (
           <tr key={q} className="border-t border-chart-line/60">

@@ -26,8 +26,10 @@ import {
 } from '../api/projects';
 import { summarizeLoadCase } from '../load-case-text';
 import type { Viewer } from '../shortlist-model';
-import { Breadcrumb, ShortlistStatusTag } from './bits';
+import { ShortlistStatusTag } from './bits';
 import { ProjectFormDialog } from './project-form-dialog';
+import { ColumnHeads, numeric } from '@/components/ui/column-heads';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 
@@ -140,14 +142,7 @@ function LoadCases({ projectId, canEvaluate }: { projectId: number; canEvaluate:
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label="Load cases">
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th scope="col" className="py-1 pr-3">Load case</th>
-            <th scope="col" className="py-1 pr-3">Saved by</th>
-            <th scope="col" className="py-1 pr-3">Updated</th>
-            <th scope="col" className="py-1" />
-          </tr>
-        </thead>
+        <ColumnHeads columns={['Load case', 'Saved by', 'Updated', '']} />
         <tbody>
           {loadCases.data.map((lc) => (
             <tr key={lc.id} className="border-t border-chart-line/60 align-top">
@@ -189,16 +184,7 @@ function Shortlists({ projectId }: { projectId: number }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label="Shortlists">
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th scope="col" className="py-1 pr-3">Shortlist</th>
-            <th scope="col" className="py-1 pr-3">Status</th>
-            <th scope="col" className="py-1 pr-3">Author</th>
-            <th scope="col" className="py-1 pr-3 text-right">Candidates</th>
-            <th scope="col" className="py-1 pr-3">Updated</th>
-            <th scope="col" className="py-1">Record</th>
-          </tr>
-        </thead>
+        <ColumnHeads columns={['Shortlist', 'Status', 'Author', numeric('Candidates'), 'Updated', 'Record']} />
         <tbody>
           {shortlists.data.map((s) => (
             <tr key={s.id} className="border-t border-chart-line/60 align-top">
@@ -241,15 +227,7 @@ function Records({ projectId }: { projectId: number }) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label="Design records">
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th scope="col" className="py-1 pr-3">Record</th>
-            <th scope="col" className="py-1 pr-3">Load case</th>
-            <th scope="col" className="py-1 pr-3">Author</th>
-            <th scope="col" className="py-1 pr-3">Checker</th>
-            <th scope="col" className="py-1">Checked</th>
-          </tr>
-        </thead>
+        <ColumnHeads columns={['Record', 'Load case', 'Author', 'Checker', 'Checked']} />
         <tbody>
           {records.data.map((r) => (
             <tr key={r.id} className="border-t border-chart-line/60 align-top">

@@ -5,6 +5,7 @@ import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
 import { formatDate } from '@/lib/dates';
 import { useCreateProject, useProjects } from '../api/projects';
 import { ProjectFormDialog } from './project-form-dialog';
+import { ColumnHeads, numeric } from '@/components/ui/column-heads';
 
 function WhatAProjectHolds() {
   return (
@@ -60,17 +61,7 @@ export function ProjectsPage({ canCreate }: { canCreate: boolean }) {
         <Panel>
           <div className="overflow-x-auto">
             <table className="w-full text-sm" aria-label="Projects">
-              <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-                <tr>
-                  <th scope="col" className="py-1 pr-3">Project</th>
-                  <th scope="col" className="py-1 pr-3">Owner</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Members</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Load cases</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Shortlists</th>
-                  <th scope="col" className="py-1 pr-3 text-right">Checked</th>
-                  <th scope="col" className="py-1">Updated</th>
-                </tr>
-              </thead>
+              <ColumnHeads columns={['Project', 'Owner', numeric('Members'), numeric('Load cases'), numeric('Shortlists'), numeric('Checked'), 'Updated']} />
               <tbody>
                 {projects.data.map((p) => (
                   <tr key={p.id} className="border-t border-chart-line/60 align-top">

@@ -10,10 +10,12 @@ import { formatDateTime } from '@/lib/dates';
 import { useUnits } from '@/lib/unit-system';
 import { REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
 import { designRecordPdfUrl, useDesignRecord } from '../api/shortlists';
-import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
+import { LoadCaseFacts, SetName } from './bits';
 import { Rounds } from './rounds';
 import { describeInputs, VALUE_STATUS_LABELS } from '@shared/schemas/provenance';
 import './record-print.css';
+import { ColumnHeads } from '@/components/ui/column-heads';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
 
@@ -30,14 +32,7 @@ function Section({ title, children, className = '', keepTogether = false }: { ti
 function SignOff({ content }: { content: DesignRecordContent }) {
   return (
     <table className="w-full text-sm" aria-label="Sign-off">
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th scope="col" className="py-1 pr-3" />
-          <th scope="col" className="py-1 pr-3">Name</th>
-          <th scope="col" className="py-1 pr-3">E-mail</th>
-          <th scope="col" className="py-1">Date</th>
-        </tr>
-      </thead>
+      <ColumnHeads columns={['', 'Name', 'E-mail', 'Date']} />
       <tbody>
         <tr className="border-t border-chart-line/60">
           <th scope="row" className="py-1.5 pr-3 text-left">Prepared and submitted</th>

@@ -11,11 +11,12 @@ import { useUnits } from '@/lib/unit-system';
 import { useProject } from '../api/projects';
 import { useShortlist, useShortlistStep } from '../api/shortlists';
 import { moveItem, shortlistRights, type ShortlistRights, type Viewer } from '../shortlist-model';
-import { Breadcrumb, LoadCaseFacts, SetName } from './bits';
+import { LoadCaseFacts, SetName } from './bits';
 import { ComparisonTable } from './comparison-table';
 import { SignOff, StatusBanner } from './sign-off';
 import { Rounds } from './rounds';
 import { formatDateTime } from '@/lib/dates';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 const isStale = (err: unknown) => err instanceof ApiError && err.status === 409 && (err.code === 'stale' || err.code === 'wrong_status');

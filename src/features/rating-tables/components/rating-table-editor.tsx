@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import type { RatingTableDraftInput } from '@shared/schemas/rating-tables';
 import { RATING_GEOMETRIES, RATING_GEOMETRY_LABELS, RATIO_LABEL } from '@shared/schemas/rating-tables';
 import { StaleBanner } from '@/components/stale-banner';
-import { SelectField, TextField } from '@/components/ui/field';
+import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { FormError } from '@/components/ui/form-error';
 import { TextAreaField } from '@/components/ui/text-area';
 import { Button } from '@/components/ui/button';
@@ -105,11 +105,7 @@ export function RatingTableEditor({
       <div className="grid gap-3 md:grid-cols-2">
         <TextField label="Name" {...register('name')} error={err('content.name')} />
         <SelectField label="Geometry" {...register('geometry')} error={err('content.geometry')}>
-          {RATING_GEOMETRIES.map((g) => (
-            <option key={g} value={g}>
-              {RATING_GEOMETRY_LABELS[g]}
-            </option>
-          ))}
+          <LabelledOptions values={RATING_GEOMETRIES} labels={RATING_GEOMETRY_LABELS} />
         </SelectField>
         {s.geometry !== 'flat-disc' ? (
           <div className="grid grid-cols-2 gap-2">

@@ -14,23 +14,10 @@ import { useCreateRatingTable, useRatingTable, useRatingTables, useRatingTableSt
 import { EMPTY_EDITOR, editorFrom } from '../editor-model';
 import { RatingTableEditor } from './rating-table-editor';
 import { RatingTableSummary } from './rating-table-summary';
+import { ColumnHeads } from '@/components/ui/column-heads';
+import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 const TONE = { draft: 'brass', 'in-review': 'sounding', published: 'pass', retired: 'neutral' } as const;
-
-function Breadcrumb({ here }: { here: string }) {
-  return (
-    <nav aria-label="Breadcrumb" className="text-sm">
-      <Link to="/library" className="text-sounding hover:underline">
-        Library desk
-      </Link>{' '}
-      /{' '}
-      <Link to="/library/rating-tables" className="text-sounding hover:underline">
-        Rating tables
-      </Link>{' '}
-      / {here}
-    </nav>
-  );
-}
 
 /** The choices the editor needs: references and the material's property-set lineages. */
 function useEditorChoices(materialId: number | null) {
@@ -63,20 +50,13 @@ export function RatingTablesDesk() {
   );
   const table = (label: string, items: RatingTableDto[]) => (
     <table className="w-full text-sm" aria-label={label}>
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th className="py-1 pr-3">Table and material</th>
-          <th className="py-1 pr-3">Geometry</th>
-          <th className="py-1 pr-3">Status</th>
-          <th className="py-1">Version</th>
-        </tr>
-      </thead>
+      <ColumnHeads columns={['Table and material', 'Geometry', 'Status', 'Version']} />
       <tbody>{items.map(row)}</tbody>
     </table>
   );
   return (
     <div className="flex flex-col gap-4">
-      <Breadcrumb here="All" />
+      <Breadcrumb trail={[{ to: '/library', label: 'Library desk' }, { to: '/library/rating-tables', label: 'Rating tables' }, { label: 'All' }]} />
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
           <h1 className="text-2xl font-bold">Rating tables</h1>
@@ -109,7 +89,7 @@ export function NewRatingTablePage() {
   };
   return (
     <div className="flex flex-col gap-4">
-      <Breadcrumb here="New" />
+      <Breadcrumb trail={[{ to: '/library', label: 'Library desk' }, { to: '/library/rating-tables', label: 'Rating tables' }, { label: 'New' }]} />
       <h1 className="text-2xl font-bold">New rating table</h1>
       <Panel>
         <SelectField label="Material" value={materialId ?? ''} onChange={(e) => setParams({ material: e.target.value }, { replace: true })} hint="The table applies to sets of this material">
@@ -150,7 +130,7 @@ export function RatingTablePage({ me }: { me: SessionUserDto | null | undefined 
   };
   return (
     <div className="flex flex-col gap-4">
-      <Breadcrumb here={t.content.name} />
+      <Breadcrumb trail={[{ to: '/library', label: 'Library desk' }, { to: '/library/rating-tables', label: 'Rating tables' }, { label: t.content.name }]} />
       <div className="flex flex-wrap items-start justify-between gap-3">
         <div>
           <h1 className="text-2xl font-bold">{t.content.name}</h1>
