@@ -5,7 +5,7 @@ import { allowedSteps, stepCommentSchema, type StepAvailability, type StepRule, 
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { TextAreaField } from '@/components/ui/text-area';
-import { ApiError } from '@/lib/api-client';
+import { ApiError, isStale } from '@/lib/api-client';
 import { mapServerErrors } from '@/lib/field-errors';
 
 /** The steps worth showing: those open now, and those the viewer could take but may not yet (with why). */
@@ -56,7 +56,8 @@ function StepDialog<S extends string, N extends string>({
       const mapped = mapServerErrors(err, { comment: 'Comment', reason: 'Reason' });
       const field = mapped.fields.comment ?? mapped.fields.reason;
       if (field) form.setError('comment', { message: field });
-      const stale = err instanceof ApiError && err.status === 409 && (err.code === 'stale' || err.code === 'wrong_status');
+      // Stale, or the status moved on under the reader: either way the page must be reloaded.
+      const stale = isStale(err) || (err instanceof ApiError && err.status === 409 && err.code === 'wrong_status');
       setError({ message: mapped.root ?? (field ? 'Check the comment.' : 'The step did not go through.'), stale });
     }
   });

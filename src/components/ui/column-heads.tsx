@@ -27,3 +27,15 @@ export function ColumnHeads({ columns, className = '' }: { columns: ColumnHead[]
 
 /** A right-aligned column of numbers. */
 export const numeric = (label: ReactNode): ColumnHead => ({ label, numeric: true });
+
+/** A plain (unsorted) table that scrolls sideways on a narrow screen: its label, headings and rows. */
+export function PlainTable({ label, columns, children }: { label: string; columns: ColumnHead[]; children: ReactNode }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label={label}>
+        <ColumnHeads columns={columns} />
+        <tbody>{children}</tbody>
+      </table>
+    </div>
+  );
+}

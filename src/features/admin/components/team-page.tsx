@@ -14,7 +14,7 @@ import { setServerErrors } from '@/lib/field-errors';
 import type { AdminUserDto, InvitationState } from '@shared/schemas/projects';
 import { useInvitations, useInvite, useUpdateUser, useUsers } from '../api/users';
 import { AdminNav } from './admin-nav';
-import { ColumnHeads } from '@/components/ui/column-heads';
+import { PlainTable } from '@/components/ui/column-heads';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 
@@ -117,24 +117,19 @@ function Invitations() {
   if (invitations.isError) return <ErrorState error={invitations.error} onRetry={() => void invitations.refetch()} />;
   if (!invitations.data.length) return <EmptyState title="No invitations yet">Invite a colleague above; the invitation shows here until it is accepted or expires.</EmptyState>;
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label="Invitations">
-        <ColumnHeads columns={['E-mail', 'Role', 'State', 'Sent', 'Expires']} />
-        <tbody>
-          {invitations.data.map((i) => (
-            <tr key={i.id} className="border-t border-chart-line/60">
-              <td className="py-1.5 pr-3">{i.email}</td>
-              <td className="py-1.5 pr-3">{ROLE_LABELS[i.role]}</td>
-              <td className="py-1.5 pr-3">
-                <Tag tone={STATE_TONE[i.state]}>{STATE_LABEL[i.state]}</Tag>
-              </td>
-              <td className="whitespace-nowrap py-1.5 pr-3">{formatDateTime(i.createdAt)}</td>
-              <td className="whitespace-nowrap py-1.5">{i.state === 'accepted' ? '—' : formatDateTime(i.expiresAt)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <PlainTable label="Invitations" columns={['E-mail', 'Role', 'State', 'Sent', 'Expires']}>
+      {invitations.data.map((i) => (
+        <tr key={i.id} className="border-t border-chart-line/60">
+          <td className="py-1.5 pr-3">{i.email}</td>
+          <td className="py-1.5 pr-3">{ROLE_LABELS[i.role]}</td>
+          <td className="py-1.5 pr-3">
+            <Tag tone={STATE_TONE[i.state]}>{STATE_LABEL[i.state]}</Tag>
+          </td>
+          <td className="whitespace-nowrap py-1.5 pr-3">{formatDateTime(i.createdAt)}</td>
+          <td className="whitespace-nowrap py-1.5">{i.state === 'accepted' ? '—' : formatDateTime(i.expiresAt)}</td>
+        </tr>
+      ))}
+    </PlainTable>
   );
 }
 
@@ -157,24 +152,19 @@ export function TeamPage({ meId }: { meId: number }) {
         ) : users.isError ? (
           <ErrorState error={users.error} onRetry={() => void users.refetch()} />
         ) : (
-          <div className="overflow-x-auto">
-            <table className="w-full text-sm" aria-label="People">
-              <ColumnHeads columns={['Name', 'E-mail', 'Role', 'Account', 'Last signed in']} />
-              <tbody>
-                {users.data.map((u) => (
-                  <UserRow
-                    key={u.id}
-                    user={u}
-                    self={u.id === meId}
-                    onToggle={(user) => {
-                      update.reset();
-                      setToggling(user);
-                    }}
-                  />
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <PlainTable label="People" columns={['Name', 'E-mail', 'Role', 'Account', 'Last signed in']}>
+            {users.data.map((u) => (
+              <UserRow
+                key={u.id}
+                user={u}
+                self={u.id === meId}
+                onToggle={(user) => {
+                  update.reset();
+                  setToggling(user);
+                }}
+              />
+            ))}
+          </PlainTable>
         )}
       </Panel>
       <Panel title="Invite someone">

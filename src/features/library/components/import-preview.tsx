@@ -5,32 +5,27 @@ import { Button } from '@/components/ui/button';
 import { Panel } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
 import { IssuesTable } from './import-issues-table';
-import { ColumnHeads, numeric } from '@/components/ui/column-heads';
+import { numeric, PlainTable } from '@/components/ui/column-heads';
 
 function SampleTable({ sample }: { sample: ImportPreviewDto['sample'] }) {
   const { format, label } = useUnits();
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label="Sample rows">
-        <ColumnHeads columns={[numeric('Row'), 'Material', 'Condition', 'Source', numeric(`Tensile (${label('stress')})`), numeric(`Compressive (${label('stress')})`), numeric(`Shear (${label('stress')})`)]} />
-        <tbody>
-          {sample.map((s) => (
-            <tr key={s.row} className="border-t border-chart-line/60 align-top">
-              <td className="py-1 pr-3 text-right">{s.row}</td>
-              <td className="py-1 pr-3">
-                {s.material}
-                <span className="block text-xs text-ink-soft">{FAMILY_LABELS[s.family as Family] ?? s.family}</span>
-              </td>
-              <td className="py-1 pr-3">{s.condition}</td>
-              <td className="py-1 pr-3 text-xs">{s.reference}</td>
-              <td className="py-1 pr-3 text-right">{format('stress', s.tensileStrength, { unit: false })}</td>
-              <td className="py-1 pr-3 text-right">{format('stress', s.compressiveStrength, { unit: false })}</td>
-              <td className="py-1 text-right">{format('stress', s.shearStrength, { unit: false })}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <PlainTable label="Sample rows" columns={[numeric('Row'), 'Material', 'Condition', 'Source', numeric(`Tensile (${label('stress')})`), numeric(`Compressive (${label('stress')})`), numeric(`Shear (${label('stress')})`)]}>
+      {sample.map((s) => (
+        <tr key={s.row} className="border-t border-chart-line/60 align-top">
+          <td className="py-1 pr-3 text-right">{s.row}</td>
+          <td className="py-1 pr-3">
+            {s.material}
+            <span className="block text-xs text-ink-soft">{FAMILY_LABELS[s.family as Family] ?? s.family}</span>
+          </td>
+          <td className="py-1 pr-3">{s.condition}</td>
+          <td className="py-1 pr-3 text-xs">{s.reference}</td>
+          <td className="py-1 pr-3 text-right">{format('stress', s.tensileStrength, { unit: false })}</td>
+          <td className="py-1 pr-3 text-right">{format('stress', s.compressiveStrength, { unit: false })}</td>
+          <td className="py-1 text-right">{format('stress', s.shearStrength, { unit: false })}</td>
+        </tr>
+      ))}
+    </PlainTable>
   );
 }
 

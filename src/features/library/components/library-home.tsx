@@ -8,7 +8,7 @@ import { useLibrarySets, usePublishedSets } from '../api/library-sets';
 import { STATUS_LABELS, STATUS_TONE, formatDateTime } from '../labels';
 import { isOwnWork } from './review-panel';
 import { LinkButton } from '@/components/ui/link-button';
-import { ColumnHeads } from '@/components/ui/column-heads';
+import { PlainTable } from '@/components/ui/column-heads';
 import { Notice } from '@/components/ui/form-error';
 
 const setLink = (s: { id: number; material: { name: string }; condition: string }) => (
@@ -20,23 +20,18 @@ const setLink = (s: { id: number; material: { name: string }; condition: string 
 
 function SetTable({ label, items, columns }: { label: string; items: LibrarySetDto[]; columns: { header: string; cell: (s: LibrarySetDto) => ReactNode }[] }) {
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label={label}>
-        <ColumnHeads columns={['Material and condition', ...columns.map((c) => c.header)]} />
-        <tbody>
-          {items.map((s) => (
-            <tr key={s.id} className="border-t border-chart-line/60 align-top">
-              <td className="py-1.5 pr-3">{setLink(s)}</td>
-              {columns.map((c) => (
-                <td key={c.header} className="py-1.5 pr-3">
-                  {c.cell(s)}
-                </td>
-              ))}
-            </tr>
+    <PlainTable label={label} columns={['Material and condition', ...columns.map((c) => c.header)]}>
+      {items.map((s) => (
+        <tr key={s.id} className="border-t border-chart-line/60 align-top">
+          <td className="py-1.5 pr-3">{setLink(s)}</td>
+          {columns.map((c) => (
+            <td key={c.header} className="py-1.5 pr-3">
+              {c.cell(s)}
+            </td>
           ))}
-        </tbody>
-      </table>
-    </div>
+        </tr>
+      ))}
+    </PlainTable>
   );
 }
 

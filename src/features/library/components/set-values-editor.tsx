@@ -8,7 +8,7 @@ import { QUANTITY_KIND, REQUIRED_QUANTITIES } from '../draft-form';
 import { VALUE_BASIS_LABELS } from '../labels';
 import { CellInput, CellSelect } from './cells';
 import { Fieldset, type SetEditorSectionProps } from './set-editor-fieldset';
-import { ColumnHeads } from '@/components/ui/column-heads';
+import { PlainTable } from '@/components/ui/column-heads';
 
 /** The property-set editor's numbers: the values grid (value, basis, method, test temperature) and the dependence points. */
 
@@ -17,46 +17,41 @@ export function ValuesSection({ form, err }: SetEditorSectionProps) {
   const transparent = form.watch('material.transparent');
   return (
     <Fieldset legend="Values" hint={`Enter values in ${system === 'SI' ? 'SI' : 'US customary'} units (switch at the top right); they are saved in SI.`}>
-      <div className="overflow-x-auto">
-        <table className="w-full text-sm" aria-label="Values to enter">
-          <ColumnHeads columns={['Quantity', { label: 'Value', className: 'w-32' }, { label: 'Basis', className: 'w-44' }, 'Test method', { label: `Tested at (${label('temperature')})`, className: 'w-28' }]} />
-          <tbody>
-            {QUANTITIES.map((q: Quantity) => {
-              const kind = QUANTITY_KIND[q];
-              const unit = kind ? unitOf(kind, system).label : '';
-              const name = QUANTITY_LABELS[q];
-              const required = REQUIRED_QUANTITIES.includes(q);
-              const lower = name.charAt(0).toLowerCase() + name.slice(1);
-              return (
-                <tr key={q} className="border-t border-chart-line/60 align-top">
-                  <th scope="row" className="py-1.5 pr-3 text-left font-normal">
-                    {name} {unit ? <span className="text-ink-faint">({unit})</span> : null}
-                    {required ? <span className="ml-1 text-xs text-ink-faint">required</span> : null}
-                    {q === 'luminousTransmittance' && !transparent && form.watch('materialMode') === 'new' ? (
-                      <span className="block text-xs text-ink-faint">for transparent materials</span>
-                    ) : null}
-                  </th>
-                  <td className="py-1.5 pr-3">
-                    <CellInput label={name} inputMode="decimal" error={err(q)} {...form.register(q)} />
-                  </td>
-                  <td className="py-1.5 pr-3">
-                    <CellSelect label={`Basis of ${lower}`} error={err(`valueDetails.${q}.basis`)} {...form.register(`valueDetails.${q}.basis`)}>
-                      <option value="">—</option>
-                      <LabelledOptions values={VALUE_BASES} labels={VALUE_BASIS_LABELS} />
-                    </CellSelect>
-                  </td>
-                  <td className="py-1.5 pr-3">
-                    <CellInput label={`Test method of ${lower}`} placeholder="e.g. ASTM D638" error={err(`valueDetails.${q}.testMethod`)} {...form.register(`valueDetails.${q}.testMethod`)} />
-                  </td>
-                  <td className="py-1.5">
-                    <CellInput label={`Test temperature of ${lower}`} inputMode="decimal" error={err(`valueDetails.${q}.temperature`)} {...form.register(`valueDetails.${q}.temperature`)} />
-                  </td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
+      <PlainTable label="Values to enter" columns={['Quantity', { label: 'Value', className: 'w-32' }, { label: 'Basis', className: 'w-44' }, 'Test method', { label: `Tested at (${label('temperature')})`, className: 'w-28' }]}>
+        {QUANTITIES.map((q: Quantity) => {
+          const kind = QUANTITY_KIND[q];
+          const unit = kind ? unitOf(kind, system).label : '';
+          const name = QUANTITY_LABELS[q];
+          const required = REQUIRED_QUANTITIES.includes(q);
+          const lower = name.charAt(0).toLowerCase() + name.slice(1);
+          return (
+            <tr key={q} className="border-t border-chart-line/60 align-top">
+              <th scope="row" className="py-1.5 pr-3 text-left font-normal">
+                {name} {unit ? <span className="text-ink-faint">({unit})</span> : null}
+                {required ? <span className="ml-1 text-xs text-ink-faint">required</span> : null}
+                {q === 'luminousTransmittance' && !transparent && form.watch('materialMode') === 'new' ? (
+                  <span className="block text-xs text-ink-faint">for transparent materials</span>
+                ) : null}
+              </th>
+              <td className="py-1.5 pr-3">
+                <CellInput label={name} inputMode="decimal" error={err(q)} {...form.register(q)} />
+              </td>
+              <td className="py-1.5 pr-3">
+                <CellSelect label={`Basis of ${lower}`} error={err(`valueDetails.${q}.basis`)} {...form.register(`valueDetails.${q}.basis`)}>
+                  <option value="">—</option>
+                  <LabelledOptions values={VALUE_BASES} labels={VALUE_BASIS_LABELS} />
+                </CellSelect>
+              </td>
+              <td className="py-1.5 pr-3">
+                <CellInput label={`Test method of ${lower}`} placeholder="e.g. ASTM D638" error={err(`valueDetails.${q}.testMethod`)} {...form.register(`valueDetails.${q}.testMethod`)} />
+              </td>
+              <td className="py-1.5">
+                <CellInput label={`Test temperature of ${lower}`} inputMode="decimal" error={err(`valueDetails.${q}.temperature`)} {...form.register(`valueDetails.${q}.temperature`)} />
+              </td>
+            </tr>
+          );
+        })}
+      </PlainTable>
       <div className="grid max-w-md grid-cols-2 gap-3">
         <TextField label="Service temperature from" unit={label('temperature')} inputMode="decimal" error={err('serviceTemperature.min')} {...form.register('serviceTemperature.min')} />
         <TextField label="Service temperature to" unit={label('temperature')} inputMode="decimal" error={err('serviceTemperature.max')} {...form.register('serviceTemperature.max')} />

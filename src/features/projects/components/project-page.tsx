@@ -28,7 +28,7 @@ import { summarizeLoadCase } from '../load-case-text';
 import type { Viewer } from '../shortlist-model';
 import { ShortlistStatusTag } from './bits';
 import { ProjectFormDialog } from './project-form-dialog';
-import { ColumnHeads, numeric } from '@/components/ui/column-heads';
+import { numeric, PlainTable } from '@/components/ui/column-heads';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
@@ -140,31 +140,26 @@ function LoadCases({ projectId, canEvaluate }: { projectId: number; canEvaluate:
     );
   }
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label="Load cases">
-        <ColumnHeads columns={['Load case', 'Saved by', 'Updated', '']} />
-        <tbody>
-          {loadCases.data.map((lc) => (
-            <tr key={lc.id} className="border-t border-chart-line/60 align-top">
-              <td className="py-2 pr-3">
-                <span className="font-bold">{lc.name}</span>
-                <span className="block text-xs text-ink-soft">{summarizeLoadCase(lc.loadCase, system)}</span>
-                {lc.notes ? <span className="block whitespace-pre-line text-xs text-ink-faint">{lc.notes}</span> : null}
-              </td>
-              <td className="py-2 pr-3">{lc.createdBy?.name ?? '—'}</td>
-              <td className="whitespace-nowrap py-2 pr-3">{formatDate(lc.updatedAt)}</td>
-              <td className="py-2 text-right">
-                {canEvaluate ? (
-                  <LinkButton tone="quiet" to={`/evaluate?loadCase=${lc.id}`} className="!px-2 !py-0.5 text-xs" aria-label={`Open ${lc.name} in Evaluate`}>
-                    Open in Evaluate
-                  </LinkButton>
-                ) : null}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <PlainTable label="Load cases" columns={['Load case', 'Saved by', 'Updated', '']}>
+      {loadCases.data.map((lc) => (
+        <tr key={lc.id} className="border-t border-chart-line/60 align-top">
+          <td className="py-2 pr-3">
+            <span className="font-bold">{lc.name}</span>
+            <span className="block text-xs text-ink-soft">{summarizeLoadCase(lc.loadCase, system)}</span>
+            {lc.notes ? <span className="block whitespace-pre-line text-xs text-ink-faint">{lc.notes}</span> : null}
+          </td>
+          <td className="py-2 pr-3">{lc.createdBy?.name ?? '—'}</td>
+          <td className="whitespace-nowrap py-2 pr-3">{formatDate(lc.updatedAt)}</td>
+          <td className="py-2 text-right">
+            {canEvaluate ? (
+              <LinkButton tone="quiet" to={`/evaluate?loadCase=${lc.id}`} className="!px-2 !py-0.5 text-xs" aria-label={`Open ${lc.name} in Evaluate`}>
+                Open in Evaluate
+              </LinkButton>
+            ) : null}
+          </td>
+        </tr>
+      ))}
+    </PlainTable>
   );
 }
 
@@ -182,38 +177,33 @@ function Shortlists({ projectId }: { projectId: number }) {
   }
   const loadCaseName = (id: number) => loadCases.data?.find((lc) => lc.id === id)?.name ?? `Load case ${id}`;
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label="Shortlists">
-        <ColumnHeads columns={['Shortlist', 'Status', 'Author', numeric('Candidates'), 'Updated', 'Record']} />
-        <tbody>
-          {shortlists.data.map((s) => (
-            <tr key={s.id} className="border-t border-chart-line/60 align-top">
-              <td className="py-2 pr-3">
-                <Link to={`/shortlists/${s.id}`} className="font-bold text-sounding hover:underline">
-                  {s.name}
-                </Link>
-                <span className="block text-xs text-ink-soft">for {loadCaseName(s.loadCaseId)}</span>
-              </td>
-              <td className="py-2 pr-3">
-                <ShortlistStatusTag status={s.status} />
-              </td>
-              <td className="py-2 pr-3">{s.author.name}</td>
-              <td className="py-2 pr-3 text-right">{s.itemCount}</td>
-              <td className="whitespace-nowrap py-2 pr-3">{formatDate(s.updatedAt)}</td>
-              <td className="py-2">
-                {s.designRecordId ? (
-                  <Link to={`/records/${s.designRecordId}`} className="text-sounding underline">
-                    Design record
-                  </Link>
-                ) : (
-                  <span className="text-ink-faint">—</span>
-                )}
-              </td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <PlainTable label="Shortlists" columns={['Shortlist', 'Status', 'Author', numeric('Candidates'), 'Updated', 'Record']}>
+      {shortlists.data.map((s) => (
+        <tr key={s.id} className="border-t border-chart-line/60 align-top">
+          <td className="py-2 pr-3">
+            <Link to={`/shortlists/${s.id}`} className="font-bold text-sounding hover:underline">
+              {s.name}
+            </Link>
+            <span className="block text-xs text-ink-soft">for {loadCaseName(s.loadCaseId)}</span>
+          </td>
+          <td className="py-2 pr-3">
+            <ShortlistStatusTag status={s.status} />
+          </td>
+          <td className="py-2 pr-3">{s.author.name}</td>
+          <td className="py-2 pr-3 text-right">{s.itemCount}</td>
+          <td className="whitespace-nowrap py-2 pr-3">{formatDate(s.updatedAt)}</td>
+          <td className="py-2">
+            {s.designRecordId ? (
+              <Link to={`/records/${s.designRecordId}`} className="text-sounding underline">
+                Design record
+              </Link>
+            ) : (
+              <span className="text-ink-faint">—</span>
+            )}
+          </td>
+        </tr>
+      ))}
+    </PlainTable>
   );
 }
 
@@ -225,26 +215,21 @@ function Records({ projectId }: { projectId: number }) {
     return <EmptyState title="No design records yet">A design record is frozen when a checker checks a submitted shortlist. It keeps the inputs, results and data versions as they were.</EmptyState>;
   }
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label="Design records">
-        <ColumnHeads columns={['Record', 'Load case', 'Author', 'Checker', 'Checked']} />
-        <tbody>
-          {records.data.map((r) => (
-            <tr key={r.id} className="border-t border-chart-line/60 align-top">
-              <td className="py-2 pr-3">
-                <Link to={`/records/${r.id}`} className="font-bold text-sounding hover:underline">
-                  {r.name}
-                </Link>
-              </td>
-              <td className="py-2 pr-3">{r.loadCase}</td>
-              <td className="py-2 pr-3">{r.author}</td>
-              <td className="py-2 pr-3">{r.checker}</td>
-              <td className="whitespace-nowrap py-2">{formatDateTime(r.checkedAt)}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-    </div>
+    <PlainTable label="Design records" columns={['Record', 'Load case', 'Author', 'Checker', 'Checked']}>
+      {records.data.map((r) => (
+        <tr key={r.id} className="border-t border-chart-line/60 align-top">
+          <td className="py-2 pr-3">
+            <Link to={`/records/${r.id}`} className="font-bold text-sounding hover:underline">
+              {r.name}
+            </Link>
+          </td>
+          <td className="py-2 pr-3">{r.loadCase}</td>
+          <td className="py-2 pr-3">{r.author}</td>
+          <td className="py-2 pr-3">{r.checker}</td>
+          <td className="whitespace-nowrap py-2">{formatDateTime(r.checkedAt)}</td>
+        </tr>
+      ))}
+    </PlainTable>
   );
 }
 

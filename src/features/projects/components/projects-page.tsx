@@ -5,7 +5,7 @@ import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
 import { formatDate } from '@/lib/dates';
 import { useCreateProject, useProjects } from '../api/projects';
 import { ProjectFormDialog } from './project-form-dialog';
-import { ColumnHeads, numeric } from '@/components/ui/column-heads';
+import { numeric, PlainTable } from '@/components/ui/column-heads';
 
 function WhatAProjectHolds() {
   return (
@@ -59,29 +59,24 @@ export function ProjectsPage({ canCreate }: { canCreate: boolean }) {
         </EmptyState>
       ) : (
         <Panel>
-          <div className="overflow-x-auto">
-            <table className="w-full text-sm" aria-label="Projects">
-              <ColumnHeads columns={['Project', 'Owner', numeric('Members'), numeric('Load cases'), numeric('Shortlists'), numeric('Checked'), 'Updated']} />
-              <tbody>
-                {projects.data.map((p) => (
-                  <tr key={p.id} className="border-t border-chart-line/60 align-top">
-                    <td className="max-w-md py-2 pr-3">
-                      <Link to={`/projects/${p.id}`} className="font-bold text-sounding hover:underline">
-                        {p.name}
-                      </Link>
-                      {p.description ? <p className="line-clamp-2 text-xs text-ink-soft">{p.description}</p> : null}
-                    </td>
-                    <td className="py-2 pr-3">{p.owner.name}</td>
-                    <td className="py-2 pr-3 text-right">{p.members.length}</td>
-                    <td className="py-2 pr-3 text-right">{p.counts.loadCases}</td>
-                    <td className="py-2 pr-3 text-right">{p.counts.shortlists}</td>
-                    <td className="py-2 pr-3 text-right">{p.counts.checked}</td>
-                    <td className="whitespace-nowrap py-2">{formatDate(p.updatedAt)}</td>
-                  </tr>
-                ))}
-              </tbody>
-            </table>
-          </div>
+          <PlainTable label="Projects" columns={['Project', 'Owner', numeric('Members'), numeric('Load cases'), numeric('Shortlists'), numeric('Checked'), 'Updated']}>
+            {projects.data.map((p) => (
+              <tr key={p.id} className="border-t border-chart-line/60 align-top">
+                <td className="max-w-md py-2 pr-3">
+                  <Link to={`/projects/${p.id}`} className="font-bold text-sounding hover:underline">
+                    {p.name}
+                  </Link>
+                  {p.description ? <p className="line-clamp-2 text-xs text-ink-soft">{p.description}</p> : null}
+                </td>
+                <td className="py-2 pr-3">{p.owner.name}</td>
+                <td className="py-2 pr-3 text-right">{p.members.length}</td>
+                <td className="py-2 pr-3 text-right">{p.counts.loadCases}</td>
+                <td className="py-2 pr-3 text-right">{p.counts.shortlists}</td>
+                <td className="py-2 pr-3 text-right">{p.counts.checked}</td>
+                <td className="whitespace-nowrap py-2">{formatDate(p.updatedAt)}</td>
+              </tr>
+            ))}
+          </PlainTable>
         </Panel>
       )}
 
