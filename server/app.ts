@@ -18,6 +18,7 @@ import { authRouter } from './modules/auth/router';
 import { healthRouter } from './modules/health/router';
 import { materialsRouter, propertySetsRouter } from './modules/property-sets/router';
 import { watchPropertySetChanges } from './modules/property-sets/snapshot';
+import { startChangeFeed, stopChangeFeed } from './services/change-feed';
 import { evaluateRouter, pressureRouter } from './modules/evaluate/router';
 import { libraryRouter } from './modules/library/router';
 import { referencesRouter } from './modules/references/router';
@@ -30,7 +31,9 @@ import { openApiRouter } from './openapi/router';
 
 export interface AppHandle {
   app: Express;
-  /** Closes what the app opened itself (the session store's pool). */
+  /** Resolves once the process listens on the change feed (or its first try failed). */
+  ready: Promise<void>;
+  /** Closes what the app opened itself (the session store's pool, the change feed's connection). */
   close(): Promise<void>;
 }
 
@@ -38,6 +41,8 @@ export function createApp(): AppHandle {
   const config = env();
   initModels();
   watchPropertySetChanges();
+  // Caches serve only once this process listens for changes made by the others (change-feed.ts).
+  const feed = startChangeFeed();
   const passport = configurePassport();
 
   const app = express();
@@ -143,7 +148,9 @@ export function createApp(): AppHandle {
 
   return {
     app,
+    ready: feed,
     close: async () => {
+      await stopChangeFeed();
       store.close();
       await sessionPool.end().catch(() => undefined);
     },

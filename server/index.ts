@@ -2,9 +2,10 @@ import { createServer } from 'node:http';
 import { env } from './config/env';
 import { createApp } from './app';
 import { closeDatabase, databaseBusy } from './db/sequelize';
+import { cachesUsable } from './services/change-feed';
 
 const config = env();
-const { app, close } = createApp();
+const { app, close, ready } = createApp();
 const server = createServer(app);
 server.keepAliveTimeout = 65_000;
 
@@ -18,7 +19,8 @@ server.on('request', (_req, res) => {
 server.listen(config.PORT, config.HOST, () => {
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
-  console.log(`[isobath] serving on http://localhost:${port} (${config.NODE_ENV})`);
+  console.log(`[isobath] serving on http://localhost:${port} (${config.NODE_ENV}, process ${process.pid})`);
+  void ready.then(() => console.log(`[isobath] process ${process.pid} ${cachesUsable() ? 'listening for changes' : 'not yet listening for changes: serving uncached'}`));
 });
 
 // A handler whose client has gone may still be working: wait for open responses and for

@@ -2,6 +2,7 @@ import { gzip } from 'node:zlib';
 import { promisify } from 'node:util';
 import type { Request, Response } from 'express';
 import { LRUCache } from 'lru-cache';
+import { cachesUsable } from './change-feed';
 
 /** A serialized JSON answer, with its gzip form made once on first demand. */
 const gzipAsync = promisify(gzip);
@@ -31,12 +32,20 @@ export function jsonResponseCache(maxBytes: number): LRUCache<string, CachedBody
   return new LRUCache<string, CachedBody>({ maxSize: maxBytes, sizeCalculation: (body) => Math.max(1, Math.ceil(body.json.length * 3.2)) });
 }
 
-/** The cached answer under `key`, or a new one built by `build` and kept. */
+/**
+ * The cached answer under `key`, or a new one built by `build` and kept. While the change feed is
+ * not listening (a change may have gone unheard) answers are built afresh and not kept.
+ */
 export async function cachedJson(cache: LRUCache<string, CachedBody>, key: string, build: () => unknown | Promise<unknown>): Promise<CachedBody> {
+  if (!cachesUsable()) {
+    cache.clear();
+    return new CachedBody(JSON.stringify(await build()));
+  }
   let body = cache.get(key);
   if (body === undefined) {
     body = new CachedBody(JSON.stringify(await build()));
-    cache.set(key, body);
+    // Kept only if the feed stayed up while it was built (the key holds the catalogue generation).
+    if (cachesUsable()) cache.set(key, body);
   }
   return body;
 }

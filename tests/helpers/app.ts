@@ -11,6 +11,7 @@ export type Agent = ReturnType<typeof request.agent>;
 export async function startTestApp(): Promise<AppHandle & { stop(): Promise<void> }> {
   await resetDatabase();
   const handle = createApp();
+  await handle.ready;
   return {
     ...handle,
     stop: async () => {

@@ -4,6 +4,8 @@ import { candidateFromPropertySet } from '../../../shared/engine';
 import type { CandidateMaterial } from '../../../shared/engine';
 import { propertySetDto } from './service';
 import { publishedRatingTables, tablesCovering, type PublishedRatingTable } from '../rating-tables/service';
+import { announce, cachesUsable, onChange } from '../../services/change-feed';
+import type { Transaction } from 'sequelize';
 
 export interface CatalogueEntry {
   set: PropertySetDto;
@@ -11,9 +13,11 @@ export interface CatalogueEntry {
 }
 
 /**
- * The published catalogue, read once and kept in memory until a property set changes.
- * Model hooks on PropertySet (any save, update or destroy in this process) invalidate it,
- * so the library desk never has to remember to.
+ * The published catalogue, read once and kept in memory until it changes. Model hooks on the
+ * models it is built from (property sets, rating tables, references, materials) announce every
+ * write on the change feed in the write's transaction, so every process drops it after the
+ * commit and the library desk never has to remember to. While the feed is not listening it is
+ * read afresh for every use.
  */
 let snapshot: Promise<{ entries: CatalogueEntry[]; tables: PublishedRatingTable[] }> | undefined;
 let generation = 0;
@@ -25,6 +29,10 @@ export function invalidateCatalogueSnapshot(): void {
   generation++;
   snapshot = undefined;
 }
+
+onChange((change) => {
+  if (change.kind === 'catalogue' || change.kind === 'everything') invalidateCatalogueSnapshot();
+});
 
 export function publishedCatalogue(): Promise<CatalogueEntry[]> {
   return loadSnapshot().then((s) => s.entries);
@@ -42,27 +50,10 @@ export async function candidateForSet(set: PropertySetDto): Promise<CandidateMat
 }
 
 function loadSnapshot(): Promise<{ entries: CatalogueEntry[]; tables: PublishedRatingTable[] }> {
+  if (!cachesUsable()) return readSnapshot();
   if (!snapshot) {
     const started = generation;
-    const loading = Promise.all([
-      PropertySet.findAll({
-      where: { status: 'published' },
-      include: [
-        { model: Material, as: 'material', required: true },
-        { model: Reference, as: 'reference' },
-        { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
-        { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
-      ],
-      order: [['id', 'ASC']],
-      }),
-      publishedRatingTables(),
-    ]).then(([rows, tables]) => ({
-      tables,
-      entries: rows.map((row) => {
-        const set = propertySetDto(row);
-        return { set, candidate: candidateFromPropertySet(set, tablesCovering(tables, row.materialId, row.lineageId ?? row.id)) };
-      }),
-    }));
+    const loading = readSnapshot();
     snapshot = loading;
     // A failed read is not cached; a read that raced an invalidation is not kept either.
     loading.then(
@@ -77,12 +68,40 @@ function loadSnapshot(): Promise<{ entries: CatalogueEntry[]; tables: PublishedR
   return snapshot;
 }
 
+function readSnapshot(): Promise<{ entries: CatalogueEntry[]; tables: PublishedRatingTable[] }> {
+  return Promise.all([
+    PropertySet.findAll({
+      where: { status: 'published' },
+      include: [
+        { model: Material, as: 'material', required: true },
+        { model: Reference, as: 'reference' },
+        { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
+        { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
+      ],
+      order: [['id', 'ASC']],
+    }),
+    publishedRatingTables(),
+  ]).then(([rows, tables]) => ({
+    tables,
+    entries: rows.map((row) => {
+      const set = propertySetDto(row);
+      return { set, candidate: candidateFromPropertySet(set, tablesCovering(tables, row.materialId, row.lineageId ?? row.id)) };
+    }),
+  }));
+}
+
 let hooked = false;
 export function watchPropertySetChanges(): void {
   if (hooked) return;
-  for (const hook of ['afterSave', 'afterDestroy', 'afterBulkUpdate', 'afterBulkDestroy', 'afterBulkCreate'] as const) {
-    PropertySet.addHook(hook, 'invalidate-catalogue-snapshot', () => invalidateCatalogueSnapshot());
-    RatingTable.addHook(hook, 'invalidate-catalogue-snapshot', () => invalidateCatalogueSnapshot());
+  const announceCatalogue = (...args: unknown[]) => {
+    // Instance hooks get (instance, options), bulk hooks (options): the options come last.
+    const options = args[args.length - 1] as { transaction?: Transaction | null } | undefined;
+    return announce({ kind: 'catalogue' }, options?.transaction);
+  };
+  for (const model of [PropertySet, RatingTable, Reference, Material]) {
+    for (const hook of ['afterSave', 'afterDestroy', 'afterBulkUpdate', 'afterBulkDestroy', 'afterBulkCreate'] as const) {
+      (model as unknown as { addHook(h: string, name: string, fn: (...args: unknown[]) => unknown): void }).addHook(hook, 'announce-catalogue', announceCatalogue);
+    }
   }
   hooked = true;
 }

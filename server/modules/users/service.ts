@@ -1,5 +1,5 @@
 import { createHash, randomBytes } from 'node:crypto';
-import { Op } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { sequelize } from '../../db/sequelize';
 import { User } from '../../db/models';
 import { Invitation, PasswordReset } from '../../db/models/projects';
@@ -11,7 +11,7 @@ import { hashPassword, verifyPassword } from '../../auth/passwords';
 import { recordAudit } from '../../services/audit';
 import { sendMailSafely } from '../../services/mail';
 import { appLink } from '../../services/app-link';
-import { forgetSessionsOf } from '../../auth/session-cache';
+import { announce } from '../../services/change-feed';
 
 export const INVITATION_HOURS = 72;
 export const RESET_HOURS = 1;
@@ -34,13 +34,16 @@ export async function listUsers(): Promise<AdminUserDto[]> {
   return (await User.findAll({ order: [['active', 'DESC'], ['name', 'ASC']] })).map(adminUserDto);
 }
 
-/** Ends every stored session of a user at once. */
-export async function endSessionsOf(userId: number, exceptSid?: string): Promise<number> {
-  forgetSessionsOf(userId);
+/**
+ * Ends every stored session of a user (but `exceptSid`), in the transaction of the change that
+ * calls for it: the rows go and every process drops its cached copies when it commits.
+ */
+export async function endSessionsOf(transaction: Transaction, userId: number, exceptSid?: string): Promise<number> {
   const [, result] = await sequelize().query(
     `DELETE FROM session WHERE (sess -> 'passport' ->> 'user') = :user ${exceptSid ? 'AND sid <> :sid' : ''}`,
-    { replacements: { user: String(userId), sid: exceptSid ?? '' } },
+    { replacements: { user: String(userId), sid: exceptSid ?? '' }, transaction },
   );
+  await announce({ kind: 'sessions', userId }, transaction);
   return (result as { rowCount?: number })?.rowCount ?? 0;
 }
 
@@ -54,9 +57,9 @@ export async function updateUser(actorId: number, userId: number, change: { role
     const before = { role: u.role, active: u.active };
     await u.update(change, { transaction });
     await recordAudit(transaction, { actorId, action: change.active === false ? 'deactivate' : 'update', entityType: 'user', entityId: String(u.id), before, after: change });
+    if (change.active === false) await endSessionsOf(transaction, u.id);
     return u;
   });
-  if (change.active === false) await endSessionsOf(user.id);
   return adminUserDto(user);
 }
 
@@ -135,7 +138,7 @@ export async function requestPasswordReset(email: string): Promise<void> {
 
 export async function resetPassword(token: string, password: string): Promise<void> {
   const passwordHash = await hashPassword(password);
-  const userId = await sequelize().transaction(async (transaction) => {
+  await sequelize().transaction(async (transaction) => {
     const reset = await PasswordReset.findOne({ where: { tokenHash: tokenHash(token) }, transaction, lock: transaction.LOCK.UPDATE });
     if (!reset || reset.usedAt || reset.expiresAt.getTime() < Date.now()) throw invalidLink();
     const user = await User.findByPk(reset.userId, { transaction });
@@ -145,9 +148,8 @@ export async function resetPassword(token: string, password: string): Promise<vo
     // Any other outstanding reset links of this account stop working too.
     await PasswordReset.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: { [Op.is]: null } }, transaction });
     await recordAudit(transaction, { actorId: user.id, action: 'reset-password', entityType: 'user', entityId: String(user.id), before: null, after: null });
-    return user.id;
+    await endSessionsOf(transaction, user.id);
   });
-  await endSessionsOf(userId);
 }
 
 export async function changePassword(userId: number, currentPassword: string, newPassword: string, keepSid: string): Promise<void> {
@@ -159,6 +161,6 @@ export async function changePassword(userId: number, currentPassword: string, ne
   await sequelize().transaction(async (transaction) => {
     await user.update({ passwordHash }, { transaction });
     await recordAudit(transaction, { actorId: user.id, action: 'change-password', entityType: 'user', entityId: String(user.id), before: null, after: null });
+    await endSessionsOf(transaction, user.id, keepSid);
   });
-  await endSessionsOf(user.id, keepSid);
 }

@@ -1,6 +1,18 @@
-import { describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import session from 'express-session';
-import { forgetSessionsOf, withSessionCache } from './session-cache';
+import { withSessionCache } from '../../server/auth/session-cache';
+import { announce, cachesUsable, startChangeFeed, stopChangeFeed } from '../../server/services/change-feed';
+import { closeDatabase } from '../../server/db/sequelize';
+
+// The cache serves from memory only while this process listens to the change feed (PostgreSQL).
+beforeAll(async () => {
+  await startChangeFeed();
+  expect(cachesUsable()).toBe(true);
+});
+afterAll(async () => {
+  await stopChangeFeed();
+  await closeDatabase();
+});
 
 const get = (store: session.Store, sid: string) =>
   new Promise<session.SessionData | null | undefined>((resolve, reject) => store.get(sid, (err, s) => (err ? reject(err) : resolve(s))));
@@ -43,9 +55,26 @@ describe('session cache', () => {
   it("forgets a user's sessions when they are ended elsewhere", async () => {
     const { store, reads } = countingStore();
     await set(store, 'b', sess(9, new Date(Date.now() + 3600_000)));
-    forgetSessionsOf(9);
+    await announce({ kind: 'sessions', userId: 9 });
     await get(store, 'b');
     expect(reads()).toBe(1);
+  });
+
+  it('serves nothing from memory while the change feed is not listening', async () => {
+    const { store, reads } = countingStore();
+    await set(store, 'd', sess(5, new Date(Date.now() + 3600_000)));
+    await stopChangeFeed();
+    try {
+      expect(cachesUsable()).toBe(false);
+      await get(store, 'd');
+      await get(store, 'd');
+      expect(reads()).toBe(2);
+    } finally {
+      await startChangeFeed();
+    }
+    await get(store, 'd');
+    await get(store, 'd');
+    expect(reads()).toBe(3);
   });
 
   it('drops a destroyed session at once', async () => {
