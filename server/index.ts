@@ -1,49 +1,44 @@
-import { createServer } from 'node:http';
-import { env } from './config/env';
-import { createApp } from './app';
-import { closeDatabase, databaseBusy } from './db/sequelize';
-import { cachesUsable } from './services/change-feed';
+import cluster from 'node:cluster';
+import { availableParallelism } from 'node:os';
+import { runWorker } from './worker';
 
-const config = env();
-const { app, close, ready } = createApp();
-const server = createServer(app);
-server.keepAliveTimeout = 65_000;
+/**
+ * npm start's server: WEB_CONCURRENCY worker processes (default: one per core) sharing the port
+ * through node:cluster. Each worker is a whole app with its own caches; the change feed keeps
+ * them true to the database (server/services/change-feed.ts), and whatever must be shared
+ * (sessions, the sign-in throttle, the mail outbox) lives in PostgreSQL. SIGTERM or SIGINT stops
+ * every worker gracefully (each finishes its in-flight requests); a worker that dies otherwise
+ * is replaced. With one worker, the app runs in this process.
+ */
+const requested = Number(process.env.WEB_CONCURRENCY ?? '');
+const workers = Number.isInteger(requested) && requested > 0 ? requested : availableParallelism();
 
-// Requests still being handled; shutdown waits for them before closing the database.
-let inFlight = 0;
-server.on('request', (_req, res) => {
-  inFlight++;
-  res.once('close', () => inFlight--);
-});
-
-server.listen(config.PORT, config.HOST, () => {
-  const address = server.address();
-  const port = typeof address === 'object' && address ? address.port : config.PORT;
-  console.log(`[isobath] serving on http://localhost:${port} (${config.NODE_ENV}, process ${process.pid})`);
-  void ready.then(() => console.log(`[isobath] process ${process.pid} ${cachesUsable() ? 'listening for changes' : 'not yet listening for changes: serving uncached'}`));
-});
-
-// A handler whose client has gone may still be working: wait for open responses and for
-// database work to end (at most until the deadline) before closing the pools.
-const settle = async (deadline: number) => {
-  while ((inFlight > 0 || databaseBusy() > 0) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 25));
-};
-
-// Graceful shutdown: stop accepting, let in-flight requests finish, then close pools.
-let stopping = false;
-async function shutdown(signal: string) {
-  if (stopping) return;
-  stopping = true;
-  console.log(`[isobath] ${signal}: finishing in-flight requests`);
-  const force = setTimeout(() => process.exit(1), 10_000);
-  force.unref();
-  server.close(async () => {
-    await settle(Date.now() + 5_000);
-    await close();
-    await closeDatabase();
-    process.exit(0);
+if (workers === 1 || !cluster.isPrimary) {
+  runWorker(cluster.isPrimary ? 'server' : `worker ${cluster.worker!.id}`);
+} else {
+  console.log(`[isobath] starting ${workers} workers (WEB_CONCURRENCY=${process.env.WEB_CONCURRENCY ?? `unset: one per core`})`);
+  let stopping = false;
+  let failed = false;
+  const fork = () => cluster.fork();
+  for (let i = 0; i < workers; i++) fork();
+  cluster.on('exit', (worker, code, signal) => {
+    if (stopping) {
+      // Ended by the signal itself (a worker still starting has no handler yet): stopped as asked.
+      if (code !== 0 && !(code === null && signal)) failed = true;
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(failed ? 1 : 0);
+      return;
+    }
+    console.log(`[isobath] worker ${worker.id} (process ${worker.process.pid}) exited (${signal ?? code}); starting another`);
+    setTimeout(fork, 500).unref();
   });
-  server.closeIdleConnections();
+  const stop = (signal: NodeJS.Signals) => {
+    if (stopping) return;
+    stopping = true;
+    console.log(`[isobath] ${signal}: stopping ${Object.keys(cluster.workers ?? {}).length} workers`);
+    for (const w of Object.values(cluster.workers ?? {})) w?.process.kill(signal);
+    // A worker that does not finish in time is ended by its own 10 s guard; this one is the last resort.
+    setTimeout(() => process.exit(1), 15_000).unref();
+  };
+  process.on('SIGTERM', () => stop('SIGTERM'));
+  process.on('SIGINT', () => stop('SIGINT'));
 }
-process.on('SIGTERM', () => void shutdown('SIGTERM'));
-process.on('SIGINT', () => void shutdown('SIGINT'));

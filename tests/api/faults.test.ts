@@ -92,8 +92,9 @@ describe('restarts', () => {
       env: { ...process.env, DATABASE_URL: cluster.url, NODE_ENV: 'test', PORT: '0', HOST: '127.0.0.1' },
       stdio: ['ignore', 'pipe', 'pipe'],
     });
+    let out = '';
+    child.stderr!.on('data', (d: Buffer) => (out += d.toString()));
     const port = await new Promise<number>((resolve, reject) => {
-      let out = '';
       child.stdout!.on('data', (d: Buffer) => {
         out += d.toString();
         const m = out.match(/serving on http:\/\/localhost:(\d+)/);
@@ -115,6 +116,6 @@ describe('restarts', () => {
     });
     const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
     expect(await answer).toBe(200);
-    expect(await exited).toBe(0);
+    expect(await exited, out).toBe(0);
   }, 60_000);
 });

@@ -114,6 +114,25 @@ describe('two app processes on one database', () => {
     expect(took).toBeLessThanOrEqual(1_000);
   });
 
+  it('runs WEB_CONCURRENCY workers on one port, each listening for changes, and stops them all gracefully', async () => {
+    const several = await startServerProcess({ WEB_CONCURRENCY: '2' });
+    try {
+      const lines = several.output().match(/worker \d+ serving on http:\/\/localhost:(\d+)/g) ?? [];
+      expect(lines).toHaveLength(2);
+      expect(new Set(lines.map((l) => l.replace(/^worker \d+ /, '')))).toHaveProperty('size', 1);
+      // Both workers answer on the shared port: requests carry the worker's process in no header,
+      // so count the distinct listening connections instead (one per worker).
+      const [r] = (await sequelize().query("SELECT count(*)::int AS n FROM pg_stat_activity WHERE application_name LIKE 'isobath-change-feed:%'")) as [{ n: number }[], unknown];
+      expect(r[0].n).toBeGreaterThanOrEqual(4); // a, b and the two workers
+      expect((await request(several.url).get('/api/health')).status).toBe(200);
+    } finally {
+      const exited = new Promise<number | null>((resolve) => several.child.once('exit', (code) => resolve(code)));
+      several.child.kill('SIGTERM');
+      expect(await exited).toBe(0);
+    }
+    expect(several.output()).toMatch(/SIGTERM: stopping 2 workers/);
+  });
+
   it('serves no stale answer after its listening connection is killed, and listens again', async () => {
     const engineer = await sessionCookie(b.url, demoEmail('engineer'), DEMO_PASSWORD);
     await evaluateOn(b.url, engineer);

@@ -1,7 +1,10 @@
 import { spawn, type ChildProcess } from 'node:child_process';
 import request from 'supertest';
 
-/** An app server in a process of its own (server/index.ts, as npm start runs each worker). */
+/**
+ * An app server in a process of its own (server/index.ts, as npm start runs it). One worker
+ * unless `env.WEB_CONCURRENCY` says otherwise, so each process is one app with its own caches.
+ */
 export interface ServerProcess {
   child: ChildProcess;
   url: string;
@@ -12,7 +15,7 @@ export interface ServerProcess {
 
 export async function startServerProcess(env: Record<string, string> = {}): Promise<ServerProcess> {
   const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-    env: { ...process.env, NODE_ENV: 'test', PORT: '0', HOST: '127.0.0.1', ...env },
+    env: { ...process.env, NODE_ENV: 'test', PORT: '0', HOST: '127.0.0.1', WEB_CONCURRENCY: '1', ...env },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let out = '';
@@ -26,9 +29,10 @@ export async function startServerProcess(env: Record<string, string> = {}): Prom
     child.on('exit', (code) => reject(new Error(`server exited early (${code}): ${out}`)));
   });
   const url = `http://127.0.0.1:${port}`;
-  // Listening on the change feed is part of being ready: wait until the process says so.
+  // Listening on the change feed is part of being ready: wait until every worker says so.
   const deadline = Date.now() + 20_000;
-  while (!/process \d+ listening for changes/.test(out)) {
+  const workers = Number(env.WEB_CONCURRENCY ?? 1);
+  while ((out.match(/process \d+ listening for changes/g) ?? []).length < workers) {
     if (Date.now() > deadline) throw new Error(`server never listened for changes: ${out}`);
     await new Promise((r) => setTimeout(r, 50));
   }
