@@ -54,6 +54,12 @@ export const evaluateRequestSchema = strict('Request', {
    */
   coveredFirst: z.boolean({ error: 'Covered first must be true or false.' }).default(true),
   filters: evaluateFiltersSchema.optional(),
+  /**
+   * 'lean' (default): texts and repeated objects sent once and referred to by index, candidates
+   * and modes as rows (shared/engine/lean.ts, unpackEvaluation). 'full': every candidate with its
+   * texts, as the engine returns it — for scripts.
+   */
+  form: z.enum(['lean', 'full'], { error: 'Form must be lean or full.' }).default('lean'),
 });
 export type EvaluateRequest = z.output<typeof evaluateRequestSchema>;
 export type EvaluateRequestInput = z.input<typeof evaluateRequestSchema>;

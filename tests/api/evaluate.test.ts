@@ -2,6 +2,11 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { startTestApp, signIn, type Agent } from '../helpers/app';
 import type { PropertySetDto } from '../../shared/schemas/catalogue';
+import { LEAN_FORMAT, roundedLikeLean, unpackEvaluation } from '../../shared/engine/lean';
+import type { EvaluateResult } from '../../shared/engine';
+
+/** The full answer from the lean one the API sends by default (shared/engine/lean.ts). */
+const full = (res: { body: unknown }) => unpackEvaluation(res.body as Parameters<typeof unpackEvaluation>[0]);
 
 let handle: Awaited<ReturnType<typeof startTestApp>>;
 let engineer: Agent;
@@ -39,7 +44,13 @@ describe('POST /api/evaluate', () => {
   it('evaluates the whole published catalogue, best first, with every mode named and sourced', async () => {
     const res = await engineer.post('/api/evaluate').send({ loadCase: viewport });
     expect(res.status).toBe(200);
-    const { pressure, results, total } = res.body;
+    expect(res.body.format).toBe(LEAN_FORMAT);
+    // The full form, for scripts, is the same answer with every text in place and every digit;
+    // the lean form unpacks to it but for the rounding to 6 significant digits.
+    const fullForm = await engineer.post('/api/evaluate').send({ loadCase: viewport, form: 'full' });
+    const { pressure, results, total } = fullForm.body as EvaluateResult;
+    expect(full(res)).toEqual(roundedLikeLean(fullForm.body));
+    expect(JSON.stringify(fullForm.body).length).toBeGreaterThan(2 * JSON.stringify(res.body).length);
     // Sea pressure at 1,200 m must exceed plain ρgh with 1025 kg/m³ and g = 9.80665 (compressibility; common practice).
     expect(pressure).toBeGreaterThan(1025 * 9.80665 * 1200);
     expect(pressure).toBeLessThan(1.02 * 1025 * 9.80665 * 1200);
@@ -49,7 +60,7 @@ describe('POST /api/evaluate', () => {
     for (const r of results) {
       expect(['tension', 'compression', 'shear', 'buckling']).toContain(r.governingMode);
       expect(Number.isFinite(r.safetyFactor)).toBe(true);
-      const governing = r.modes.find((m: { mode: string }) => m.mode === r.governingMode);
+      const governing = r.modes.find((m: { mode: string }) => m.mode === r.governingMode)!;
       expect(governing.safetyFactor).toBeCloseTo(r.safetyFactor, 10);
       for (const m of r.modes) {
         expect(m.stress).toBeGreaterThan(0);
@@ -64,7 +75,7 @@ describe('POST /api/evaluate', () => {
     expect(limited.body.results).toHaveLength(3);
     const acrylic = await engineer.post('/api/evaluate').send({ loadCase: viewport, filters: { family: 'acrylic' } });
     const acrylicIds = catalogue.filter((s) => s.material.family === 'acrylic').map((s) => s.id).sort();
-    expect(acrylic.body.results.map((r: { propertySetId: number }) => r.propertySetId).sort()).toEqual(acrylicIds);
+    expect(full(acrylic).results.map((r) => r.propertySetId).sort()).toEqual(acrylicIds);
   });
 
   it('keeps only sets whose service temperature covers the design range when asked', async () => {
@@ -87,9 +98,10 @@ describe('POST /api/evaluate', () => {
     expect(res.status).toBe(200);
     expect(res.body.pressure).toBe(12e6);
     expect(res.body.total).toBe(2);
-    expect(res.body.results.map((r: { name: string }) => r.name)).toContain('Harrow trial resin');
-    expect(res.body.results.find((r: { propertySetId?: number }) => r.propertySetId === acrylic.id)).toBeTruthy();
-    for (const r of res.body.results) expect(r.targetSafetyFactor).toBe(4);
+    const { results } = full(res);
+    expect(results.map((r) => r.name)).toContain('Harrow trial resin');
+    expect(results.find((r) => r.propertySetId === acrylic.id)).toBeTruthy();
+    for (const r of results) expect(r.targetSafetyFactor).toBe(4);
   });
 
   it('returns 400 naming the candidate whose property set does not exist', async () => {
@@ -149,7 +161,7 @@ const hullSection = {
 
 describe('POST /api/evaluate: ring-stiffened cylinders', () => {
   it('ranks the steels and titanium by their four hull checks, each with its collapse pressures', async () => {
-    const res = await engineer.post('/api/evaluate').send({ loadCase: hullSection, filters: { family: 'steel' } });
+    const res = await engineer.post('/api/evaluate').send({ loadCase: hullSection, filters: { family: 'steel' }, form: 'full' });
     expect(res.status).toBe(200);
     for (const r of res.body.results) {
       expect(r.modes.map((m: { check: string }) => m.check)).toEqual(['interframe shell yield', 'interframe collapse', 'overall collapse', 'frame yield']);

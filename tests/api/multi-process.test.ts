@@ -99,7 +99,7 @@ describe('two app processes on one database', () => {
     const res = await request(url)
       .post('/api/evaluate')
       .set('Cookie', cookie)
-      .send({ loadCase: DEMO_CHAMBER_PORT, filters: { transparent: true } });
+      .send({ loadCase: DEMO_CHAMBER_PORT, filters: { transparent: true }, form: 'full' });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     return (res.body.results as { propertySetId: number }[]).map((r) => r.propertySetId);
   };

@@ -89,17 +89,17 @@ describe('Evaluate on value status', () => {
 
   it('marks every catalogue candidate with its inputs, and narrows to confirmed inputs only or leaves out demo data', async () => {
     const demo = await published('Harrow Sound lot 34 cast sheet, demo set', { density: { status: 'demo' } });
-    const all = (await engineer.post('/api/evaluate').send({ loadCase, limit: 5000 })).body as EvaluateResult;
+    const all = (await engineer.post('/api/evaluate').send({ loadCase, limit: 5000, form: 'full' })).body as EvaluateResult;
     expect(ids(all)).toContain(demo.id);
     for (const r of all.results) expect(r.inputs?.total).toBeGreaterThan(5);
     expect(all.results.find((r) => r.propertySetId === demo.id)?.inputs?.demo).toBe(true);
 
-    const noDemo = (await engineer.post('/api/evaluate').send({ loadCase, limit: 5000, filters: { excludeDemo: true } })).body as EvaluateResult;
+    const noDemo = (await engineer.post('/api/evaluate').send({ loadCase, limit: 5000, filters: { excludeDemo: true }, form: 'full' })).body as EvaluateResult;
     expect(ids(noDemo)).not.toContain(demo.id);
     expect(noDemo.results.every((r) => !r.inputs?.demo)).toBe(true);
     expect(noDemo.results.length).toBeLessThan(all.results.length);
 
-    const confirmed = (await engineer.post('/api/evaluate').send({ loadCase, limit: 5000, filters: { confirmedOnly: true } })).body as EvaluateResult;
+    const confirmed = (await engineer.post('/api/evaluate').send({ loadCase, limit: 5000, filters: { confirmedOnly: true }, form: 'full' })).body as EvaluateResult;
     expect(confirmed.results.every((r) => r.inputs!.confirmed === r.inputs!.total)).toBe(true);
     expect(confirmed.results.length).toBeLessThan(all.results.length);
   });

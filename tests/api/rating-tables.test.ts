@@ -59,6 +59,8 @@ const chamber = (thickness: number, temperature = 24, bar = 10) => ({
     component: { type: 'flat-disc', diameter: 0.25, thickness, edge: 'simply-supported' },
   },
   filters: { family: 'acrylic' },
+  // The full form: every candidate as the engine returns it (the default is the lean form).
+  form: 'full',
 });
 
 describe('seeded rating tables', () => {

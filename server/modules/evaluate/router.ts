@@ -6,6 +6,7 @@ import { parse } from '../../middleware/validate';
 import { evaluateLoadCase, pressureAt } from './service';
 import { catalogueGeneration } from '../property-sets/snapshot';
 import { cachedJson, jsonResponseCache, sendCached } from '../../services/response-cache';
+import { packEvaluation } from '../../../shared/engine/lean';
 
 export function evaluateRouter(): Router {
   const router = Router();
@@ -17,7 +18,14 @@ export function evaluateRouter(): Router {
     const caller = { canDraft: can(req.user?.role, 'catalogue:draft') };
     // Drafts named by id resolve only for librarians, so they get their own entries.
     const key = `${catalogueGeneration()}|${caller.canDraft ? 'd' : 'p'}|${JSON.stringify(request)}`;
-    await sendCached(req, res, await cachedJson(cache, key, () => evaluateLoadCase(request, caller)));
+    await sendCached(
+      req,
+      res,
+      await cachedJson(cache, key, async () => {
+        const result = await evaluateLoadCase(request, caller);
+        return request.form === 'full' ? result : packEvaluation(result);
+      }),
+    );
   });
   return router;
 }

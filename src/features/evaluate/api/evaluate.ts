@@ -2,6 +2,7 @@ import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query'
 import { api } from '@/lib/api-client';
 import type { EvaluateRequestInput } from '@shared/schemas/evaluate';
 import type { EvaluateResult } from '@shared/engine';
+import { unpackEvaluation, type LeanEvaluation } from '@shared/engine/lean';
 import type { PropertySetDto } from '@shared/schemas/catalogue';
 
 export const evaluateKeys = {
@@ -12,7 +13,8 @@ export const evaluateKeys = {
 export const evaluateQueryOptions = (request: EvaluateRequestInput) =>
   queryOptions({
     queryKey: evaluateKeys.run(request),
-    queryFn: () => api.post<EvaluateResult>('/evaluate', request),
+    // The answer comes lean (texts once, rows); the screens work on the full form.
+    queryFn: async (): Promise<EvaluateResult> => unpackEvaluation(await api.post<LeanEvaluation>('/evaluate', { ...request, form: 'lean' })),
     staleTime: 5 * 60_000,
   });
 
