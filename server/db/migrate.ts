@@ -9,6 +9,8 @@ import * as m0005 from './migrations/0005-shear-yield';
 import * as m0006 from './migrations/0006-shortlist-rounds';
 import * as m0007 from './migrations/0007-value-provenance';
 import * as m0008 from './migrations/0008-value-confirmations';
+import * as m0009 from './migrations/0009-reference-versions';
+import * as m0010 from './migrations/0010-reference-documents';
 
 // Listed explicitly: vitest cannot glob-load .ts migrations. Add new ones at the end.
 const MIGRATIONS = [
@@ -20,6 +22,8 @@ const MIGRATIONS = [
   { name: '0006-shortlist-rounds', ...m0006 },
   { name: '0007-value-provenance', ...m0007 },
   { name: '0008-value-confirmations', ...m0008 },
+  { name: '0009-reference-versions', ...m0009 },
+  { name: '0010-reference-documents', ...m0010 },
 ];
 
 export function migrator() {

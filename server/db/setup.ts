@@ -52,6 +52,8 @@ export const TABLES = [
   'projects',
   'rating_tables',
   'property_sets',
+  'reference_documents',
+  'reference_versions',
   'data_references',
   'materials',
   'users',

@@ -1,5 +1,5 @@
 // The curated workflow (shared/workflows/curated.ts) as the runner needs it: what each step does
-// to a curated record (property sets, rating tables), the revision that supersedes a published
+// to a curated record (property sets, rating tables, reference versions), the revision that supersedes a published
 // version, and the mail to reviewers and authors. A kind of curated record says only what is its
 // own (`CuratedKind`: its model, title and page, what a revision copies, what must hold first).
 import { Op, UniqueConstraintError, type Model, type ModelStatic, type Transaction } from 'sequelize';
@@ -43,10 +43,12 @@ export interface CuratedKind<M extends CuratedRow> {
   noun: string;
   staleNoun?: string;
   model: ModelStatic<M>;
+  /** The rows of CURATED_STEPS this kind takes (default: all of them). */
+  steps?: readonly CuratedStep[];
   /** One line naming the record, for mail. */
   title(row: M): Promise<string>;
   /** Its page on the library desk (path after the app's address). */
-  path(id: number): string;
+  path(row: M): string;
   /** Refuses publishing what may not be published (a reference is required by the table). */
   checkPublishable?(row: M, transaction: Transaction): Promise<void>;
   /** Work of its own when the record is published, in the approval's transaction (before it is saved). */
@@ -109,7 +111,7 @@ async function publish<M extends CuratedRow>(kind: CuratedKind<M>, row: M, actor
 
 async function notify<M extends CuratedRow>(kind: CuratedKind<M>, row: M, step: CuratedStep, actor: Actor, comment: string | undefined): Promise<void> {
   const title = await kind.title(row);
-  const where = appLink(kind.path(row.id));
+  const where = appLink(kind.path(row));
   if (step.notify === 'reviewers') {
     const reviewers = await User.findAll({ where: { role: ['librarian', 'admin'], active: true, id: { [Op.ne]: actor.id } }, attributes: ['email'], order: [['id', 'ASC']] });
     await mailInChunks(
@@ -134,7 +136,7 @@ async function notify<M extends CuratedRow>(kind: CuratedKind<M>, row: M, step: 
 /** The runner's view of a curated kind. */
 function workflowOf<M extends CuratedRow>(kind: CuratedKind<M>): WorkflowKind<CuratedStatus, CuratedStepName, M> {
   return {
-    steps: CURATED_STEPS,
+    steps: kind.steps ?? CURATED_STEPS,
     model: kind.model,
     entityType: kind.entityType,
     noun: kind.noun,

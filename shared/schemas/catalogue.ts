@@ -156,6 +156,16 @@ export interface ReferenceDto {
    * Optional so older fixtures need not carry it; the server should always send it.
    */
   hasDocument?: boolean;
+  /**
+   * The version of the citation shown: for a published or retired record the one it was approved
+   * with, otherwise the reference's current one. Optional for design records frozen before
+   * references were versioned (they cite version 1).
+   */
+  version?: number;
+  /** The reference's current published version (higher than `version` when the citation has changed since). */
+  latestVersion?: number;
+  /** The latest uploaded document's version (null: none), downloadable from /api/references/:id/documents/:version. */
+  documentVersion?: number | null;
 }
 
 export interface MaterialDto {

@@ -72,6 +72,19 @@ export const retireSchema = z
 
 export const referenceCreateSchema = referenceInputSchema.strict();
 export const referenceUpdateSchema = z.object({ lockVersion: lockVersionSchema, reference: referenceInputSchema.strict() }).strict();
+/** POST /api/references/:id/versions/:version/steps: submit, approve, or return with a comment. */
+export const referenceVersionStepSchema = z.discriminatedUnion(
+  'step',
+  [
+    z.strictObject({ step: z.literal('submit'), lockVersion: lockVersionSchema }),
+    z.strictObject({ step: z.literal('approve'), lockVersion: lockVersionSchema }),
+    z.strictObject({ step: z.literal('return'), lockVersion: lockVersionSchema, comment: z.string().trim().min(3, 'Say what the author must change.').max(4000) }),
+  ],
+  { error: 'Step must be one of "submit", "approve", "return".' },
+);
+export type ReferenceVersionStepInput = z.infer<typeof referenceVersionStepSchema>;
+/** GET /api/library/reference-versions: proposed reference changes (draft and in review by default). */
+export const referenceVersionQuerySchema = z.strictObject({ status: z.enum(['draft', 'in-review']).optional() });
 export const materialCreateSchema = materialInputSchema.strict();
 
 export const libraryQueueQuerySchema = z
@@ -92,7 +105,7 @@ export const caughtMailQuerySchema = z.object({ limit: z.coerce.number().int().m
 
 export const auditQuerySchema = z
   .object({
-    entityType: z.enum(['property-set', 'rating-table', 'reference', 'material', 'import', 'user', 'project', 'shortlist']).optional(),
+    entityType: z.enum(['property-set', 'rating-table', 'reference', 'reference-version', 'material', 'import', 'user', 'project', 'shortlist']).optional(),
     entityId: z.string().trim().max(40).optional(),
     limit: z.coerce.number().int().min(1).max(500).default(100),
     before: z.coerce.number().int().positive().optional(),
@@ -114,10 +127,74 @@ export interface LibrarySetDto extends PropertySetDto {
 export type LibrarySetListDto = ListDto<LibrarySetDto>;
 
 export interface ReferenceDetailDto extends ReferenceDto {
+  /** The current published version (the content above). */
+  version: number;
   lockVersion: number;
-  document: { name: string; size: number; uploadedAt: string } | null;
-  /** Number of property sets citing it. */
+  /** The latest document, and which version of the reference's documents it is. */
+  document: { name: string; size: number; uploadedAt: string; version: number } | null;
+  /** Number of property sets and rating tables citing it. */
   usedBy: number;
+  /**
+   * Cited by a published or retired set or rating table (and so by any design record): a change
+   * is a new version reviewed by a second librarian. False: cited by drafts at most, edited in
+   * place, and seen only by librarians and administrators.
+   */
+  inUse: boolean;
+}
+
+/** A reference's citation fields as one version holds them. */
+export interface ReferenceCitationDto {
+  kind: ReferenceDto['kind'];
+  title: string;
+  authors: string | null;
+  year: number | null;
+  identifier: string | null;
+  location: string | null;
+  note: string | null;
+}
+
+/** One version of a reference's citation: published, retired (superseded), or a proposed change. */
+export interface ReferenceVersionDto {
+  id: number;
+  referenceId: number;
+  version: number;
+  status: 'draft' | 'in-review' | 'published' | 'retired';
+  citation: ReferenceCitationDto;
+  lockVersion: number;
+  draftedBy: { id: number; name: string } | null;
+  lastEditedBy: { id: number; name: string } | null;
+  approvedBy: { id: number; name: string } | null;
+  returnedComment: string | null;
+  submittedAt: string | null;
+  publishedAt: string | null;
+  retiredAt: string | null;
+  updatedAt: string;
+  /** What it changes against the version it supersedes (field, before, after). */
+  changes: ValueChangeDto[];
+}
+
+/** One uploaded document of a reference; none is ever deleted. */
+export interface ReferenceDocumentDto {
+  version: number;
+  name: string;
+  size: number;
+  uploadedAt: string;
+  uploadedBy: { id: number; name: string } | null;
+}
+
+/** GET /api/references/:id: the reference with its versions and documents. */
+export interface ReferencePageDto extends ReferenceDetailDto {
+  /** Newest first. A proposed change (draft or in review) only for librarians and administrators. */
+  versions: ReferenceVersionDto[];
+  /** The open proposed change, if any (librarians and administrators). */
+  pending: ReferenceVersionDto | null;
+  /** Newest first. */
+  documents: ReferenceDocumentDto[];
+}
+
+/** GET /api/library/reference-versions: a proposed change with the reference it would change. */
+export interface PendingReferenceVersionDto extends ReferenceVersionDto {
+  current: ReferenceCitationDto & { version: number };
 }
 
 /** GET /api/references. */

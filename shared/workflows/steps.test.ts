@@ -4,11 +4,13 @@ import { describe, expect, it } from 'vitest';
 import { PERMISSIONS, type Role } from '../roles';
 import { SHORTLIST_STATUSES } from '../schemas/projects';
 import { CURATED_STATUSES, CURATED_STEPS } from './curated';
+import { REFERENCE_VERSION_STEPS } from './reference-version';
 import { SHORTLIST_STEPS } from './shortlist';
 import { allowedSteps, stepCommentSchema, stepRefusal, type StepRule, type WorkflowSubject } from './steps';
 
 const TABLES: [string, readonly StepRule<string, string>[], readonly string[]][] = [
   ['curated', CURATED_STEPS, CURATED_STATUSES],
+  ['reference version', REFERENCE_VERSION_STEPS, CURATED_STATUSES],
   ['shortlist', SHORTLIST_STEPS, SHORTLIST_STATUSES],
 ];
 
@@ -53,6 +55,12 @@ const CASES: [string, readonly StepRule<string, string>[], WorkflowSubject<strin
   ['a set in review, for an engineer', CURATED_STEPS, curated('in-review'), v(OTHER, 'engineer'), { submit: 'wrong-status', approve: 'no-role', return: 'no-role', revise: 'wrong-status', retire: 'wrong-status' }],
   ['a published set, for its author', CURATED_STEPS, curated('published'), v(AUTHOR, 'librarian'), { submit: 'wrong-status', approve: 'wrong-status', return: 'wrong-status', revise: 'ok', retire: 'ok' }],
   ['a retired set', CURATED_STEPS, curated('retired'), v(OTHER, 'admin'), { submit: 'wrong-status', approve: 'wrong-status', return: 'wrong-status', revise: 'wrong-status', retire: 'wrong-status' }],
+  ['a proposed reference change, for its author', REFERENCE_VERSION_STEPS, curated('draft'), v(AUTHOR, 'librarian'), { submit: 'ok', approve: 'wrong-status', return: 'wrong-status' }],
+  ['a reference change in review, for its author', REFERENCE_VERSION_STEPS, curated('in-review'), v(AUTHOR, 'librarian'), { submit: 'wrong-status', approve: 'own-work', return: 'own-work' }],
+  ['a reference change in review, for a second librarian', REFERENCE_VERSION_STEPS, curated('in-review'), v(OTHER, 'librarian'), { submit: 'wrong-status', approve: 'ok', return: 'ok' }],
+  ['a reference change in review, for an administrator', REFERENCE_VERSION_STEPS, curated('in-review'), v(OTHER, 'admin'), { submit: 'wrong-status', approve: 'ok', return: 'ok' }],
+  ['a reference change in review, for a checker', REFERENCE_VERSION_STEPS, curated('in-review'), v(OTHER, 'checker'), { submit: 'wrong-status', approve: 'no-role', return: 'no-role' }],
+  ['a published reference version', REFERENCE_VERSION_STEPS, curated('published'), v(OTHER, 'librarian'), { submit: 'wrong-status', approve: 'wrong-status', return: 'wrong-status' }],
   ['an open shortlist, for its author', SHORTLIST_STEPS, shortlist('open'), v(AUTHOR, 'engineer'), { submit: 'ok', check: 'wrong-status', return: 'wrong-status' }],
   ['an empty open shortlist, for its author', SHORTLIST_STEPS, shortlist('open', false), v(AUTHOR, 'engineer'), { submit: 'unmet', check: 'wrong-status', return: 'wrong-status' }],
   ['an open shortlist, for another engineer', SHORTLIST_STEPS, shortlist('open'), v(OTHER, 'engineer'), { submit: 'not-author', check: 'wrong-status', return: 'wrong-status' }],

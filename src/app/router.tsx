@@ -37,6 +37,7 @@ export const router = createBrowserRouter([
       { path: 'library/sets/:id', lazy: () => import('./routes/library-set') },
       { path: 'library/import', lazy: () => import('./routes/library-import') },
       { path: 'library/references', lazy: () => import('./routes/library-references') },
+      { path: 'library/references/:id', lazy: () => import('./routes/library-reference') },
       { path: 'library/rating-tables', lazy: () => import('./routes/library-rating-tables') },
       { path: 'library/rating-tables/new', lazy: () => import('./routes/library-rating-table-new') },
       { path: 'library/rating-tables/:id', lazy: () => import('./routes/library-rating-table') },

@@ -1,3 +1,4 @@
+import { Link } from 'react-router-dom';
 import type { ReferenceDto } from '@shared/schemas/catalogue';
 import { REFERENCE_KIND_LABELS } from '@shared/labels';
 import { Tag } from '@/components/ui/states';
@@ -25,12 +26,26 @@ export function ReferenceCard({
         {reference.location ? ` — ${reference.location}` : ''}
       </p>
       {reference.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{reference.note}</p> : null}
+      {reference.version !== undefined ? (
+        <p className="text-xs text-ink-soft" data-testid={`${testId}-version`}>
+          Citation version {reference.version}
+          {reference.latestVersion !== undefined && reference.latestVersion > reference.version
+            ? `; version ${reference.latestVersion} has been published since. This set keeps the version it was approved with until it is revised.`
+            : ''}
+        </p>
+      ) : null}
       {reference.hasDocument ? (
         // A plain link: the browser downloads the PDF with the session cookie.
-        <a href={`/api/references/${reference.id}/document`} className="no-print mt-1 font-bold text-sounding underline">
-          Download source PDF
+        <a
+          href={reference.documentVersion ? `/api/references/${reference.id}/documents/${reference.documentVersion}` : `/api/references/${reference.id}/document`}
+          className="no-print mt-1 font-bold text-sounding underline"
+        >
+          Download source PDF{reference.documentVersion ? ` (document version ${reference.documentVersion})` : ''}
         </a>
       ) : null}
+      <Link to={`/library/references/${reference.id}`} className="no-print text-xs text-sounding underline">
+        Versions and documents of this reference
+      </Link>
     </div>
   );
 }

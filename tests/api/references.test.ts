@@ -68,6 +68,15 @@ async function objectsUnder(prefix: string): Promise<string[]> {
   return (out.Contents ?? []).map((o) => o.Key!);
 }
 
+/**
+ * The objects a test left under a reference's prefix. The fake store lives as long as the whole
+ * test run while each file starts from a fresh database (ids from 1 again), and stored documents
+ * are never deleted, so what earlier files stored under the same id is not counted.
+ */
+async function storedByThisTest(id: number, before: string[]): Promise<string[]> {
+  return (await objectsUnder(`references/${id}/`)).filter((k) => !before.includes(k)).sort();
+}
+
 const uploadTo = (agent: Agent, id: number, content: Buffer, filename = 'proof-tests.pdf', contentType = 'application/pdf') =>
   agent.post(`/api/references/${id}/document`).attach('file', content, { filename, contentType });
 
@@ -86,13 +95,13 @@ describe('references', () => {
     const items = res.body.items as ReferenceDetailDto[];
     expect(items.every((r) => r.usedBy >= 1)).toBe(true);
     expect(items.reduce((n, r) => n + r.usedBy, 0)).toBeGreaterThanOrEqual(40);
-    expect(items[0]).toMatchObject({ lockVersion: 0, document: null, hasDocument: false });
+    expect(items[0]).toMatchObject({ version: 1, lockVersion: 0, document: null, hasDocument: false, inUse: true });
     expect((await request(handle.app).get('/api/references')).status).toBe(401);
   });
 
   it('filters by words of the title, authors or identifier', async () => {
     const ref = await newReference({ title: 'Harrow Sound chamber viewport creep series', identifier: 'HSMW-TR-0455' });
-    const res = await viewer.get('/api/references?q=creep%20hsmw-tr-0455');
+    const res = await librarian.get('/api/references?q=creep%20hsmw-tr-0455');
     expect(res.status).toBe(200);
     expect((res.body.items as ReferenceDetailDto[]).map((r) => r.id)).toEqual([ref.id]);
     expect((await viewer.get('/api/references?colour=blue')).status).toBe(400);
@@ -100,7 +109,7 @@ describe('references', () => {
 
   it('creates a reference (librarian) with an audit entry, and refuses viewers and engineers (403)', async () => {
     const ref = await newReference();
-    expect(ref).toMatchObject({ ...REFERENCE, id: expect.any(Number), lockVersion: 0, usedBy: 0, document: null, note: null });
+    expect(ref).toMatchObject({ ...REFERENCE, id: expect.any(Number), version: 1, lockVersion: 0, usedBy: 0, inUse: false, document: null, note: null, versions: [], pending: null, documents: [] });
     expect((await viewer.post('/api/references').send(REFERENCE)).status).toBe(403);
     expect((await engineer.post('/api/references').send(REFERENCE)).status).toBe(403);
     const audit = await admin.get(`/api/admin/audit?entityType=reference&entityId=${ref.id}`);
@@ -152,45 +161,72 @@ describe('references', () => {
 });
 
 describe('reference documents', () => {
-  it('stores a PDF in the object store and gives it back byte for byte, as an attachment, to any signed-in role', async () => {
+  it('stores a PDF in the object store and gives it back byte for byte, as an attachment', async () => {
     const ref = await newReference();
     const file = pdf(64 * 1024);
     const res = await uploadTo(librarian, ref.id, file, 'HSMW proof tests (rev 2).pdf');
     expect(res.status, JSON.stringify(res.body)).toBe(200);
-    expect(res.body.document).toEqual({ name: 'HSMW-proof-tests-rev-2.pdf', size: file.length, uploadedAt: expect.any(String) });
+    expect(res.body.document).toEqual({ name: 'HSMW-proof-tests-rev-2.pdf', size: file.length, uploadedAt: expect.any(String), version: 1 });
 
     const row = await Reference.findByPk(ref.id);
     expect(row!.documentKey).toMatch(new RegExp(`^references/${ref.id}/[a-z0-9]+-[0-9a-f]{12}-HSMW-proof-tests-rev-2\\.pdf$`));
     expect(await documentExists(row!.documentKey!)).toBe(true);
 
-    const download = await viewer.get(`/api/references/${ref.id}/document`).buffer(true).parse(binary);
+    const download = await second.get(`/api/references/${ref.id}/document`).buffer(true).parse(binary);
     expect(download.status).toBe(200);
     expect(download.headers['content-type']).toBe('application/pdf');
     expect(download.headers['content-disposition']).toBe('attachment; filename="HSMW-proof-tests-rev-2.pdf"');
     expect(Buffer.compare(download.body as Buffer, file)).toBe(0);
     expect((await request(handle.app).get(`/api/references/${ref.id}/document`)).status).toBe(401);
-    expect((await viewer.get(`/api/references/${ref.id}`)).body.hasDocument).toBe(true);
+    expect((await second.get(`/api/references/${ref.id}`)).body.hasDocument).toBe(true);
 
     const audit = await admin.get(`/api/admin/audit?entityType=reference&entityId=${ref.id}`);
     expect(audit.body.items[0]).toMatchObject({
       action: 'upload',
       before: { document: null },
-      after: { document: { key: row!.documentKey, name: 'HSMW-proof-tests-rev-2.pdf', size: file.length } },
+      after: { document: { key: row!.documentKey, name: 'HSMW-proof-tests-rev-2.pdf', size: file.length, version: 1 } },
     });
   });
 
-  it('replaces a document: the new one is served and the old object is deleted', async () => {
+  it('adds a second upload as version 2: the latest is served, and the first stays stored and downloadable', async () => {
     const ref = await newReference();
-    expect((await uploadTo(librarian, ref.id, pdf())).status).toBe(200);
+    const before = await objectsUnder(`references/${ref.id}/`);
+    const first = pdf();
+    expect((await uploadTo(librarian, ref.id, first, 'proof-tests.pdf')).status).toBe(200);
     const oldKey = (await Reference.findByPk(ref.id))!.documentKey!;
-    const second = pdf(8192);
-    expect((await uploadTo(librarian, ref.id, second, 'proof-tests-v2.pdf')).status).toBe(200);
+    const next = pdf(8192);
+    const res = await uploadTo(second, ref.id, next, 'proof-tests-v2.pdf');
+    expect(res.status).toBe(200);
+    expect(res.body.document).toMatchObject({ name: 'proof-tests-v2.pdf', version: 2 });
+    expect((res.body.documents as { version: number; name: string; uploadedBy: { name: string } }[]).map((d) => [d.version, d.name, d.uploadedBy.name])).toEqual([
+      [2, 'proof-tests-v2.pdf', 'Corran Vell'],
+      [1, 'proof-tests.pdf', 'Tamsin Oyelaran'],
+    ]);
     const newKey = (await Reference.findByPk(ref.id))!.documentKey!;
     expect(newKey).not.toBe(oldKey);
-    expect(await documentExists(oldKey)).toBe(false);
-    expect(await objectsUnder(`references/${ref.id}/`)).toEqual([newKey]);
-    const download = await engineer.get(`/api/references/${ref.id}/document`).buffer(true).parse(binary);
-    expect(Buffer.compare(download.body as Buffer, second)).toBe(0);
+    expect(await documentExists(oldKey)).toBe(true);
+    expect(await storedByThisTest(ref.id, before)).toEqual([oldKey, newKey].sort());
+
+    const latest = await librarian.get(`/api/references/${ref.id}/document`).buffer(true).parse(binary);
+    expect(Buffer.compare(latest.body as Buffer, next)).toBe(0);
+    const v1 = await librarian.get(`/api/references/${ref.id}/documents/1`).buffer(true).parse(binary);
+    expect(v1.status).toBe(200);
+    expect(v1.headers['content-disposition']).toBe('attachment; filename="proof-tests.pdf"');
+    expect(Buffer.compare(v1.body as Buffer, first)).toBe(0);
+    const v2 = await librarian.get(`/api/references/${ref.id}/documents/2`).buffer(true).parse(binary);
+    expect(Buffer.compare(v2.body as Buffer, next)).toBe(0);
+    const list = await librarian.get(`/api/references/${ref.id}/documents`);
+    expect(list.status).toBe(200);
+    expect((list.body.items as { version: number; size: number }[]).map((d) => [d.version, d.size])).toEqual([
+      [2, next.length],
+      [1, first.length],
+    ]);
+    expect((await librarian.get(`/api/references/${ref.id}/documents/3`)).status).toBe(404);
+    expect((await librarian.get(`/api/references/${ref.id}/documents/first`)).status).toBe(400);
+    expect((await librarian.get(`/api/references/${ref.id}/documents?all=1`)).status).toBe(400);
+
+    const audit = await admin.get(`/api/admin/audit?entityType=reference&entityId=${ref.id}`);
+    expect(audit.body.items[0]).toMatchObject({ action: 'upload', before: { document: { key: oldKey, version: 1 } }, after: { document: { key: newKey, version: 2 } } });
   });
 
   it('keeps the file name safe: no path, no quotes, nothing outside letters, digits, dot, dash and underscore', async () => {
@@ -198,46 +234,51 @@ describe('reference documents', () => {
     const res = await uploadTo(librarian, ref.id, pdf(), '../../etc/"passwd"; rm -rf.pdf');
     expect(res.status).toBe(200);
     expect(res.body.document.name).toMatch(/^[A-Za-z0-9._-]+\.pdf$/);
-    const download = await viewer.get(`/api/references/${ref.id}/document`);
+    const download = await librarian.get(`/api/references/${ref.id}/document`);
     expect(download.headers['content-disposition']).toBe(`attachment; filename="${res.body.document.name}"`);
   });
 
   it('refuses a file that is not a PDF by its content (400), whatever its name, leaving no record and no object', async () => {
     const ref = await newReference();
+    const before = await objectsUnder(`references/${ref.id}/`);
     // A PNG signature (ISO/IEC 15948 §5.2), sent as "report.pdf" with a PDF media type.
     const png = Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), randomBytes(2048)]);
     const res = await uploadTo(librarian, ref.id, png, 'report.pdf');
     expect(res.status).toBe(400);
     expect(res.body.error.code).toBe('not_pdf');
     expect((await Reference.findByPk(ref.id))!.documentKey).toBeNull();
-    expect(await objectsUnder(`references/${ref.id}/`)).toEqual([]);
-    expect((await viewer.get(`/api/references/${ref.id}/document`)).status).toBe(404);
+    expect(await storedByThisTest(ref.id, before)).toEqual([]);
+    expect((await librarian.get(`/api/references/${ref.id}/document`)).status).toBe(404);
+    expect((await librarian.get(`/api/references/${ref.id}/documents`)).body.items).toEqual([]);
   });
 
   it('refuses a file over 20 MB with 413 "too_large", leaving no record and no object', async () => {
     const ref = await newReference();
+    const before = await objectsUnder(`references/${ref.id}/`);
     const big = pdf(DOCUMENT_MAX_BYTES + 1);
     expect(big.length).toBeGreaterThan(DOCUMENT_MAX_BYTES);
     const res = await uploadTo(librarian, ref.id, big);
     expect(res.status).toBe(413);
     expect(res.body.error.code).toBe('too_large');
     expect((await Reference.findByPk(ref.id))!.documentKey).toBeNull();
-    expect(await objectsUnder(`references/${ref.id}/`)).toEqual([]);
+    expect(await storedByThisTest(ref.id, before)).toEqual([]);
   });
 
   it('deletes the stored object when recording it fails, so nothing is orphaned', async () => {
     const ref = await newReference();
+    const before = await objectsUnder(`references/${ref.id}/`);
     vi.spyOn(Reference, 'update').mockRejectedValueOnce(new AppError(503, 'unavailable', 'The database is unavailable. Try again in a moment.'));
     const res = await uploadTo(librarian, ref.id, pdf());
     expect(res.status).toBe(503);
     expect((await Reference.findByPk(ref.id))!.documentKey).toBeNull();
-    expect(await objectsUnder(`references/${ref.id}/`)).toEqual([]);
+    expect(await storedByThisTest(ref.id, before)).toEqual([]);
     const audit = await admin.get(`/api/admin/audit?entityType=reference&entityId=${ref.id}`);
     expect(audit.body.items.map((e: { action: string }) => e.action)).toEqual(['create']);
   });
 
   it('leaves no record and no object when the upload is cut off half way', async () => {
     const ref = await newReference();
+    const before = await objectsUnder(`references/${ref.id}/`);
     const server = handle.app.listen(0, '127.0.0.1');
     await new Promise<void>((resolve) => server.once('listening', () => resolve()));
     const { port } = server.address() as AddressInfo;
@@ -264,16 +305,17 @@ describe('reference documents', () => {
     await new Promise((resolve) => setTimeout(resolve, 300));
     await new Promise<void>((resolve) => server.close(() => resolve()));
     expect((await Reference.findByPk(ref.id))!.documentKey).toBeNull();
-    expect(await objectsUnder(`references/${ref.id}/`)).toEqual([]);
+    expect(await storedByThisTest(ref.id, before)).toEqual([]);
   });
 
   it('refuses uploads from viewers and engineers (403) and anonymous callers (401)', async () => {
     const ref = await newReference();
+    const before = await objectsUnder(`references/${ref.id}/`);
     expect((await uploadTo(viewer, ref.id, pdf())).status).toBe(403);
     expect((await uploadTo(engineer, ref.id, pdf())).status).toBe(403);
     const anon = await request(handle.app).post(`/api/references/${ref.id}/document`).attach('file', pdf(), 'x.pdf');
     expect(anon.status).toBe(401);
-    expect(await objectsUnder(`references/${ref.id}/`)).toEqual([]);
+    expect(await storedByThisTest(ref.id, before)).toEqual([]);
   });
 
   it('answers 404 for an upload to a missing reference (nothing stored), and 400 without a file', async () => {

@@ -16,7 +16,8 @@ import { Invitation, PasswordReset } from '../../server/db/models/projects';
 import { draftInputSchema } from '../../shared/schemas/library';
 import { createDraft, stepSet } from '../../server/modules/library/service';
 import { proposeConfirmation } from '../../server/modules/library/confirmations';
-import { createReference } from '../../server/modules/references/service';
+import { createReference, updateReference } from '../../server/modules/references/service';
+import { stepReferenceVersion } from '../../server/modules/references/versions';
 import { createLoadCase, createProject, addMember } from '../../server/modules/projects/service';
 import { addItem, createShortlist } from '../../server/modules/projects/shortlists';
 import { submitShortlist, checkShortlist } from '../../server/modules/projects/shortlist-steps';
@@ -106,6 +107,22 @@ async function freshPublishedSet(): Promise<{ id: number; lockVersion: number }>
   await row.update({ lineageId: row.id });
   await row.reload();
   return { id: row.id, lockVersion: row.lockVersion };
+}
+/** A reference in use (cited by a set the demo librarian approved) with a change proposed by the second librarian: version 2, in `state`. */
+async function proposedChange(state: 'draft' | 'in-review') {
+  const lib2 = { ...f.secondLibrarian, role: 'librarian' as const };
+  const citation = { kind: 'test-report' as const, title: unique('Harrow Sound matrix report') };
+  const ref = await createReference(citation, lib2);
+  const draft = await createDraft(draftInputSchema.parse({ ...draftBody(f.materialId), condition: unique('Harrow lot cited'), reference: undefined, referenceId: ref.id }), lib2);
+  const inReview = await stepSet(draft.id, 'submit', { lockVersion: draft.lockVersion }, lib2);
+  await stepSet(draft.id, 'approve', { lockVersion: inReview.lockVersion }, actors.librarian);
+  const { reference } = await updateReference(ref.id, ref.lockVersion, { ...citation, location: 'Table 2' }, lib2);
+  let lockVersion = reference.pending!.lockVersion;
+  if (state === 'in-review') {
+    await stepReferenceVersion(ref.id, 2, { step: 'submit', lockVersion }, lib2);
+    lockVersion += 1;
+  }
+  return { id: ref.id, citation, lockVersion };
 }
 const projectActor = (caller: Caller) => (caller === 'anonymous' || !can(caller, 'project:write') ? actors.engineer : actors[caller]);
 async function shortlistOf(caller: Caller, items = 1) {
@@ -220,6 +237,21 @@ const TABLE: Record<string, Entry> = {
   },
   'POST /api/references/:id/document': { build: async () => ({ path: `/api/references/${f.referenceId}/document`, attach: { field: 'file', data: PDF, filename: 'report.pdf', contentType: 'application/pdf' } }) },
   'GET /api/references/:id/document': { build: async () => ({ path: `/api/references/${f.referenceWithDocId}/document` }) },
+  'GET /api/references/:id/documents': { build: async () => ({ path: `/api/references/${f.referenceWithDocId}/documents` }) },
+  'GET /api/references/:id/documents/:version': { build: async () => ({ path: `/api/references/${f.referenceWithDocId}/documents/1` }) },
+  'PUT /api/references/:id/versions/:version': {
+    build: async () => {
+      const c = await proposedChange('draft');
+      return { path: `/api/references/${c.id}/versions/2`, body: { lockVersion: c.lockVersion, reference: { ...c.citation, location: 'Table 3' } } };
+    },
+  },
+  'POST /api/references/:id/versions/:version/steps': {
+    build: async () => {
+      const c = await proposedChange('in-review');
+      return { path: `/api/references/${c.id}/versions/2/steps`, body: { step: 'approve', lockVersion: c.lockVersion } };
+    },
+  },
+  'GET /api/library/reference-versions': { build: json('/api/library/reference-versions?status=in-review') },
 
   'GET /api/admin/audit': { build: json('/api/admin/audit?limit=5') },
   'GET /api/admin/mail': { build: json('/api/admin/mail?limit=5') },

@@ -5,10 +5,12 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, demoEmail } from '../helpers/app';
 import { createAccount, draftBody } from '../helpers/library';
-import { AuditEntry, Material, PropertySet, User } from '../../server/db/models';
+import { AuditEntry, Material, PropertySet, ReferenceVersion, User } from '../../server/db/models';
 import { DesignRecord, Shortlist } from '../../server/db/models/projects';
 import { AppError } from '../../server/errors';
 import { createDraft, stepSet } from '../../server/modules/library/service';
+import { createReference, updateReference } from '../../server/modules/references/service';
+import { stepReferenceVersion } from '../../server/modules/references/versions';
 import { addMember, createLoadCase, createProject } from '../../server/modules/projects/service';
 import { addItem, createShortlist } from '../../server/modules/projects/shortlists';
 import { stepShortlist } from '../../server/modules/projects/shortlist-steps';
@@ -122,6 +124,61 @@ describe('runStep on property sets', () => {
     expect(draft).toMatchObject({ status: 'draft', supersedesId: published.id });
     const again = (await PropertySet.findByPk(publishedSetId))!;
     await expect(stepSet(again.id, 'revise', { lockVersion: again.lockVersion }, people.second)).rejects.toMatchObject({ status: 409, code: 'revision_open' });
+  });
+});
+
+// ---- Reference changes (the curated table without revise and retire) ------------------------
+
+type ChangeState = 'draft' | 'in-review';
+
+/** A reference cited by a published set, and a proposed change to it (version 2) in `state`. */
+async function changeIn(state: ChangeState): Promise<{ referenceId: number; id: number; lockVersion: number }> {
+  const citation = { kind: 'test-report' as const, title: unique('Harrow Sound runner report'), year: 2026 };
+  const ref = await createReference(citation, people.librarian);
+  const draft = await createDraft(draftInputSchema.parse(draftBody(acrylicId, { condition: unique('Harrow Sound runner lot'), reference: undefined, referenceId: ref.id })), people.librarian);
+  const inReview = await stepSet(draft.id, 'submit', { lockVersion: draft.lockVersion }, people.librarian);
+  await stepSet(draft.id, 'approve', { lockVersion: inReview.lockVersion }, people.second);
+  const { reference } = await updateReference(ref.id, ref.lockVersion, { ...citation, location: 'Table 9' }, people.librarian);
+  let row = reference.pending!;
+  if (state === 'in-review') {
+    await stepReferenceVersion(ref.id, 2, { step: 'submit', lockVersion: row.lockVersion }, people.librarian);
+    row = { ...row, lockVersion: (await ReferenceVersion.findByPk(row.id))!.lockVersion };
+  }
+  return { referenceId: ref.id, id: row.id, lockVersion: row.lockVersion };
+}
+
+const CHANGE_CASES: [string, ChangeState, 'submit' | 'approve' | 'return', keyof typeof people, { comment?: string; stale?: boolean }, Expect][] = [
+  ['its author approves it', 'in-review', 'approve', 'librarian', {}, { ok: false, http: 403, code: 'own_work' }],
+  ['its author returns it', 'in-review', 'return', 'librarian', { comment: 'Check the table.' }, { ok: false, http: 403, code: 'own_work' }],
+  ['a draft change is approved', 'draft', 'approve', 'second', {}, { ok: false, http: 409, code: 'wrong_status' }],
+  ['an engineer approves it', 'in-review', 'approve', 'engineer', {}, { ok: false, http: 403, code: 'forbidden' }],
+  ['an approval from an older read', 'in-review', 'approve', 'second', { stale: true }, { ok: false, http: 409, code: 'stale' }],
+  ['its author submits it', 'draft', 'submit', 'librarian', {}, { ok: true, status: 'in-review' }],
+  ['a second librarian returns it', 'in-review', 'return', 'second', { comment: 'Name the table page.' }, { ok: true, status: 'draft' }],
+  ['a second librarian approves it', 'in-review', 'approve', 'second', {}, { ok: true, status: 'published' }],
+];
+
+describe('runStep on reference changes', () => {
+  it.each(CHANGE_CASES)('%s', async (_label, state, step, who, input, expected) => {
+    const change = await changeIn(state);
+    const before = (await ReferenceVersion.findByPk(change.id))!;
+    const audits = await auditCount('reference-version', change.id);
+    const lockVersion = input.stale ? change.lockVersion - 1 : change.lockVersion;
+    await expectOutcome(() => stepReferenceVersion(change.referenceId, 2, step === 'return' ? { step, lockVersion, comment: input.comment! } : { step, lockVersion }, people[who]), expected);
+    const after = (await ReferenceVersion.findByPk(change.id))!;
+    if (expected.ok) {
+      expect(after.status).toBe(expected.status);
+      expect(after.lockVersion).toBe(before.lockVersion + 1);
+      const entries = await AuditEntry.findAll({ where: { entityType: 'reference-version', entityId: String(change.id) }, order: [['id', 'DESC']] });
+      expect(entries).toHaveLength(audits + 1);
+      expect([entries[0].action, entries[0].actorId]).toEqual([step, people[who].id]);
+      // Approval retires the version it supersedes.
+      if (step === 'approve') expect((await ReferenceVersion.findByPk(before.supersedesId!))!).toMatchObject({ status: 'retired', supersededById: change.id });
+    } else {
+      expect([after.status, after.lockVersion]).toEqual([before.status, before.lockVersion]);
+      expect(await auditCount('reference-version', change.id)).toBe(audits);
+      expect((await ReferenceVersion.findByPk(before.supersedesId!))!.status).toBe('published');
+    }
   });
 });
 

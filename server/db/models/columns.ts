@@ -3,6 +3,7 @@
 import { DataTypes, Model, type CreationOptional, type ModelStatic, type NonAttribute } from 'sequelize';
 import type { CuratedStatus } from '../../../shared/workflows/curated';
 import type { Material, Reference, User } from './index';
+import type { ReferenceVersion } from './references';
 
 // Functions, not shared objects: Sequelize writes into each attribute's definition (its field
 // name, its model), so two attributes or two models must never share one object.
@@ -16,6 +17,7 @@ export const lockVersionColumn = () => ({ lockVersion: { type: DataTypes.INTEGER
 export const curatedColumns = () => ({
   materialId: { type: DataTypes.INTEGER, allowNull: false },
   referenceId: { type: DataTypes.INTEGER },
+  referenceVersionId: { type: DataTypes.INTEGER },
   status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
   version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
   lineageId: { type: DataTypes.INTEGER },
@@ -40,6 +42,8 @@ export abstract class CuratedModel<A extends object = object, C extends object =
   declare id: CreationOptional<number>;
   declare materialId: number;
   declare referenceId: number | null;
+  /** The version of the reference it was published with (null while draft or in review: it cites the current one). */
+  declare referenceVersionId: CreationOptional<number | null>;
   declare status: CreationOptional<CuratedStatus>;
   declare version: CreationOptional<number>;
   declare lineageId: number | null;
@@ -59,15 +63,21 @@ export abstract class CuratedModel<A extends object = object, C extends object =
 
   declare material?: NonAttribute<Material>;
   declare reference?: NonAttribute<Reference | null>;
+  declare citedVersion?: NonAttribute<ReferenceVersion | null>;
   declare draftedBy?: NonAttribute<User | null>;
   declare lastEditedBy?: NonAttribute<User | null>;
   declare approvedBy?: NonAttribute<User | null>;
 }
 
-/** A curated record's material, reference and people. */
-export function curatedAssociations(model: ModelStatic<CuratedModel>, to: { Material: ModelStatic<Model>; Reference: ModelStatic<Model>; User: ModelStatic<Model> }): void {
+/** A curated record's material, reference (and the version of it a published record cites) and people. */
+export function curatedAssociations(
+  model: ModelStatic<CuratedModel>,
+  to: { Material: ModelStatic<Model>; Reference: ModelStatic<Model>; ReferenceVersion: ModelStatic<Model>; User: ModelStatic<Model> },
+): void {
   model.belongsTo(to.Material, { as: 'material', foreignKey: 'materialId' });
   model.belongsTo(to.Reference, { as: 'reference', foreignKey: 'referenceId' });
+  // The key in the table is (reference_id, reference_version_id); the association needs only the version's id.
+  model.belongsTo(to.ReferenceVersion, { as: 'citedVersion', foreignKey: 'referenceVersionId', constraints: false });
   model.belongsTo(to.User, { as: 'draftedBy', foreignKey: 'draftedById' });
   model.belongsTo(to.User, { as: 'lastEditedBy', foreignKey: 'lastEditedById' });
   model.belongsTo(to.User, { as: 'approvedBy', foreignKey: 'approvedById' });

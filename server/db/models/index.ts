@@ -11,6 +11,7 @@ import { sequelize } from '../sequelize';
 import { initProjectModels } from './projects';
 import { initRatingTableModels } from './rating-tables';
 import { initValueConfirmationModels } from './value-confirmations';
+import { initReferenceModels, ReferenceVersion } from './references';
 import { CuratedModel, curatedAssociations, curatedColumns, lockVersionColumn, serialId, timestamps } from './columns';
 import type {
   CyclesPoint,
@@ -61,6 +62,10 @@ export class Reference extends Model<InferAttributes<Reference>, InferCreationAt
   declare documentName: CreationOptional<string | null>;
   declare documentSize: CreationOptional<number | null>;
   declare documentUploadedAt: CreationOptional<Date | null>;
+  /** Which version of the reference's documents the document_* columns name (reference_documents). */
+  declare documentVersion: CreationOptional<number | null>;
+  /** The published version of the citation, whose content these columns hold (reference_versions). */
+  declare version: CreationOptional<number>;
   declare lockVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -155,11 +160,14 @@ export function initModels(): void {
         },
       },
       documentUploadedAt: { type: DataTypes.DATE },
+      documentVersion: { type: DataTypes.INTEGER },
+      version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       ...lockVersionColumn(),
       ...timestamps(),
     },
     { sequelize: db, tableName: 'data_references', version: 'lockVersion' },
   );
+  initReferenceModels(db);
   PropertySet.init(
     {
       ...serialId(),
@@ -200,7 +208,7 @@ export function initModels(): void {
     { sequelize: db, tableName: 'audit_log', updatedAt: false },
   );
 
-  curatedAssociations(PropertySet, { Material, Reference, User });
+  curatedAssociations(PropertySet, { Material, Reference, ReferenceVersion, User });
   Material.hasMany(PropertySet, { as: 'propertySets', foreignKey: 'materialId' });
   AuditEntry.belongsTo(User, { as: 'actor', foreignKey: 'actorId', constraints: false });
   initProjectModels(db);
@@ -211,3 +219,4 @@ export function initModels(): void {
 
 export { RatingTable } from './rating-tables';
 export { ValueConfirmation } from './value-confirmations';
+export { ReferenceDocument, ReferenceVersion } from './references';

@@ -1,6 +1,7 @@
 import { DataTypes, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { RatingGeometryValue, RatingTableContent, RatingTableData } from '../../../shared/schemas/rating-tables';
 import { Material, Reference, User } from './index';
+import { ReferenceVersion } from './references';
 import { CuratedModel, curatedAssociations, curatedColumns, serialId } from './columns';
 
 export class RatingTable extends CuratedModel<InferAttributes<RatingTable>, InferCreationAttributes<RatingTable>> {
@@ -30,5 +31,5 @@ export function initRatingTableModels(db: Sequelize): void {
     },
     { sequelize: db, tableName: 'rating_tables', version: 'lockVersion' },
   );
-  curatedAssociations(RatingTable, { Material, Reference, User });
+  curatedAssociations(RatingTable, { Material, Reference, ReferenceVersion, User });
 }

@@ -5,6 +5,7 @@ import type { Transaction } from 'sequelize';
 import { ROOT_DIR } from '../../config/env';
 import { Material, PropertySet, RatingTable, Reference } from '../models';
 import { ratingTableContentSchema } from '../../../shared/schemas/rating-tables';
+import { citedVersionId } from '../../modules/references/versions';
 import type { Provenance, ProvenanceInput } from '../../../shared/schemas/provenance';
 import {
   materialInputSchema,
@@ -62,6 +63,7 @@ export async function seedCatalogue(transaction: Transaction): Promise<number> {
         luminousTransmittance: values.luminousTransmittance ?? null,
         materialId,
         referenceId,
+        referenceVersionId: await citedVersionId(referenceId, transaction),
         status: 'published',
         version: 1,
         lineageId: null,
@@ -118,6 +120,7 @@ export async function seedRatingTables(transaction: Transaction): Promise<number
       {
         materialId: mat.id,
         referenceId: ref.id,
+        referenceVersionId: await citedVersionId(ref.id, transaction),
         coversLineageIds: sets.map((s) => s.lineageId ?? s.id).sort((a, b) => a - b),
         name: content.name,
         geometry: content.geometry,

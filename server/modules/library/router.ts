@@ -9,6 +9,7 @@ import {
   draftUpdateSchema,
   IMPORT_MAX_BYTES,
   libraryQueueQuerySchema,
+  referenceVersionQuerySchema,
   retireSchema,
   returnSchema,
   transitionSchema,
@@ -16,6 +17,7 @@ import {
 import { createDraft, getChanges, getLibrarySet, listQueue, stepSet, updateDraft } from './service';
 import { previewImport, runImport, templateCsv } from './import';
 import { listConfirmations, proposeConfirmation, stepConfirmation } from './confirmations';
+import { listProposedVersions } from '../references/versions';
 import { confirmationProposalSchema, confirmationQuerySchema, confirmationStepSchema } from '../../../shared/schemas/provenance';
 
 const actor = actorOf;
@@ -67,6 +69,10 @@ export function libraryRouter(): Router {
   });
   router.post('/confirmations/:id/steps', authorize('catalogue:approve'), async (req, res) => {
     res.json(await stepConfirmation(parseId(req.params.id), parse(confirmationStepSchema, body(req), 'step'), actor(req)));
+  });
+  // Proposed changes to references in use, for the desk's review queue.
+  router.get('/reference-versions', authorize('catalogue:draft'), async (req, res) => {
+    res.json({ items: await listProposedVersions(parse(referenceVersionQuerySchema, req.query, 'query')) });
   });
   router.get('/import/template.csv', authorize('catalogue:draft'), (req, res) => {
     parse(noQuery, req.query, 'query');

@@ -242,7 +242,9 @@ export function renderDesignRecordPdf(recordId: number, c: DesignRecordContent):
     pair('Data', `property set ${set.id}, version ${set.version} (${set.status}), ${set.material.name} — ${set.condition}`);
     const ref = set.reference;
     if (ref) {
-      pair('Source', [ref.authors, ref.year, ref.title, ref.identifier, ref.location].filter(Boolean).join('; '));
+      // Records frozen before references were versioned cite version 1 and name no document version.
+      const versions = [`reference version ${ref.version ?? 1}`, ...(ref.documentVersion ? [`document version ${ref.documentVersion}`] : [])].join(', ');
+      pair('Source', `${[ref.authors, ref.year, ref.title, ref.identifier, ref.location].filter(Boolean).join('; ')} (${versions})`);
     }
     const inputs = describeInputs(set);
     pair('Inputs', `${inputs.filter((v) => v.status === 'confirmed').length} of ${inputs.length} confirmed against their source`);

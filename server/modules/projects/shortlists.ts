@@ -18,7 +18,7 @@ import { candidateForSet } from '../property-sets/snapshot';
 import { AppError, badRequest, conflict, forbidden, notFound } from '../../errors';
 import { assertCurrent, lockCurrent, touch } from '../../services/optimistic-lock';
 import { recordAudit } from '../../services/audit';
-import { propertySetDto } from '../property-sets/service';
+import { citedVersionInclude, propertySetDto } from '../property-sets/service';
 import { visibleProject, writableProject, type Actor } from './access';
 import { loadCaseDto, userSummary } from './service';
 
@@ -29,6 +29,7 @@ const itemInclude = [
     include: [
       { model: Material, as: 'material' },
       { model: Reference, as: 'reference' },
+      citedVersionInclude(),
       { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
       { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
     ],

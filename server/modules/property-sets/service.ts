@@ -1,5 +1,5 @@
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions, type Includeable } from 'sequelize';
-import { Material, PropertySet, Reference, User } from '../../db/models';
+import { Material, PropertySet, Reference, ReferenceVersion, User } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { recordAudit } from '../../services/audit';
 import { mechanicalValues } from '../../../shared/engine/candidates';
@@ -26,19 +26,30 @@ export function materialDto(m: Material): MaterialDto {
   return { id: m.id, name: m.name, family: m.family, transparent: m.transparent, description: m.description };
 }
 
-export function referenceDto(r: Reference): ReferenceDto {
+/**
+ * A citation: the reference's current content, or, for a record published with an earlier
+ * version (`cited`), that version's. The documents are the reference's (the latest one).
+ */
+export function referenceDto(r: Reference, cited?: ReferenceVersion | null): ReferenceDto {
+  const c = cited ?? r;
   return {
     id: r.id,
-    kind: r.kind,
-    title: r.title,
-    authors: r.authors,
-    year: r.year,
-    identifier: r.identifier,
-    location: r.location,
-    note: r.note,
+    kind: c.kind,
+    title: c.title,
+    authors: c.authors,
+    year: c.year,
+    identifier: c.identifier,
+    location: c.location,
+    note: c.note,
+    version: cited?.version ?? r.version,
+    latestVersion: r.version,
     hasDocument: !!r.documentKey,
+    documentVersion: r.documentVersion ?? null,
   };
 }
+
+/** The include that brings the version of its reference a published record cites. */
+export const citedVersionInclude = () => ({ model: ReferenceVersion, as: 'citedVersion' });
 
 const userRef = (u: User | null | undefined) => (u ? { id: u.id, name: u.name } : null);
 
@@ -50,7 +61,7 @@ export function propertySetDto(ps: PropertySet): PropertySetDto {
     lineageId: ps.lineageId ?? ps.id,
     condition: ps.condition,
     material: materialDto(ps.material!),
-    reference: ps.reference ? referenceDto(ps.reference) : null,
+    reference: ps.reference ? referenceDto(ps.reference, ps.citedVersion) : null,
     ...mechanicalValues(ps),
     elongation: ps.elongation,
     luminousTransmittance: ps.luminousTransmittance,
@@ -88,6 +99,7 @@ export function include(materialWhere?: WhereOptions<Material>): Includeable[] {
   return [
     { model: Material, as: 'material', required: true, ...(materialWhere ? { where: materialWhere } : {}) },
     { model: Reference, as: 'reference' },
+    citedVersionInclude(),
     { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
     { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
     { model: User, as: 'lastEditedBy', attributes: ['id', 'name'] },

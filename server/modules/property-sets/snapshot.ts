@@ -2,7 +2,7 @@ import { Material, PropertySet, RatingTable, Reference, User } from '../../db/mo
 import type { PropertySetDto } from '../../../shared/schemas/catalogue';
 import { candidateFromPropertySet } from '../../../shared/engine';
 import type { CandidateMaterial } from '../../../shared/engine';
-import { propertySetDto } from './service';
+import { citedVersionInclude, propertySetDto } from './service';
 import { publishedRatingTables, tablesCovering, type PublishedRatingTable } from '../rating-tables/service';
 import { announce, cachesUsable, onChange } from '../../services/change-feed';
 import type { Transaction } from 'sequelize';
@@ -75,6 +75,7 @@ function readSnapshot(): Promise<{ entries: CatalogueEntry[]; tables: PublishedR
       include: [
         { model: Material, as: 'material', required: true },
         { model: Reference, as: 'reference' },
+        citedVersionInclude(),
         { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
         { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
       ],

@@ -2,7 +2,7 @@
 // (server/workflows/curated-steps.ts), reading, and the published tables the engine sizes
 // windows with.
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
-import { Material, PropertySet, RatingTable, Reference, User } from '../../db/models';
+import { Material, PropertySet, RatingTable, Reference, ReferenceVersion, User } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { badRequest, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
@@ -10,7 +10,8 @@ import { auditSnapshot, draftWorkflowColumns, lockCurrent, runCuratedStep, type 
 import type { RatingTable as EngineRatingTable } from '../../../shared/engine';
 import { ratingTableContentSchema, type RatingTableDraft, type RatingTableDto, type RatingTableListDto, type RatingTableStepInput } from '../../../shared/schemas/rating-tables';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
-import { referenceDto } from '../property-sets/service';
+import { citedVersionInclude, referenceDto } from '../property-sets/service';
+import { citedVersionId } from '../references/versions';
 
 export interface Caller {
   canDraft: boolean;
@@ -19,6 +20,7 @@ export interface Caller {
 const include = () => [
   { model: Material, as: 'material', required: true },
   { model: Reference, as: 'reference' },
+  citedVersionInclude(),
   { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
   { model: User, as: 'lastEditedBy', attributes: ['id', 'name'] },
   { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
@@ -26,10 +28,11 @@ const include = () => [
 
 const userRef = (u: User | null | undefined) => (u ? { id: u.id, name: u.name } : null);
 
-/** The citation as one line, for results and records. */
-export function citation(r: Reference | null | undefined): string {
+/** The citation as one line, for results and records: the version a published table was approved with. */
+export function citation(r: Reference | null | undefined, cited?: ReferenceVersion | null): string {
   if (!r) return 'No reference (draft)';
-  return [r.authors, r.year, r.title, r.identifier, r.location].filter(Boolean).join('; ');
+  const c = cited ?? r;
+  return [c.authors, c.year, c.title, c.identifier, c.location].filter(Boolean).join('; ');
 }
 
 /** The current version of each covered lineage (for names on screens). */
@@ -56,7 +59,7 @@ export function ratingTableDto(r: RatingTable, covered: Map<number, { propertySe
     lineageId: r.lineageId ?? r.id,
     lockVersion: r.lockVersion,
     material: { id: r.material!.id, name: r.material!.name, family: r.material!.family },
-    reference: ref ? referenceDto(ref) : null,
+    reference: ref ? referenceDto(ref, r.citedVersion) : null,
     covers: (r.coversLineageIds ?? []).map((lineageId) => ({ lineageId, ...(covered.get(lineageId) ?? { propertySetId: lineageId, condition: `lineage ${lineageId}` }) })),
     content: {
       name: r.name,
@@ -170,7 +173,7 @@ const ratingTableKind: CuratedKind<RatingTable> = {
     const material = await Material.findByPk(row.materialId, { attributes: ['name'] });
     return `${row.name} (${material?.name ?? 'material'})`;
   },
-  path: (id) => `/library/rating-tables/${id}`,
+  path: (row) => `/library/rating-tables/${row.id}`,
   async checkPublishable(row) {
     // Tables drafted before a schema rule tightened are checked again before they reach the engine.
     const check = ratingTableContentSchema.safeParse({ name: row.name, geometry: row.geometry, includedAngle: row.includedAngle, limits: row.limits, grade: row.grade, note: row.note, data: row.data });
@@ -188,6 +191,10 @@ const ratingTableKind: CuratedKind<RatingTable> = {
     note: row.note,
     data: row.data,
   }),
+  // A published table keeps the version of its reference it was approved with.
+  async onPublish(row, _actor, transaction) {
+    row.set({ referenceVersionId: row.referenceId ? await citedVersionId(row.referenceId, transaction) : null });
+  },
   afterCommit: () => invalidateCatalogueSnapshot(),
 };
 
@@ -207,7 +214,7 @@ export interface PublishedRatingTable {
 }
 
 export async function publishedRatingTables(): Promise<PublishedRatingTable[]> {
-  const rows = await RatingTable.findAll({ where: { status: 'published' }, include: [{ model: Reference, as: 'reference' }], order: [['id', 'ASC']] });
+  const rows = await RatingTable.findAll({ where: { status: 'published' }, include: [{ model: Reference, as: 'reference' }, citedVersionInclude()], order: [['id', 'ASC']] });
   return rows.map((r) => ({
     materialId: r.materialId,
     coversLineageIds: r.coversLineageIds ?? [],
@@ -218,7 +225,7 @@ export async function publishedRatingTables(): Promise<PublishedRatingTable[]> {
       geometry: r.geometry,
       includedAngle: r.includedAngle ?? null,
       limits: r.limits ?? null,
-      source: citation(r.reference),
+      source: citation(r.reference, r.citedVersion),
       data: r.data,
     },
   }));

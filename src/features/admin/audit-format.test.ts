@@ -19,6 +19,8 @@ describe('audit log formatting', () => {
   it('links property sets and materials, and names entity types', () => {
     expect(entityHref('property-set', '12')).toBe('/library/sets/12');
     expect(entityHref('import', '3')).toBeNull();
+    expect(entityHref('reference', '7')).toBe('/library/references/7');
+    expect(entityLabel('reference-version')).toBe('Reference change');
     expect(entityHref('material', null)).toBeNull();
     expect(entityLabel('import')).toBe('CSV import');
     expect(entityLabel('widget')).toBe('widget');

@@ -3,6 +3,7 @@
 const ENTITY_LABELS: Record<string, string> = {
   'property-set': 'Property set',
   reference: 'Reference',
+  'reference-version': 'Reference change',
   material: 'Material',
   import: 'CSV import',
   user: 'User',
@@ -17,6 +18,7 @@ export function entityHref(type: string, id: string | null): string | null {
   if (!id) return null;
   if (type === 'property-set') return `/library/sets/${encodeURIComponent(id)}`;
   if (type === 'material') return `/materials/${encodeURIComponent(id)}`;
+  if (type === 'reference') return `/library/references/${encodeURIComponent(id)}`;
   return null;
 }
 

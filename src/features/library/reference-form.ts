@@ -15,7 +15,8 @@ export interface ReferenceForm {
 
 export const emptyReferenceForm = (): ReferenceForm => ({ kind: '', title: '', authors: '', year: '', identifier: '', location: '', note: '' });
 
-export function referenceFormFrom(r: ReferenceDto): ReferenceForm {
+/** The form holding a reference's citation (a reference, or one of its versions). */
+export function referenceFormFrom(r: Pick<ReferenceDto, 'kind' | 'title' | 'authors' | 'year' | 'identifier' | 'location' | 'note'> & Partial<ReferenceDto>): ReferenceForm {
   return {
     kind: r.kind,
     title: r.title,

@@ -24,6 +24,8 @@ export const referenceKeys = {
   lists: () => [...referenceKeys.all, 'list'] as const,
   list: (q: string) => [...referenceKeys.lists(), { q }] as const,
   detail: (id: number) => [...referenceKeys.all, 'detail', id] as const,
+  /** Proposed changes waiting on the desk (GET /api/library/reference-versions). */
+  proposed: (status?: 'draft' | 'in-review') => [...referenceKeys.all, 'proposed', { status }] as const,
 };
 
 /**

@@ -1,7 +1,8 @@
 import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { ReferenceInput } from '@shared/schemas/catalogue';
-import type { ReferenceDetailDto, ReferenceListDto } from '@shared/schemas/library';
+import type { ReferenceListDto, ReferencePageDto, ReferenceVersionStepInput, PendingReferenceVersionDto } from '@shared/schemas/library';
+import type { ItemsDto } from '@shared/schemas/responses';
 import { CATALOGUE_KEY_ROOTS, librarySetKeys, referenceKeys } from './keys';
 
 export const referencesQueryOptions = (q: string) =>
@@ -9,14 +10,17 @@ export const referencesQueryOptions = (q: string) =>
 
 export const useReferences = (q: string) => useQuery({ ...referencesQueryOptions(q), placeholderData: keepPreviousData });
 
-/** Where a signed-in user downloads a reference's document (a plain link: the browser saves it). */
+/** Where a signed-in user downloads a reference's latest document (a plain link: the browser saves it). */
 export const documentUrl = (referenceId: number) => `/api/references/${referenceId}/document`;
+/** Where one document version is downloaded. */
+export const documentVersionUrl = (referenceId: number, version: number) => `/api/references/${referenceId}/documents/${version}`;
 
 function useSettle() {
   const qc = useQueryClient();
-  return (ref: ReferenceDetailDto) => {
+  return (ref: ReferencePageDto) => {
     qc.setQueryData(referenceKeys.detail(ref.id), ref);
     void qc.invalidateQueries({ queryKey: referenceKeys.lists() });
+    void qc.invalidateQueries({ queryKey: [...referenceKeys.all, 'proposed'] });
     // Sets show their reference, so the catalogue and desk views refresh too.
     void qc.invalidateQueries({ queryKey: librarySetKeys.all });
     for (const root of CATALOGUE_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
@@ -25,13 +29,32 @@ function useSettle() {
 
 export function useCreateReference() {
   const settle = useSettle();
-  return useMutation({ mutationFn: (input: ReferenceInput) => api.post<ReferenceDetailDto>('/references', input), onSuccess: settle });
+  return useMutation({ mutationFn: (input: ReferenceInput) => api.post<ReferencePageDto>('/references', input), onSuccess: settle });
 }
 
+/** Saves a reference: in place when not in use; otherwise the server keeps it as a proposed new version. */
 export function useUpdateReference(id: number) {
   const settle = useSettle();
   return useMutation({
-    mutationFn: (body: { lockVersion: number; reference: ReferenceInput }) => api.put<ReferenceDetailDto>(`/references/${id}`, body),
+    mutationFn: (body: { lockVersion: number; reference: ReferenceInput }) => api.put<ReferencePageDto>(`/references/${id}`, body),
+    onSuccess: settle,
+  });
+}
+
+/** Saves a proposed change (a version in draft) again. */
+export function useUpdateProposedVersion(id: number) {
+  const settle = useSettle();
+  return useMutation({
+    mutationFn: ({ version, ...body }: { version: number; lockVersion: number; reference: ReferenceInput }) => api.put<ReferencePageDto>(`/references/${id}/versions/${version}`, body),
+    onSuccess: settle,
+  });
+}
+
+/** Submits, approves or returns a proposed change. */
+export function useReferenceVersionStep(id: number) {
+  const settle = useSettle();
+  return useMutation({
+    mutationFn: ({ version, input }: { version: number; input: ReferenceVersionStepInput }) => api.post<ReferencePageDto>(`/references/${id}/versions/${version}/steps`, input),
     onSuccess: settle,
   });
 }
@@ -42,13 +65,22 @@ export function useUploadDocument(id: number) {
     mutationFn: ({ file, onProgress, signal }: { file: File; onProgress: (loaded: number, total: number) => void; signal?: AbortSignal }) => {
       const form = new FormData();
       form.append('file', file, file.name);
-      return api.upload<ReferenceDetailDto>(`/references/${id}/document`, form, { onProgress, signal });
+      return api.upload<ReferencePageDto>(`/references/${id}/document`, form, { onProgress, signal });
     },
     onSuccess: settle,
   });
 }
 
 export const referenceQueryOptions = (id: number) =>
-  queryOptions({ queryKey: referenceKeys.detail(id), queryFn: () => api.get<ReferenceDetailDto>(`/references/${id}`) });
+  queryOptions({ queryKey: referenceKeys.detail(id), queryFn: () => api.get<ReferencePageDto>(`/references/${id}`) });
 
 export const useReference = (id: number | null) => useQuery({ ...referenceQueryOptions(id ?? 0), enabled: id !== null });
+
+/** Proposed reference changes on the desk: in review (the review queue), or drafts and reviews. */
+export const proposedVersionsQueryOptions = (status?: 'draft' | 'in-review') =>
+  queryOptions({
+    queryKey: referenceKeys.proposed(status),
+    queryFn: () => api.get<ItemsDto<PendingReferenceVersionDto>>('/library/reference-versions', status ? { status } : {}),
+  });
+
+export const useProposedVersions = (status?: 'draft' | 'in-review') => useQuery(proposedVersionsQueryOptions(status));

@@ -1,10 +1,11 @@
 import { useEffect, useMemo, useState, type ReactNode } from 'react';
 import { Link, useLocation, useNavigate } from 'react-router-dom';
-import type { LibrarySetDto } from '@shared/schemas/library';
+import type { LibrarySetDto, PendingReferenceVersionDto } from '@shared/schemas/library';
 import type { SessionUserDto } from '@shared/schemas/auth';
 import { TextField } from '@/components/ui/field';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useLibrarySets, usePublishedSets } from '../api/library-sets';
+import { useProposedVersions } from '../api/references';
 import { STATUS_LABELS, STATUS_TONE, formatDateTime } from '../labels';
 import { isOwnWork } from './review-panel';
 import { LinkButton } from '@/components/ui/link-button';
@@ -32,6 +33,49 @@ function SetTable({ label, items, columns }: { label: string; items: LibrarySetD
         </tr>
       ))}
     </PlainTable>
+  );
+}
+
+const ownChange = (v: PendingReferenceVersionDto, me: SessionUserDto) => v.draftedBy?.id === me.id || v.lastEditedBy?.id === me.id;
+
+/** Proposed changes to references in use: the version, what it changes, and who proposed it. */
+function ReferenceChangeTable({ label, items }: { label: string; items: PendingReferenceVersionDto[] }) {
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label={label}>
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th scope="col" className="py-1 pr-3">Reference</th>
+            <th scope="col" className="py-1 pr-3">Changes</th>
+            <th scope="col" className="py-1 pr-3">Proposed by</th>
+            <th scope="col" className="py-1 pr-3">Status</th>
+          </tr>
+        </thead>
+        <tbody>
+          {items.map((v) => (
+            <tr key={v.id} className="border-t border-chart-line/60 align-top">
+              <td className="py-1.5 pr-3">
+                <Link to={`/library/references/${v.referenceId}`} className="font-bold text-sounding hover:underline">
+                  {v.current.title}
+                </Link>
+                <span className="block text-xs text-ink-soft">
+                  version {v.current.version} → {v.version}
+                </span>
+              </td>
+              <td className="py-1.5 pr-3 text-xs">{v.changes.map((c) => c.field).join(', ') || '—'}</td>
+              <td className="py-1.5 pr-3">
+                {v.lastEditedBy?.name ?? v.draftedBy?.name ?? '—'}
+                {v.submittedAt ? <span className="block text-xs text-ink-soft">{formatDateTime(v.submittedAt)}</span> : null}
+              </td>
+              <td className="py-1.5 pr-3">
+                <Tag tone={STATUS_TONE[v.status]}>{STATUS_LABELS[v.status]}</Tag>
+                {v.returnedComment && v.status === 'draft' ? <span className="block text-xs text-ink-soft">returned</span> : null}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
   );
 }
 
@@ -90,6 +134,9 @@ export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
   const drafts = own.filter((s) => s.status === 'draft' && !s.returnedComment);
   const waiting = own.filter((s) => s.status === 'in-review');
   const toReview = me ? (queue.data?.items ?? []).filter((s) => !isOwnWork(s, me)) : [];
+  const changes = useProposedVersions();
+  const changesToReview = me ? (changes.data?.items ?? []).filter((v) => v.status === 'in-review' && !ownChange(v, me)) : [];
+  const ownChanges = me ? (changes.data?.items ?? []).filter((v) => ownChange(v, me)) : [];
 
   return (
     <div className="flex flex-col gap-5">
@@ -179,27 +226,46 @@ export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
         </div>
 
         <div className="flex flex-col gap-5">
-          <Panel title={`Review queue (${toReview.length})`}>
-            {queue.isPending ? (
+          <Panel title={`Review queue (${toReview.length + changesToReview.length})`}>
+            {queue.isPending || changes.isPending ? (
               <Spinner label="Loading the review queue…" />
             ) : queue.isError ? (
               <ErrorState error={queue.error} onRetry={() => void queue.refetch()} />
-            ) : toReview.length ? (
-              <SetTable
-                label="Review queue"
-                items={toReview}
-                columns={[
-                  { header: 'Submitted by', cell: (s) => s.lastEditedBy?.name ?? s.draftedBy?.name ?? '—' },
-                  { header: 'When', cell: (s) => formatDateTime(s.submittedAt) },
-                  { header: 'Version', cell: (s) => s.version },
-                ]}
-              />
+            ) : changes.isError ? (
+              <ErrorState error={changes.error} onRetry={() => void changes.refetch()} />
+            ) : toReview.length || changesToReview.length ? (
+              <div className="flex flex-col gap-4">
+                {toReview.length ? (
+                  <SetTable
+                    label="Review queue"
+                    items={toReview}
+                    columns={[
+                      { header: 'Submitted by', cell: (s) => s.lastEditedBy?.name ?? s.draftedBy?.name ?? '—' },
+                      { header: 'When', cell: (s) => formatDateTime(s.submittedAt) },
+                      { header: 'Version', cell: (s) => s.version },
+                    ]}
+                  />
+                ) : null}
+                {changesToReview.length ? (
+                  <div className="flex flex-col gap-1">
+                    <h3 className="text-xs font-bold uppercase tracking-wide text-ink-soft">Reference changes</h3>
+                    <ReferenceChangeTable label="Reference changes to review" items={changesToReview} />
+                  </div>
+                ) : null}
+              </div>
             ) : (
               <EmptyState title="Nothing waits for your review">
-                When another librarian submits a set, it appears here and you get an e-mail. Your own submissions go to someone else.
+                When another librarian submits a set or a change to a reference in use, it appears here and you get an e-mail. Your own submissions go to
+                someone else.
               </EmptyState>
             )}
           </Panel>
+          {ownChanges.length ? (
+            <Panel title={`Your reference changes (${ownChanges.length})`}>
+              <ReferenceChangeTable label="Your reference changes" items={ownChanges} />
+              <p className="mt-2 text-xs text-ink-soft">A change to a reference in use is published when another librarian approves it.</p>
+            </Panel>
+          ) : null}
           <PublishedSearch />
         </div>
       </div>

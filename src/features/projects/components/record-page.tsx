@@ -175,6 +175,16 @@ function Sources({ content }: { content: DesignRecordContent }) {
                   {r.location ? ` — ${r.location}` : ''}
                 </p>
                 {r.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{r.note}</p> : null}
+                {/* Records frozen before references were versioned cite version 1 and name no document version. */}
+                <p className="text-xs text-ink-soft" data-testid="record-reference-version">
+                  Citation version {r.version ?? 1}
+                  {r.documentVersion ? `, document version ${r.documentVersion}` : ''} (as frozen)
+                </p>
+                {r.documentVersion ? (
+                  <a href={`/api/references/${r.id}/documents/${r.documentVersion}`} className="no-print text-xs font-bold text-sounding underline">
+                    Download the source PDF as frozen
+                  </a>
+                ) : null}
               </div>
             ) : (
               <p className="text-verdict-fail">No reference was recorded for this set.</p>
