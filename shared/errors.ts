@@ -43,6 +43,7 @@ export const ERROR_CODES = [
   'unsupported_media_type',
   'unsupported_encoding',
   'too_many_attempts',
+  'too_many_requests',
   // 5xx
   'internal',
   'unavailable',

@@ -17,6 +17,14 @@ const envSchema = z.object({
   /** bcrypt cost; lower only for tests. */
   BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).default(11),
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
+  /**
+   * Evaluations per signed-in account per minute, over all workers (each worker allows its share:
+   * round-robin spreads one account's requests evenly). An engineer re-evaluating as they type
+   * stays far below it; a script looping on the endpoint gets 429 with Retry-After.
+   */
+  EVALUATE_RATE_LIMIT: z.coerce.number().int().min(1).default(240),
+  /** Worker processes of npm start (server/index.ts); unset: one per core. */
+  WEB_CONCURRENCY: z.coerce.number().int().min(1).max(64).optional(),
   LOG_REQUESTS: z.enum(['true', 'false']).default('false'),
 
   /** Object store for uploaded documents. Unset endpoint = the provider's own (AWS) endpoint for S3_REGION. */

@@ -175,7 +175,7 @@ describe('evaluate request schema', () => {
 
   it('can be published as JSON Schema (for the OpenAPI document)', () => {
     const schema = z.toJSONSchema(evaluateRequestSchema, { io: 'input' }) as { properties: Record<string, unknown> };
-    expect(Object.keys(schema.properties)).toEqual(['loadCase', 'candidates', 'limit', 'sortBy', 'coveredFirst', 'filters']);
+    expect(Object.keys(schema.properties)).toEqual(['loadCase', 'candidates', 'limit', 'sortBy', 'coveredFirst', 'filters', 'form']);
   });
 });
 

@@ -1,4 +1,8 @@
 import { Router } from 'express';
+import rateLimit from 'express-rate-limit';
+import { availableParallelism } from 'node:os';
+import { env } from '../../config/env';
+import { AppError } from '../../errors';
 import { authorize } from '../../auth/authorize';
 import { can } from '../../../shared/schemas/auth';
 import { evaluateRequestSchema, pressureQuerySchema } from '../../../shared/schemas/evaluate';
@@ -13,7 +17,19 @@ export function evaluateRouter(): Router {
   // Engineers re-run the same load case often (reloads, ranking switches, shared links): the
   // serialized answer is kept per request until the catalogue changes.
   const cache = jsonResponseCache(128 * 2 ** 20);
-  router.post('/', authorize('evaluate'), async (req, res) => {
+  // Per account, so one caller's loop cannot slow everyone else; kept in the worker (a shared
+  // store would cost a database write per evaluation), each worker allowing its share.
+  const config = env();
+  const workers = config.WEB_CONCURRENCY ?? availableParallelism();
+  const limiter = rateLimit({
+    windowMs: 60_000,
+    limit: Math.max(1, Math.ceil(config.EVALUATE_RATE_LIMIT / workers)),
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => `user:${req.user!.id}`,
+    handler: (_req, _res, next) => next(new AppError(429, 'too_many_requests', 'Too many evaluations in a minute from this account. Wait a moment and evaluate again.')),
+  });
+  router.post('/', authorize('evaluate'), limiter, async (req, res) => {
     const request = parse(evaluateRequestSchema, req.body, 'evaluation request');
     const caller = { canDraft: can(req.user?.role, 'catalogue:draft') };
     // Drafts named by id resolve only for librarians, so they get their own entries.
