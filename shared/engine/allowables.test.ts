@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { computeAllowables, fmt, sustainedLoadFactor, worstTemperatureFactor, type Conditions } from './allowables';
+import { allowablesFor, computeAllowables, fmt, sustainedLoadFactor, worstTemperatureFactor, type Conditions } from './allowables';
 import { pvhoAcrylic } from './test-materials';
 import type { CandidateMaterial } from './types';
 
@@ -260,5 +260,20 @@ describe('fmt', () => {
       }),
       { numRuns: 5000 },
     );
+  });
+});
+
+describe('remembered allowables', () => {
+  it('gives what computeAllowables gives, with its warnings, and recomputes when the service conditions change', () => {
+    const m = { ...pvhoAcrylic };
+    const cold: Conditions = { temperature: { min: 2, max: 10 }, sustainedHours: 1000, cycles: 2000 };
+    const warm: Conditions = { temperature: { min: 2, max: 40 }, sustainedHours: 1000, cycles: 2000 };
+    for (const c of [cold, cold, warm, cold, { ...warm, cycles: 10_000 }]) {
+      const fresh: string[] = [];
+      const remembered: string[] = [];
+      expect(allowablesFor(m, c, remembered)).toEqual(computeAllowables(m, c, fresh));
+      expect(remembered).toEqual(fresh);
+    }
+    expect(allowablesFor(m, warm, []).tension).toBeLessThan(allowablesFor(m, cold, []).tension);
   });
 });

@@ -366,3 +366,26 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
     factors: { temperature, worstTemperature, temperatureSource, sustainedLoad, cyclic, life, lifeBasis },
   };
 }
+
+/**
+ * computeAllowables, remembered per candidate for the last service conditions it was evaluated
+ * under: the allowables depend only on the material and on the temperature range, hours and
+ * cycles, not on the geometry or the pressure, so an engineer varying thickness, depth or diameter
+ * (or several evaluations of one catalogue) does not recompute them. The candidate objects of the
+ * published catalogue live as long as its snapshot; inline candidates are collected with their request.
+ */
+const REMEMBERED = new WeakMap<CandidateMaterial, { key: string; allowables: Allowables; warnings: string[] }>();
+
+export function allowablesFor(m: CandidateMaterial, c: Conditions, warnings: string[]): Allowables {
+  const key = `${c.temperature.min}|${c.temperature.max}|${c.sustainedHours}|${c.cycles}`;
+  const hit = REMEMBERED.get(m);
+  if (hit && hit.key === key) {
+    for (let i = 0; i < hit.warnings.length; i++) warnings.push(hit.warnings[i]);
+    return hit.allowables;
+  }
+  const own: string[] = [];
+  const allowables = computeAllowables(m, c, own);
+  REMEMBERED.set(m, { key, allowables, warnings: own });
+  for (let i = 0; i < own.length; i++) warnings.push(own[i]);
+  return allowables;
+}

@@ -4,7 +4,7 @@
  * analytical modes), mass per area and weight-to-displacement, with warnings; and the cheaper
  * ranking margin alone.
  */
-import { computeAllowables, fmt, isBrittle, isPolymer, type Allowables } from './allowables';
+import { allowablesFor, fmt, isBrittle, isPolymer, type Allowables } from './allowables';
 import type { ModeMaterial } from './components/common';
 import { isWindowComponent, rateWithTable, ratingMargin, tableCovers } from './rating-tables';
 import type { CandidateMaterial, CandidateResult, ModeResult, RatingResult, SizedBy, WindowCoverage } from './types';
@@ -40,7 +40,7 @@ function toShortTermMaterial(mm: ModeMaterial, a: Allowables): ModeMaterial {
 
 /** Material values for the component models, with allowables for the prepared load case. */
 export function modeMaterial(candidate: CandidateMaterial, prepared: PreparedLoadCase, warnings: string[]): ModeMaterial {
-  return toModeMaterial(candidate, computeAllowables(candidate, prepared.conditions, warnings));
+  return toModeMaterial(candidate, allowablesFor(candidate, prepared.conditions, warnings));
 }
 
 /**
@@ -82,7 +82,7 @@ const SCRATCH_WARNINGS: string[] = [];
  */
 export function rankingMargin(prepared: PreparedLoadCase, candidate: CandidateMaterial): { margin: number; group: number } {
   SCRATCH_WARNINGS.length = 0;
-  const mm = toModeMaterial(candidate, computeAllowables(candidate, prepared.conditions, SCRATCH_WARNINGS));
+  const mm = toModeMaterial(candidate, allowablesFor(candidate, prepared.conditions, SCRATCH_WARNINGS));
   const { model, component, pressure: p } = prepared;
   const t = model.thickness(component);
   const rating = ratingRoute(prepared, candidate);
@@ -101,7 +101,7 @@ export function rankingMargin(prepared: PreparedLoadCase, candidate: CandidateMa
 /** Evaluates one candidate at the load case's own thickness. */
 export function evaluateCandidate(prepared: PreparedLoadCase, candidate: CandidateMaterial): CandidateResult {
   const warnings: string[] = [];
-  const allowables = computeAllowables(candidate, prepared.conditions, warnings);
+  const allowables = allowablesFor(candidate, prepared.conditions, warnings);
   const mm = toModeMaterial(candidate, allowables);
   const target = targetFor(prepared, candidate);
   if (prepared.targetSafetyFactor === undefined && candidate.family === undefined) warnings.push(FALLBACK_TARGET_WARNING);
