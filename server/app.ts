@@ -13,6 +13,7 @@ import { requireSignIn } from './auth/authorize';
 import { withSessionCache } from './auth/session-cache';
 import { sameOriginOnly } from './middleware/same-origin';
 import { rejectNulCharacters } from './middleware/no-nul';
+import { noStore } from './middleware/no-store';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { authRouter } from './modules/auth/router';
 import { healthRouter } from './modules/health/router';
@@ -104,6 +105,9 @@ export function createApp(): AppHandle {
     }),
   );
   api.use(passport.session());
+  // Answers may carry accounts, tokens in caught mail, audit entries and records: no browser or
+  // proxy keeps a copy. A route that streams a file may still set its own header.
+  api.use(noStore);
 
   // Public: sign-in, account recovery, health and the API description. Everything after
   // requireSignIn needs a session, and every route names its permission (route-table.ts reads them).

@@ -79,6 +79,30 @@ describe('sign-in back-off', () => {
   });
 });
 
+describe('Cache-Control on API answers', () => {
+  // Reproduces finding 7 of the account-safety assessment: signed-in JSON (caught mail with its
+  // tokens, users, audit, records, /api/auth/me) came without Cache-Control.
+  it('is no-store on every GET operation for a signed-in administrator, and on answers from the answer cache', async () => {
+    const cookie = await signInCookie('admin@harrow.example');
+    const doc = (await request(handle.app).get('/api/openapi.json')).body as { paths: Record<string, Record<string, unknown>> };
+    const gets = Object.entries(doc.paths).filter(([, ops]) => 'get' in ops).map(([path]) => path.replace(/\{[A-Za-z]+\}/g, '1'));
+    expect(gets.length).toBeGreaterThan(25);
+    const ok: string[] = [];
+    for (const path of gets) {
+      const res = await request(handle.app).get(path).set('Cookie', cookie);
+      expect(res.headers['cache-control'], path).toMatch(/(^|, )no-store/);
+      if (res.status === 200) ok.push(path);
+    }
+    expect(ok).toEqual(expect.arrayContaining(['/api/auth/me', '/api/admin/users', '/api/admin/mail', '/api/admin/audit', '/api/admin/invitations', '/api/property-sets/1', '/api/projects']));
+    const body = { loadCase: { pressure: { value: 0.5e6 }, temperature: { min: 15, max: 40 }, sustainedHours: 100, cycles: 100, component: { type: 'flat-disc', diameter: 0.25, thickness: 0.04, edge: 'clamped' } }, limit: 3 };
+    for (let i = 0; i < 2; i++) {
+      const res = await request(handle.app).post('/api/evaluate').set('Cookie', cookie).send(body);
+      expect(res.status).toBe(200);
+      expect(res.headers['cache-control']).toBe('no-store');
+    }
+  });
+});
+
 describe('production settings', () => {
   const saved = { ...process.env };
   afterAll(() => {
