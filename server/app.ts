@@ -46,7 +46,9 @@ export function createApp(): AppHandle {
   // API answers are not revalidated by ETag (the client caches through its query cache), and
   // hashing every body cost more than answering; static files keep their own validators.
   app.set('etag', false);
-  app.set('trust proxy', 'loopback');
+  // Off unless TRUST_PROXY says which proxies to believe: otherwise anyone could name their own
+  // address in X-Forwarded-For (and dodge the sign-in throttle).
+  app.set('trust proxy', config.TRUST_PROXY);
   app.set('query parser', 'simple');
 
   app.use(

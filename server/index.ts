@@ -2,6 +2,7 @@ import { createServer } from 'node:http';
 import { env } from './config/env';
 import { createApp } from './app';
 import { closeDatabase, databaseBusy } from './db/sequelize';
+import { rememberListeningPort } from './services/app-link';
 
 const config = env();
 const { app, close } = createApp();
@@ -18,6 +19,8 @@ server.on('request', (_req, res) => {
 server.listen(config.PORT, config.HOST, () => {
   const address = server.address();
   const port = typeof address === 'object' && address ? address.port : config.PORT;
+  // Outside production (no APP_URL), the links in mail point at this port.
+  rememberListeningPort(port);
   console.log(`[isobath] serving on http://localhost:${port} (${config.NODE_ENV})`);
 });
 

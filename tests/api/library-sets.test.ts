@@ -8,8 +8,9 @@ import { caughtSince, createAccount, draftBody, materialId, signInAs } from '../
 import { AuditEntry, Material, PropertySet, Reference } from '../../server/db/models';
 import type { LibrarySetDto } from '../../shared/schemas/library';
 import type { PropertySetDto } from '../../shared/schemas/catalogue';
-import { env, resetEnvCache } from '../../server/config/env';
+import { resetEnvCache } from '../../server/config/env';
 import { closeMail } from '../../server/services/mail';
+import { appLink } from '../../server/services/app-link';
 
 /** A loopback port nothing listens on. */
 async function closedPort(): Promise<number> {
@@ -275,7 +276,7 @@ describe('review (four-eyes)', () => {
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toBe('Property set waiting for review: Cast acrylic (PMMA) — Harrow Sound lot 21 cast sheet, submit mail check');
     expect(mails[0].to.sort()).toEqual([demoEmail('admin'), SECOND_EMAIL].sort());
-    expect(mails[0].text).toContain(`${env().APP_URL}/library/sets/${draft.id}`);
+    expect(mails[0].text).toContain(appLink(`/library/sets/${draft.id}`));
     expect((await auditOf(draft.id)).map((e) => e.action)).toEqual(['submit', 'create']);
   });
 

@@ -110,9 +110,12 @@ describe('production settings', () => {
     resetEnvCache();
   });
 
-  it('sends Secure, HttpOnly, SameSite cookies and HSTS behind HTTPS', async () => {
+  it('sends Secure, HttpOnly, SameSite cookies and HSTS behind an HTTPS proxy that TRUST_PROXY names', async () => {
     process.env.NODE_ENV = 'production';
     process.env.SESSION_SECRET = 'a-production-secret-of-more-than-32-characters';
+    process.env.APP_URL = 'https://isobath.harrow-sound.example';
+    // The TLS-terminating proxy on this machine: its X-Forwarded-Proto is believed.
+    process.env.TRUST_PROXY = 'loopback';
     resetEnvCache();
     const prod = createApp();
     try {
@@ -123,6 +126,21 @@ describe('production settings', () => {
       expect(cookie).toMatch(/HttpOnly/i);
       expect(cookie).toMatch(/SameSite=Lax/i);
       expect(res.headers['strict-transport-security']).toMatch(/max-age=\d+/);
+    } finally {
+      await prod.close();
+    }
+  });
+
+  it('ignores X-Forwarded-Proto from loopback when TRUST_PROXY is unset: no Secure cookie goes over plain HTTP', async () => {
+    process.env.NODE_ENV = 'production';
+    process.env.SESSION_SECRET = 'a-production-secret-of-more-than-32-characters';
+    process.env.APP_URL = 'https://isobath.harrow-sound.example';
+    delete process.env.TRUST_PROXY;
+    resetEnvCache();
+    const prod = createApp();
+    try {
+      const res = await request(prod.app).post('/api/auth/login').set('X-Forwarded-Proto', 'https').send({ email: 'viewer@harrow.example', password: DEMO_PASSWORD });
+      expect(res.headers['set-cookie']).toBeUndefined();
     } finally {
       await prod.close();
     }
