@@ -68,7 +68,12 @@ export const OPERATIONS: Record<string, OperationDoc> = {
   'POST /api/rating-tables/:id/steps': { tag: 'Rating tables', summary: 'Take a review step: submit, approve, return (with comment), revise, retire (with reason); four-eyes for approve and return', body: ratingTableStepSchema, responses: { 200: 'Step taken', 201: 'Revision drafted', 403: 'Not your role, or your own work', 409: 'Stale, or not possible in this status' } },
   'POST /api/rating-tables/csv': { tag: 'Rating tables', summary: "Read a rating table's grid from CSV for the editor (writes nothing); row-level problems as fields", query: ratingTableCsvQuerySchema, upload: { field: 'file', description: 'CSV, UTF-8, at most 1 MB' }, responses: { 200: 'The grid, in SI', 400: 'Problems by row and column' } },
   'GET /api/rating-tables/csv-template': { tag: 'Rating tables', summary: 'The CSV header for a rating-table grid', query: ratingTableCsvQuerySchema, produces: 'text/csv', responses: { 200: 'CSV' } },
-  'POST /api/auth/login': { tag: 'Account', summary: 'Sign in; answers with the user and sets the session cookie', body: loginSchema, responses: { 200: 'Signed in', 401: 'E-mail or password is incorrect', 429: 'Too many failed attempts' } },
+  'POST /api/auth/login': {
+    tag: 'Account',
+    summary: 'Sign in; answers with the user and sets the session cookie. Failed sign-ins are throttled per address and per address and name (429 with Retry-After)',
+    body: loginSchema,
+    responses: { 200: 'Signed in', 401: 'E-mail or password is incorrect', 403: 'Right password, but the account is deactivated', 429: 'Too many failed sign-ins from this address (or for this name from it); Retry-After says when' },
+  },
   'POST /api/auth/logout': { tag: 'Account', summary: 'Sign out (ends the session)', responses: { 204: 'Signed out' } },
   'GET /api/auth/me': { tag: 'Account', summary: 'The signed-in user with the permissions of their role', responses: { 200: 'The user', 401: 'Not signed in' } },
   'POST /api/auth/invitations/accept': { tag: 'Account', summary: 'Accept an invitation: create the account from the one-time link and sign in', body: invitationAcceptSchema, responses: { 201: 'Account created', 400: 'Invalid, used or expired link' } },
@@ -115,6 +120,8 @@ export const OPERATIONS: Record<string, OperationDoc> = {
   'GET /api/admin/mail/:id': { tag: 'Administration', summary: 'One caught message' },
   'GET /api/admin/users': { tag: 'Administration', summary: 'All accounts' },
   'PATCH /api/admin/users/:id': { tag: 'Administration', summary: 'Change a role or deactivate an account (its sessions end at once)', body: userUpdateSchema },
+  'GET /api/admin/sign-in-locks': { tag: 'Administration', summary: 'Failed sign-ins still counted, per address and per address and name, with their locks' },
+  'DELETE /api/admin/sign-in-locks/:id': { tag: 'Administration', summary: 'Clear one sign-in counter and its lock', responses: { 204: 'Cleared', 404: 'No such counter' } },
   'GET /api/admin/invitations': { tag: 'Administration', summary: 'Invitations and their state' },
   'POST /api/admin/invitations': { tag: 'Administration', summary: 'Invite someone by e-mail with a one-time, expiring link', body: invitationCreateSchema, responses: { 201: 'Invited', 409: 'The address has an account' } },
 

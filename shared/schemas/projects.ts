@@ -236,5 +236,16 @@ export interface InvitationDto {
   state: InvitationState;
 }
 
+/** A row of GET /api/admin/sign-in-locks: failed sign-ins counted for one address, across names (email null) or for one name. */
+export interface SignInLockDto {
+  id: number;
+  address: string;
+  email: string | null;
+  failures: number;
+  /** Until when sign-ins from the address (for the name, when given) wait; null while only counted. */
+  lockedUntil: string | null;
+  lastFailureAt: string;
+}
+
 /** The answer to POST /api/admin/invitations. */
 export type InvitationCreatedDto = Pick<InvitationDto, 'id' | 'email' | 'role' | 'expiresAt'>;

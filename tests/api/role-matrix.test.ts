@@ -22,6 +22,7 @@ import { addItem, createShortlist } from '../../server/modules/projects/shortlis
 import { submitShortlist, checkShortlist } from '../../server/modules/projects/shortlist-steps';
 import { requestPasswordReset } from '../../server/modules/users/service';
 import { listCaughtMail } from '../../server/services/mail';
+import { sequelize } from '../../server/db/sequelize';
 import type { LoadCase } from '../../shared/schemas/evaluate';
 
 type Caller = 'anonymous' | Role;
@@ -226,6 +227,14 @@ const TABLE: Record<string, Entry> = {
   'GET /api/admin/mail/:id': { build: async () => ({ path: `/api/admin/mail/${f.mailId}` }) },
   'GET /api/admin/users': { build: json('/api/admin/users') },
   'PATCH /api/admin/users/:id': { build: async () => ({ path: `/api/admin/users/${(await freshSession('viewer')).id}`, body: { role: 'engineer' } }) },
+  'GET /api/admin/sign-in-locks': { build: json('/api/admin/sign-in-locks') },
+  'DELETE /api/admin/sign-in-locks/:id': {
+    ok: 204,
+    build: async () => {
+      const [rows] = await sequelize().query(`INSERT INTO sign_in_throttles (address, email, failures, last_failure_at) VALUES ('192.0.2.1', :email, 1, now()) RETURNING id`, { replacements: { email: `${unique('locked')}@harrow.example` } });
+      return { path: `/api/admin/sign-in-locks/${(rows as { id: number }[])[0].id}` };
+    },
+  },
   'GET /api/admin/invitations': { build: json('/api/admin/invitations') },
   'POST /api/admin/invitations': { ok: 201, build: async () => ({ path: '/api/admin/invitations', body: { email: `${unique('new')}@harrow.example`, role: 'viewer' } }) },
 

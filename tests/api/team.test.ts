@@ -75,7 +75,9 @@ describe('roles and deactivation', () => {
     const id = (await User.findOne({ where: { email: 'checker@harrow.example' } }))!.id;
     expect((await admin.patch(`/api/admin/users/${id}`).send({ active: false })).status).toBe(200);
     expect((await checker.get('/api/auth/me')).status).toBe(401);
-    expect((await request(handle.app).post('/api/auth/login').send({ email: 'checker@harrow.example', password: DEMO_PASSWORD })).status).toBe(401);
+    const refused = await request(handle.app).post('/api/auth/login').send({ email: 'checker@harrow.example', password: DEMO_PASSWORD });
+    expect(refused.status).toBe(403);
+    expect(refused.body.error.code).toBe('account_deactivated');
     await admin.patch(`/api/admin/users/${id}`).send({ active: true }).expect(200);
   });
 

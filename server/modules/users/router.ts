@@ -23,6 +23,11 @@ export function adminUsersRouter(): Router {
   r.patch('/users/:id', authorize('users:manage'), async (req, res) =>
     res.json(await users.updateUser(req.user!.id, parseId(req.params.id), parse(userUpdateSchema, req.body, 'change'))),
   );
+  r.get('/sign-in-locks', authorize('users:manage'), async (_req, res) => res.json({ items: await users.listSignInLocks() }));
+  r.delete('/sign-in-locks/:id', authorize('users:manage'), async (req, res) => {
+    await users.clearSignInLock(req.user!.id, parseId(req.params.id));
+    res.status(204).end();
+  });
   r.get('/invitations', authorize('users:manage'), async (_req, res) => res.json({ items: await users.listInvitations() }));
   r.post('/invitations', authorize('users:manage'), async (req, res) => {
     const input = parse(invitationCreateSchema, req.body, 'invitation');

@@ -5,13 +5,14 @@ import { User } from '../../db/models';
 import { Invitation, PasswordReset } from '../../db/models/projects';
 import type { Role } from '../../../shared/schemas/auth';
 import { ROLE_LABELS } from '../../../shared/schemas/auth';
-import type { AdminUserDto, InvitationCreatedDto, InvitationDto } from '../../../shared/schemas/projects';
+import type { AdminUserDto, InvitationCreatedDto, InvitationDto, SignInLockDto } from '../../../shared/schemas/projects';
 import { AppError, badRequest, conflict, notFound } from '../../errors';
 import { hashPassword, verifyPassword } from '../../auth/passwords';
 import { recordAudit } from '../../services/audit';
 import { sendMailSafely } from '../../services/mail';
 import { appLink } from '../../services/app-link';
 import { forgetSessionsOf } from '../../auth/session-cache';
+import { clearThrottle, listThrottles, type ThrottleRow } from '../../auth/sign-in-throttle';
 
 export const INVITATION_HOURS = 72;
 export const RESET_HOURS = 1;
@@ -161,4 +162,29 @@ export async function changePassword(userId: number, currentPassword: string, ne
     await recordAudit(transaction, { actorId: user.id, action: 'change-password', entityType: 'user', entityId: String(user.id), before: null, after: null });
   });
   await endSessionsOf(user.id, keepSid);
+}
+
+// ---- Sign-in locks ---------------------------------------------------------------------------
+
+const signInLockDto = (r: ThrottleRow): SignInLockDto => ({
+  id: r.id,
+  address: r.address,
+  email: r.email || null,
+  failures: r.failures,
+  lockedUntil: r.lockedUntil && r.lockedUntil.getTime() > Date.now() ? r.lockedUntil.toISOString() : null,
+  lastFailureAt: r.lastFailureAt.toISOString(),
+});
+
+/** Failed sign-ins still counted, locked ones first. */
+export async function listSignInLocks(): Promise<SignInLockDto[]> {
+  return (await listThrottles()).map(signInLockDto);
+}
+
+/** Clears one counter (and its lock), with an audit entry. */
+export async function clearSignInLock(actorId: number, id: number): Promise<void> {
+  await sequelize().transaction(async (transaction) => {
+    const row = await clearThrottle(id, transaction);
+    if (!row) throw notFound('Sign-in lock');
+    await recordAudit(transaction, { actorId, action: 'clear-sign-in-lock', entityType: 'user', entityId: row.email || row.address, before: signInLockDto(row), after: null });
+  });
 }
