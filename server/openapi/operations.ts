@@ -119,7 +119,12 @@ export const OPERATIONS: Record<string, OperationDoc> = {
   'GET /api/admin/mail': { tag: 'Administration', summary: 'Mail caught by the local SMTP catcher (development and test only)', query: caughtMailQuerySchema },
   'GET /api/admin/mail/:id': { tag: 'Administration', summary: 'One caught message' },
   'GET /api/admin/users': { tag: 'Administration', summary: 'All accounts' },
-  'PATCH /api/admin/users/:id': { tag: 'Administration', summary: 'Change a role or deactivate an account (its sessions end at once)', body: userUpdateSchema },
+  'PATCH /api/admin/users/:id': {
+    tag: 'Administration',
+    summary: 'Change a role or deactivate an account (its sessions end at once); the last active administrator stays one',
+    body: userUpdateSchema,
+    responses: { 200: 'Changed', 409: 'Your own account, or the last active administrator' },
+  },
   'GET /api/admin/sign-in-locks': { tag: 'Administration', summary: 'Failed sign-ins still counted, per address and per address and name, with their locks' },
   'DELETE /api/admin/sign-in-locks/:id': { tag: 'Administration', summary: 'Clear one sign-in counter and its lock', responses: { 204: 'Cleared', 404: 'No such counter' } },
   'GET /api/admin/invitations': { tag: 'Administration', summary: 'Invitations and their state' },

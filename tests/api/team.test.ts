@@ -5,6 +5,7 @@ import { listCaughtMail } from '../../server/services/mail';
 import { Invitation } from '../../server/db/models/projects';
 import { User } from '../../server/db/models';
 import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
+import { createAccount, signInAs } from '../helpers/library';
 
 let handle: Awaited<ReturnType<typeof startTestApp>>;
 let admin: Agent;
@@ -84,6 +85,39 @@ describe('roles and deactivation', () => {
   it('will not let an admin deactivate themselves', async () => {
     const id = (await User.findOne({ where: { email: 'admin@harrow.example' } }))!.id;
     expect((await admin.patch(`/api/admin/users/${id}`).send({ active: false })).status).toBe(409);
+  });
+
+  // Reproduces finding 7 of the account-safety assessment: two admins demoting each other at once
+  // left no active administrator.
+  it.each([
+    ['demoting', { role: 'viewer' }],
+    ['deactivating', { active: false }],
+  ])('keeps one active administrator when two admins are %s each other at once (409 "last_admin" for one)', async (_what, change) => {
+    const first = (await User.findOne({ where: { email: 'admin@harrow.example' } }))!;
+    const second = await createAccount(`second.admin.${Object.keys(change)[0]}@harrow.example`, 'Isla Rendall', 'admin');
+    const outcomes: string[] = [];
+    for (let round = 0; round < 6; round++) {
+      const [a, b] = await Promise.all([signInAs(handle.app, first.email, DEMO_PASSWORD), signInAs(handle.app, second.email)]);
+      const answers = await Promise.all([a.patch(`/api/admin/users/${second.id}`).send(change), b.patch(`/api/admin/users/${first.id}`).send(change)]);
+      const statuses = answers.map((r) => r.status);
+      outcomes.push(statuses.join('/'));
+      // One change goes through. The other is refused as the last administrator's (409) — or, when
+      // the first had already committed before the second was authorised, as no longer an admin's (403).
+      expect(statuses.filter((s) => s === 200), `round ${round}: ${statuses}`).toHaveLength(1);
+      const refused = answers.find((r) => r.status !== 200)!;
+      expect([409, 403]).toContain(refused.status);
+      if (refused.status === 409) expect(refused.body.error.code).toBe('last_admin');
+      const admins = await User.findAll({ where: { role: 'admin', active: true } });
+      expect(admins).toHaveLength(1);
+      // The one left restores the other for the next round.
+      const winner = answers[0].status === 200 ? a : b;
+      const loser = answers[0].status === 200 ? second : first;
+      await winner.patch(`/api/admin/users/${loser.id}`).send({ role: 'admin', active: true }).expect(200);
+    }
+    expect(await User.count({ where: { role: 'admin', active: true } }), outcomes.join(', ')).toBe(2);
+    const again = await signInAs(handle.app, first.email, DEMO_PASSWORD);
+    await again.patch(`/api/admin/users/${second.id}`).send({ role: 'viewer', active: false }).expect(200);
+    admin = again;
   });
 });
 

@@ -47,10 +47,18 @@ export async function endSessionsOf(userId: number, exceptSid?: string): Promise
 
 export async function updateUser(actorId: number, userId: number, change: { role?: Role; active?: boolean }): Promise<AdminUserDto> {
   const user = await sequelize().transaction(async (transaction) => {
+    // Every active administrator's row is locked first, in id order, so two changes that would
+    // each leave one administrator (two admins demoting each other at once) queue here; the
+    // second one then reads the first one's result (READ COMMITTED re-checks the rows it waited for).
+    const admins = await User.findAll({ where: { role: 'admin', active: true }, attributes: ['id'], order: [['id', 'ASC']], lock: transaction.LOCK.UPDATE, transaction });
     const u = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE });
     if (!u) throw notFound('User');
     if (u.id === actorId && (change.active === false || (change.role && change.role !== 'admin'))) {
       throw conflict('You cannot deactivate yourself or give up your own administrator role; ask another administrator.', 'self_change');
+    }
+    const losesAdmin = u.role === 'admin' && u.active && (change.active === false || (change.role !== undefined && change.role !== 'admin'));
+    if (losesAdmin && !admins.some((a) => a.id !== u.id)) {
+      throw conflict(`${u.name} is the last active administrator; make someone else an administrator first.`, 'last_admin');
     }
     const before = { role: u.role, active: u.active };
     await u.update(change, { transaction });
