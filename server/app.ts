@@ -14,6 +14,7 @@ import { withSessionCache } from './auth/session-cache';
 import { sameOriginOnly } from './middleware/same-origin';
 import { rejectNulCharacters } from './middleware/no-nul';
 import { noStore } from './middleware/no-store';
+import { settleOutbox } from './services/outbox';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { authRouter } from './modules/auth/router';
 import { healthRouter } from './modules/health/router';
@@ -150,6 +151,8 @@ export function createApp(): AppHandle {
   return {
     app,
     close: async () => {
+      // Deliveries this process started (after a response, for instance) finish first.
+      await settleOutbox();
       store.close();
       await sessionPool.end().catch(() => undefined);
     },

@@ -3,10 +3,13 @@ import { env } from './config/env';
 import { createApp } from './app';
 import { closeDatabase, databaseBusy } from './db/sequelize';
 import { rememberListeningPort } from './services/app-link';
+import { startOutboxWorker } from './services/outbox';
 
 const config = env();
 const { app, close } = createApp();
 const server = createServer(app);
+// Mail that could not go at once is retried from the outbox (shared safely with other processes).
+const outbox = startOutboxWorker();
 server.keepAliveTimeout = 65_000;
 
 // Requests still being handled; shutdown waits for them before closing the database.
@@ -40,6 +43,7 @@ async function shutdown(signal: string) {
   force.unref();
   server.close(async () => {
     await settle(Date.now() + 5_000);
+    await outbox.stop();
     await close();
     await closeDatabase();
     process.exit(0);

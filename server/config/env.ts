@@ -51,6 +51,10 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3).default('Isobath <no-reply@isobath.example>'),
   /** Where the local catcher saves mail; when set, the app can list what was caught. */
   MAIL_CATCHER_DIR: z.string().min(1).optional(),
+  /** Mail that could not be sent is tried again after this many seconds, doubling per attempt (at most an hour)… */
+  MAIL_RETRY_SECONDS: z.coerce.number().positive().max(3600).default(30),
+  /** …at most this many times in all; then it is marked failed and shown to the administrators. */
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
   /** Public address of the app, used in links sent by mail; required in production (outside it, links follow the port in use). */
   APP_URL: z.string().url({ protocol: /^https?$/ }).optional(),
 });

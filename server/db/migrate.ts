@@ -10,6 +10,7 @@ import * as m0006 from './migrations/0006-shortlist-rounds';
 import * as m0007 from './migrations/0007-value-provenance';
 import * as m0008 from './migrations/0008-value-confirmations';
 import * as m0011 from './migrations/0011-sign-in-throttle';
+import * as m0012 from './migrations/0012-mail-outbox';
 
 // Listed explicitly: vitest cannot glob-load .ts migrations. Add new ones at the end.
 const MIGRATIONS = [
@@ -22,6 +23,7 @@ const MIGRATIONS = [
   { name: '0007-value-provenance', ...m0007 },
   { name: '0008-value-confirmations', ...m0008 },
   { name: '0011-sign-in-throttle', ...m0011 },
+  { name: '0012-mail-outbox', ...m0012 },
 ];
 
 export function migrator() {

@@ -39,6 +39,7 @@ export async function setupDatabase(options: { demo?: boolean; demoProject?: boo
 /** Every application table, in an order TRUNCATE … CASCADE accepts. */
 export const TABLES = [
   'sign_in_throttles',
+  'mail_outbox',
   'audit_log',
   'value_confirmations',
   'session',

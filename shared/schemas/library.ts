@@ -191,6 +191,23 @@ export interface CaughtMailListDto extends ItemsDto<CaughtMailDto> {
   enabled: boolean;
 }
 
+/** A row of GET /api/admin/outbox: a message Isobath sends, and how it fared (never its body). */
+export interface OutboxMailDto {
+  id: number;
+  to: string[];
+  subject: string;
+  status: 'pending' | 'sent' | 'failed';
+  attempts: number;
+  lastError: string | null;
+  nextAttemptAt: string | null;
+  createdAt: string;
+  sentAt: string | null;
+  /** What it is about, e.g. "invitation:12". */
+  ref: string | null;
+}
+
+export const outboxQuerySchema = z.strictObject({ status: z.enum(['pending', 'sent', 'failed']).optional() });
+
 /** The CSV import's columns, each declared once (name, draft path, unit, required, help). */
 export { PROPERTY_SET_COLUMNS as IMPORT_COLUMNS } from '../import/property-set-columns';
 

@@ -224,7 +224,18 @@ export interface AdminUserDto {
   createdAt: string;
 }
 
-export type InvitationState = 'waiting' | 'accepted' | 'expired';
+export type InvitationState = 'waiting' | 'accepted' | 'expired' | 'revoked';
+
+/** How an outgoing message fared: sent, waiting for another attempt, or given up. */
+export interface MailDeliveryDto {
+  status: 'pending' | 'sent' | 'failed';
+  attempts: number;
+  /** The mail server's last refusal or the connection error, while not sent. */
+  lastError: string | null;
+  /** When the next attempt is due (pending only). */
+  nextAttemptAt: string | null;
+  sentAt: string | null;
+}
 
 /** A row of GET /api/admin/invitations. */
 export interface InvitationDto {
@@ -234,6 +245,11 @@ export interface InvitationDto {
   createdAt: string;
   expiresAt: string;
   state: InvitationState;
+  /** When the link was last sent (created, or renewed by resending). */
+  sentAt: string;
+  revokedAt: string | null;
+  /** Its latest e-mail (null for invitations from before the outbox). */
+  mail: MailDeliveryDto | null;
 }
 
 /** A row of GET /api/admin/sign-in-locks: failed sign-ins counted for one address, across names (email null) or for one name. */
@@ -248,4 +264,9 @@ export interface SignInLockDto {
 }
 
 /** The answer to POST /api/admin/invitations. */
-export type InvitationCreatedDto = Pick<InvitationDto, 'id' | 'email' | 'role' | 'expiresAt'>;
+export type InvitationCreatedDto = Pick<InvitationDto, 'id' | 'email' | 'role' | 'expiresAt'> & {
+  /** sent: the mail server took it; queued: it did not answer in time or refused, and the outbox tries again. */
+  mail: 'sent' | 'queued';
+  /** Live invitations to the same address that this one replaced. */
+  replaced: number;
+};

@@ -11,6 +11,8 @@ import type { PropertySetDto } from '../../shared/schemas/catalogue';
 import { resetEnvCache } from '../../server/config/env';
 import { closeMail } from '../../server/services/mail';
 import { appLink } from '../../server/services/app-link';
+import { listOutbox } from '../../server/services/outbox';
+import { sequelize } from '../../server/db/sequelize';
 
 /** A loopback port nothing listens on. */
 async function closedPort(): Promise<number> {
@@ -280,7 +282,7 @@ describe('review (four-eyes)', () => {
     expect((await auditOf(draft.id)).map((e) => e.action)).toEqual(['submit', 'create']);
   });
 
-  it('still submits when the mail server is down: the e-mail goes after the commit and its failure is only logged', async () => {
+  it('still submits when the mail server is down: the e-mail waits in the outbox for another attempt, and the failure is logged', async () => {
     const draft = await create(librarian);
     const port = await closedPort();
     const saved = process.env.SMTP_PORT;
@@ -300,6 +302,11 @@ describe('review (four-eyes)', () => {
       logged.mockRestore();
     }
     expect((await read(draft.id)).status).toBe('in-review');
+    const waiting = (await listOutbox({ status: 'pending' })).filter((m) => m.subject.startsWith('Property set waiting for review'));
+    expect(waiting).toHaveLength(1);
+    expect(waiting[0]).toMatchObject({ attempts: 1, lastError: expect.stringMatching(/ECONNREFUSED|ECONNECTION|ESOCKET/) });
+    // Not left for a later kick to send into the other tests' mail counts.
+    await sequelize().query(`DELETE FROM mail_outbox WHERE id = :id`, { replacements: { id: waiting[0].id } });
   });
 
   it('refuses the author approving or returning their own set (403 "own_work"), and leaves it in review', async () => {

@@ -22,6 +22,7 @@ import { addItem, createShortlist } from '../../server/modules/projects/shortlis
 import { submitShortlist, checkShortlist } from '../../server/modules/projects/shortlist-steps';
 import { requestPasswordReset } from '../../server/modules/users/service';
 import { listCaughtMail } from '../../server/services/mail';
+import { sendQueued } from '../../server/services/outbox';
 import { sequelize } from '../../server/db/sequelize';
 import type { LoadCase } from '../../shared/schemas/evaluate';
 
@@ -121,6 +122,9 @@ async function submittedByEngineer() {
   const sl = await shortlistOf('engineer');
   return submitShortlist(actors.engineer, sl.id, sl.lockVersion);
 }
+
+const liveInvitation = () =>
+  Invitation.create({ email: `${unique('invited')}@harrow.example`, role: 'viewer', tokenHash: createHash('sha256').update(randomBytes(32)).digest('hex'), expiresAt: new Date(Date.now() + 3600_000), usedAt: null, invitedById: null });
 
 const json = (path: string, body?: unknown) => async () => ({ path, body });
 const ratingDraft = () => ({
@@ -236,6 +240,9 @@ const TABLE: Record<string, Entry> = {
     },
   },
   'GET /api/admin/invitations': { build: json('/api/admin/invitations') },
+  'POST /api/admin/invitations/:id/revoke': { build: async () => ({ path: `/api/admin/invitations/${(await liveInvitation()).id}/revoke` }) },
+  'POST /api/admin/invitations/:id/resend': { build: async () => ({ path: `/api/admin/invitations/${(await liveInvitation()).id}/resend` }) },
+  'GET /api/admin/outbox': { build: json('/api/admin/outbox?status=sent') },
   'POST /api/admin/invitations': { ok: 201, build: async () => ({ path: '/api/admin/invitations', body: { email: `${unique('new')}@harrow.example`, role: 'viewer' } }) },
 
   // The project: owned by the engineer, with the checker and the viewer as members; the librarian is not one.
@@ -327,7 +334,7 @@ beforeAll(async () => {
   f.shortlistId = (await shortlistOf('engineer')).id;
   const submitted = await submittedByEngineer();
   f.recordId = (await checkShortlist(actors.checker, submitted.id, submitted.lockVersion, undefined)).designRecordId!;
-  await requestPasswordReset('viewer@harrow.example');
+  await sendQueued([await requestPasswordReset('viewer@harrow.example')]);
   f.mailId = (await listCaughtMail({ limit: 1 }))[0].id;
 
   const doc = (await request(handle.app).get('/api/openapi.json')).body as { paths: Record<string, Record<string, { 'x-isobath-access': string }>> };

@@ -98,6 +98,9 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare expiresAt: Date;
   declare usedAt: Date | null;
   declare invitedById: number | null;
+  declare revokedAt: CreationOptional<Date | null>;
+  declare revokedById: CreationOptional<number | null>;
+  declare sentAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -196,6 +199,9 @@ export function initProjectModels(db: Sequelize): void {
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: { type: DataTypes.DATE },
       invitedById: { type: DataTypes.INTEGER },
+      revokedAt: { type: DataTypes.DATE },
+      revokedById: { type: DataTypes.INTEGER },
+      sentAt: { type: DataTypes.DATE },
       createdAt: stamp(),
     },
     { sequelize: db, tableName: 'invitations', updatedAt: false },

@@ -17,8 +17,8 @@ import { AdminNav } from './admin-nav';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 
-const STATE_TONE: Record<InvitationState, 'sounding' | 'pass' | 'neutral'> = { waiting: 'sounding', accepted: 'pass', expired: 'neutral' };
-const STATE_LABEL: Record<InvitationState, string> = { waiting: 'waiting', accepted: 'accepted', expired: 'expired' };
+const STATE_TONE: Record<InvitationState, 'sounding' | 'pass' | 'neutral'> = { waiting: 'sounding', accepted: 'pass', expired: 'neutral', revoked: 'neutral' };
+const STATE_LABEL: Record<InvitationState, string> = { waiting: 'waiting', accepted: 'accepted', expired: 'expired', revoked: 'revoked' };
 
 function UserRow({ user, self, onToggle }: { user: AdminUserDto; self: boolean; onToggle: (u: AdminUserDto) => void }) {
   const update = useUpdateUser();
