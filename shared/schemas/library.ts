@@ -3,6 +3,7 @@
  * CSV import, and the admin's audit log and caught mail. All values SI.
  */
 import { z } from 'zod';
+import { oneLineText } from './text';
 import {
   materialInputSchema,
   propertyValuesSchema,
@@ -31,7 +32,7 @@ const anyObject = z.object({});
  */
 export const draftInputSchema = propertyValuesSchema
   .extend({
-    condition: z.string().trim().min(1, 'Describe the condition (form, temper, grade…)').max(300),
+    condition: oneLineText({ min: 1, max: 300, required: 'Describe the condition (form, temper, grade…)' }),
     materialId: id.optional(),
     material: materialInputSchema.strict().optional(),
     referenceId: id.nullish(),

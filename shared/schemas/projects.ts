@@ -3,6 +3,7 @@
  * administration. All values SI.
  */
 import { z } from 'zod';
+import { oneLineText } from './text';
 import { loadCaseSchema, evaluateFiltersSchema, type LoadCase } from './evaluate';
 import { roleSchema, type Role } from './auth';
 import type { CandidateResult, EvaluateResult } from '../engine/types';
@@ -10,7 +11,7 @@ import type { PropertySetDto } from './catalogue';
 
 const id = z.number().int().positive().max(2_147_483_647);
 const lockVersion = z.number().int().min(0).max(2_147_483_647);
-const name = (what: string) => z.string().trim().min(1, `Give the ${what} a name`).max(200);
+const name = (what: string) => oneLineText({ min: 1, max: 200, required: `Give the ${what} a name` });
 
 export const projectCreateSchema = z
   .object({ name: name('project'), description: z.string().trim().max(4000).default('') })
@@ -54,7 +55,7 @@ export const passwordSchema = z.string().min(12, 'Use at least 12 characters').m
 
 export const invitationCreateSchema = z.object({ email, role: roleSchema }).strict();
 export const invitationAcceptSchema = z
-  .object({ token: z.string().trim().min(20).max(200), name: z.string().trim().min(1, 'Enter your name').max(200), password: passwordSchema })
+  .object({ token: z.string().trim().min(20).max(200), name: oneLineText({ min: 1, max: 200, required: 'Enter your name' }), password: passwordSchema })
   .strict();
 export const userUpdateSchema = z.object({ role: roleSchema.optional(), active: z.boolean().optional() }).strict();
 export const passwordChangeSchema = z
