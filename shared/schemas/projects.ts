@@ -17,7 +17,7 @@ export const projectCreateSchema = z
   .object({ name: name('project'), description: z.string().trim().max(4000).default('') })
   .strict();
 export const projectUpdateSchema = z
-  .object({ name: name('project').optional(), description: z.string().trim().max(4000).optional() })
+  .object({ lockVersion, name: name('project').optional(), description: z.string().trim().max(4000).optional() })
   .strict();
 export const memberAddSchema = z.object({ userId: id }).strict();
 
@@ -35,7 +35,7 @@ export const shortlistCreateSchema = z.object({ loadCaseId: id, name: name('shor
 export const shortlistItemAddSchema = z
   .object({ propertySetId: id, note: z.string().trim().max(2000).default('') })
   .strict();
-export const shortlistItemUpdateSchema = z.object({ note: z.string().trim().max(2000) }).strict();
+export const shortlistItemUpdateSchema = z.object({ lockVersion, note: z.string().trim().max(2000) }).strict();
 export const shortlistReorderSchema = z.object({ lockVersion, itemIds: z.array(id).min(1).max(200) }).strict();
 export const shortlistTransitionSchema = z
   .object({ lockVersion, comment: z.string().trim().max(4000).optional() })
@@ -81,6 +81,8 @@ export interface ProjectDto {
   members: UserSummaryDto[];
   createdAt: string;
   updatedAt: string;
+  /** For PATCH: a change made from an older read gets 409 stale. */
+  lockVersion: number;
   counts: { loadCases: number; shortlists: number; checked: number };
 }
 
@@ -100,6 +102,8 @@ export interface ShortlistItemDto {
   id: number;
   position: number;
   note: string;
+  /** For editing the note: a save made from an older read gets 409 stale. */
+  lockVersion: number;
   propertySet: PropertySetDto;
   /** Live evaluation against the shortlist's load case (null once a record is frozen: use the record). */
   result: CandidateResult | null;
@@ -128,7 +132,7 @@ export interface ShortlistSubmission {
   submittedAt: string;
   loadCase: LoadCaseDto;
   evaluation: Omit<EvaluateResult, 'results' | 'total'> | null;
-  items: { id: number; position: number; note: string; propertySet: PropertySetDto; result: CandidateResult | null }[];
+  items: { id: number; position: number; note: string; lockVersion?: number; propertySet: PropertySetDto; result: CandidateResult | null }[];
 }
 
 export interface ShortlistDto {

@@ -12,7 +12,7 @@ import { ROLES, can, type Permission, type Role } from '../../shared/schemas/aut
 import { PropertySet, RatingTable, User } from '../../server/db/models';
 import { createRatingTableDraft } from '../../server/modules/rating-tables/service';
 import { ratingTableDraftSchema } from '../../shared/schemas/rating-tables';
-import { Invitation, PasswordReset } from '../../server/db/models/projects';
+import { Invitation, PasswordReset, Project } from '../../server/db/models/projects';
 import { draftInputSchema } from '../../shared/schemas/library';
 import { createDraft, stepSet } from '../../server/modules/library/service';
 import { proposeConfirmation } from '../../server/modules/library/confirmations';
@@ -249,7 +249,7 @@ const TABLE: Record<string, Entry> = {
   'GET /api/projects': { build: json('/api/projects') },
   'POST /api/projects': { ok: 201, build: async () => ({ path: '/api/projects', body: { name: unique('Harrow project') } }) },
   'GET /api/projects/:id': { build: async () => ({ path: `/api/projects/${f.projectId}` }), except: { librarian: 404 } },
-  'PATCH /api/projects/:id': { build: async () => ({ path: `/api/projects/${f.projectId}`, body: { description: unique('HS-2 viewports') } }), except: { checker: 403 } },
+  'PATCH /api/projects/:id': { build: async () => ({ path: `/api/projects/${f.projectId}`, body: { lockVersion: (await Project.findByPk(f.projectId))!.lockVersion, description: unique('HS-2 viewports') } }), except: { checker: 403 } },
   'POST /api/projects/:id/members': { build: async () => ({ path: `/api/projects/${f.projectId}/members`, body: { userId: (await freshSession('viewer')).id } }), except: { checker: 403 } },
   'DELETE /api/projects/:id/members/:userId': {
     build: async () => {
@@ -280,7 +280,7 @@ const TABLE: Record<string, Entry> = {
       return { path: `/api/shortlists/${sl.id}/items`, body: { propertySetId: f.setId, note: 'Confirm the lot data' } };
     },
   },
-  'PATCH /api/shortlists/:id/items/:itemId': { build: async (c) => { const sl = await shortlistOf(c); return { path: `/api/shortlists/${sl.id}/items/${sl.items[0].id}`, body: { note: 'Edge seal to confirm' } }; } },
+  'PATCH /api/shortlists/:id/items/:itemId': { build: async (c) => { const sl = await shortlistOf(c); return { path: `/api/shortlists/${sl.id}/items/${sl.items[0].id}`, body: { note: 'Edge seal to confirm', lockVersion: sl.items[0].lockVersion } }; } },
   'DELETE /api/shortlists/:id/items/:itemId': { build: async (c) => { const sl = await shortlistOf(c); return { path: `/api/shortlists/${sl.id}/items/${sl.items[0].id}` }; } },
   'POST /api/shortlists/:id/reorder': { build: async (c) => { const sl = await shortlistOf(c, 2); return { path: `/api/shortlists/${sl.id}/reorder`, body: { lockVersion: sl.lockVersion, itemIds: [sl.items[1].id, sl.items[0].id] } }; } },
   'POST /api/shortlists/:id/submit': { build: async (c) => { const sl = await shortlistOf(c); return { path: `/api/shortlists/${sl.id}/submit`, body: { lockVersion: sl.lockVersion } }; } },

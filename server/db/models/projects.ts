@@ -77,6 +77,7 @@ export class ShortlistItem extends Model<InferAttributes<ShortlistItem>, InferCr
   declare propertySetId: number;
   declare position: number;
   declare note: string;
+  declare lockVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare propertySet?: NonAttribute<PropertySet>;
@@ -176,9 +177,10 @@ export function initProjectModels(db: Sequelize): void {
       propertySetId: { type: DataTypes.INTEGER, allowNull: false },
       position: { type: DataTypes.INTEGER, allowNull: false },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+      ...lockVersionColumn(),
       ...timestamps(),
     },
-    { sequelize: db, tableName: 'shortlist_items' },
+    { sequelize: db, tableName: 'shortlist_items', version: 'lockVersion' },
   );
   DesignRecord.init(
     {
