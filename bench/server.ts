@@ -25,6 +25,7 @@ export async function startBenchServer(databaseUrl: string): Promise<BenchServer
       NODE_ENV: 'production',
       PORT: '0',
       HOST: '127.0.0.1',
+      APP_URL: 'http://127.0.0.1',
       DATABASE_URL: databaseUrl,
       SESSION_SECRET: randomBytes(32).toString('hex'),
       COOKIE_SECURE: 'false',

@@ -13,6 +13,8 @@ import { requireSignIn } from './auth/authorize';
 import { withSessionCache } from './auth/session-cache';
 import { sameOriginOnly } from './middleware/same-origin';
 import { rejectNulCharacters } from './middleware/no-nul';
+import { noStore } from './middleware/no-store';
+import { settleOutbox } from './services/outbox';
 import { errorHandler, notFoundApi } from './middleware/error-handler';
 import { authRouter } from './modules/auth/router';
 import { healthRouter } from './modules/health/router';
@@ -50,7 +52,9 @@ export function createApp(): AppHandle {
   // API answers are not revalidated by ETag (the client caches through its query cache), and
   // hashing every body cost more than answering; static files keep their own validators.
   app.set('etag', false);
-  app.set('trust proxy', 'loopback');
+  // Off unless TRUST_PROXY says which proxies to believe: otherwise anyone could name their own
+  // address in X-Forwarded-For (and dodge the sign-in throttle).
+  app.set('trust proxy', config.TRUST_PROXY);
   app.set('query parser', 'simple');
 
   app.use(
@@ -109,6 +113,9 @@ export function createApp(): AppHandle {
     }),
   );
   api.use(passport.session());
+  // Answers may carry accounts, tokens in caught mail, audit entries and records: no browser or
+  // proxy keeps a copy. A route that streams a file may still set its own header.
+  api.use(noStore);
 
   // Public: sign-in, account recovery, health and the API description. Everything after
   // requireSignIn needs a session, and every route names its permission (route-table.ts reads them).
@@ -150,6 +157,8 @@ export function createApp(): AppHandle {
     app,
     ready: feed,
     close: async () => {
+      // Deliveries this process started (after a response, for instance) finish first.
+      await settleOutbox();
       await stopChangeFeed();
       store.close();
       await sessionPool.end().catch(() => undefined);

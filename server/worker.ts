@@ -3,6 +3,8 @@ import { env } from './config/env';
 import { createApp } from './app';
 import { closeDatabase, databaseBusy } from './db/sequelize';
 import { cachesUsable } from './services/change-feed';
+import { rememberListeningPort } from './services/app-link';
+import { startOutboxWorker } from './services/outbox';
 
 /**
  * One server process: the app on the configured port, shut down gracefully on SIGTERM/SIGINT.
@@ -13,6 +15,8 @@ export function runWorker(label: string): void {
   const config = env();
   const { app, close, ready } = createApp();
   const server = createServer(app);
+  // Mail that could not go at once is retried from the outbox (shared safely with other processes).
+  const outbox = startOutboxWorker();
   server.keepAliveTimeout = 65_000;
 
   // Requests still being handled; shutdown waits for them before closing the database.
@@ -25,6 +29,8 @@ export function runWorker(label: string): void {
   server.listen(config.PORT, config.HOST, () => {
     const address = server.address();
     const port = typeof address === 'object' && address ? address.port : config.PORT;
+    // Outside production (no APP_URL), the links in mail point at this port.
+    rememberListeningPort(port);
     console.log(`[isobath] ${label} serving on http://localhost:${port} (${config.NODE_ENV}, process ${process.pid})`);
     void ready.then(() => console.log(`[isobath] process ${process.pid} ${cachesUsable() ? 'listening for changes' : 'not yet listening for changes: serving uncached'}`));
   });
@@ -45,6 +51,7 @@ export function runWorker(label: string): void {
     force.unref();
     server.close(async () => {
       await settle(Date.now() + 5_000);
+      await outbox.stop();
       await close();
       await closeDatabase();
       process.exit(0);

@@ -25,6 +25,7 @@ export const ERROR_CODES = [
   'unauthenticated',
   'invalid_credentials',
   'forbidden',
+  'account_deactivated',
   'own_work',
   'cross_origin',
   'not_found',
@@ -38,6 +39,7 @@ export const ERROR_CODES = [
   'owner_is_member',
   'self_change',
   'has_account',
+  'last_admin',
   // 413, 415, 429
   'too_large',
   'unsupported_media_type',

@@ -17,6 +17,14 @@ declare global {
   }
 }
 
+/** Why passport-local refused a sign-in. */
+export interface SignInRefusal {
+  message: string;
+  reason: 'credentials' | 'deactivated';
+}
+
+const refusal = (reason: SignInRefusal['reason']): SignInRefusal => ({ message: reason === 'deactivated' ? 'account deactivated' : 'wrong e-mail or password', reason });
+
 export function toSessionUser(user: Express.User): SessionUserDto {
   return { id: user.id, email: user.email, name: user.name, role: user.role, permissions: [...ROLE_PERMISSIONS[user.role]] };
 }
@@ -53,8 +61,10 @@ export function configurePassport(): typeof passport {
       try {
         const user = await User.findOne({ where: { email: email.trim().toLowerCase() } });
         const ok = await verifyPassword(password, user?.passwordHash);
-        // One answer for unknown, inactive and wrong password: no account enumeration.
-        if (!user || !ok || !user.active) return done(null, false);
+        // One answer for an unknown account and a wrong password: no account enumeration. Only
+        // the right password learns that its account is deactivated.
+        if (!user || !ok) return done(null, false, refusal('credentials'));
+        if (!user.active) return done(null, false, refusal('deactivated'));
         return done(null, { id: user.id, email: user.email, name: user.name, role: user.role });
       } catch (err) {
         return done(err);

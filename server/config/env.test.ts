@@ -19,6 +19,7 @@ const NAMES = [
   'MAIL_FROM',
   'MAIL_CATCHER_DIR',
   'APP_URL',
+  'TRUST_PROXY',
 ];
 const saved = Object.fromEntries(NAMES.map((n) => [n, process.env[n]]));
 
@@ -53,11 +54,24 @@ describe('storage and mail variables', () => {
     expect(e.SMTP_USER).toBeUndefined();
     expect(e.MAIL_FROM).toBe('Isobath <no-reply@isobath.example>');
     expect(e.MAIL_CATCHER_DIR).toBeUndefined();
-    expect(e.APP_URL).toBe('http://localhost:3000');
+    expect(e.APP_URL).toBeUndefined();
+    expect(e.TRUST_PROXY).toBe(false);
+  });
+
+  it('requires APP_URL in production, and names it', () => {
+    expect(() => withEnv({ NODE_ENV: 'production' })()).toThrow(/APP_URL/);
+    expect(withEnv({ NODE_ENV: 'production', APP_URL: 'https://isobath.harrow-sound.example' })().APP_URL).toBe('https://isobath.harrow-sound.example');
+  });
+
+  it('trusts a proxy only when told which: a hop count or addresses; never "true"', () => {
+    expect(withEnv({ NODE_ENV: 'development', TRUST_PROXY: 'false' })().TRUST_PROXY).toBe(false);
+    expect(withEnv({ NODE_ENV: 'development', TRUST_PROXY: '1' })().TRUST_PROXY).toBe(1);
+    expect(withEnv({ NODE_ENV: 'development', TRUST_PROXY: 'loopback, 10.0.0.0/8' })().TRUST_PROXY).toBe('loopback, 10.0.0.0/8');
+    expect(() => withEnv({ NODE_ENV: 'development', TRUST_PROXY: 'true' })()).toThrow('TRUST_PROXY');
   });
 
   it('gives production no fake key: unset keys leave the SDK credential chain in charge', () => {
-    const e = withEnv({ NODE_ENV: 'production' })();
+    const e = withEnv({ NODE_ENV: 'production', APP_URL: 'https://isobath.harrow-sound.example' })();
     expect(e.S3_ACCESS_KEY_ID).toBeUndefined();
     expect(e.S3_SECRET_ACCESS_KEY).toBeUndefined();
   });

@@ -16,6 +16,7 @@ const envSchema = z.object({
   COOKIE_SECURE: z.enum(['true', 'false']).optional(),
   /** bcrypt cost; lower only for tests. */
   BCRYPT_ROUNDS: z.coerce.number().int().min(4).max(15).default(11),
+  /** Failed sign-ins one address may make, across every name, before it must wait (server/auth/sign-in-throttle.ts). */
   LOGIN_RATE_LIMIT: z.coerce.number().int().min(1).default(10),
   /**
    * Evaluations per signed-in account per minute, over all workers (each worker allows its share:
@@ -25,6 +26,17 @@ const envSchema = z.object({
   EVALUATE_RATE_LIMIT: z.coerce.number().int().min(1).default(240),
   /** Worker processes of npm start (server/index.ts); unset: one per core. */
   WEB_CONCURRENCY: z.coerce.number().int().min(1).max(64).optional(),
+  /**
+   * Express's `trust proxy`: off unless set. Behind a reverse proxy, name it (a hop count such as
+   * 1, or addresses/subnets such as loopback or 10.0.0.0/8) so req.ip is the client's address
+   * from X-Forwarded-For; left off, that header is ignored and req.ip is the socket's peer.
+   */
+  TRUST_PROXY: z
+    .string()
+    .trim()
+    .default('false')
+    .transform((v): boolean | number | string => (v === '' || v === 'false' ? false : /^\d+$/.test(v) ? Number(v) : v))
+    .refine((v) => v !== 'true', 'true would trust any address; give a hop count or the proxy addresses'),
   LOG_REQUESTS: z.enum(['true', 'false']).default('false'),
 
   /** Object store for uploaded documents. Unset endpoint = the provider's own (AWS) endpoint for S3_REGION. */
@@ -47,8 +59,12 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3).default('Isobath <no-reply@isobath.example>'),
   /** Where the local catcher saves mail; when set, the app can list what was caught. */
   MAIL_CATCHER_DIR: z.string().min(1).optional(),
-  /** Public address of the app, used in links sent by mail. */
-  APP_URL: z.string().url({ protocol: /^https?$/ }).default('http://localhost:3000'),
+  /** Mail that could not be sent is tried again after this many seconds, doubling per attempt (at most an hour)… */
+  MAIL_RETRY_SECONDS: z.coerce.number().positive().max(3600).default(30),
+  /** …at most this many times in all; then it is marked failed and shown to the administrators. */
+  MAIL_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
+  /** Public address of the app, used in links sent by mail; required in production (outside it, links follow the port in use). */
+  APP_URL: z.string().url({ protocol: /^https?$/ }).optional(),
 });
 
 export type Env = z.infer<typeof envSchema> & { SESSION_SECRET: string; cookieSecure: boolean };
@@ -80,6 +96,9 @@ export function env(): Env {
   const e = parsed.data;
   if (e.NODE_ENV === 'production' && !e.SESSION_SECRET) {
     throw new Error('Invalid environment: SESSION_SECRET (32+ characters) is required in production');
+  }
+  if (e.NODE_ENV === 'production' && !e.APP_URL) {
+    throw new Error('Invalid environment: APP_URL (the public address, e.g. https://isobath.example.org) is required in production, for the links sent by mail');
   }
   if (!e.S3_ACCESS_KEY_ID !== !e.S3_SECRET_ACCESS_KEY) {
     throw new Error('Invalid environment: set both S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY, or neither');

@@ -2,6 +2,7 @@ import { setupDatabase } from './setup';
 import { migrate } from './migrate';
 import { closeDatabase } from './sequelize';
 import { initModels } from './models';
+import { settleOutbox } from '../services/outbox';
 
 const command = process.argv[2] ?? 'setup';
 
@@ -26,4 +27,5 @@ main()
     console.error('[isobath] database setup failed:', err instanceof Error ? err.message : err);
     process.exitCode = 1;
   })
-  .finally(() => closeDatabase());
+  // Mail the seed queued and is still sending finishes first (what is left, the server's worker sends).
+  .finally(() => settleOutbox().then(() => closeDatabase()));

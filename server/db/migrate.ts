@@ -11,6 +11,9 @@ import * as m0007 from './migrations/0007-value-provenance';
 import * as m0008 from './migrations/0008-value-confirmations';
 import * as m0009 from './migrations/0009-reference-versions';
 import * as m0010 from './migrations/0010-reference-documents';
+import * as m0011 from './migrations/0011-sign-in-throttle';
+import * as m0012 from './migrations/0012-mail-outbox';
+import * as m0013 from './migrations/0013-item-versions';
 
 // Listed explicitly: vitest cannot glob-load .ts migrations. Add new ones at the end.
 const MIGRATIONS = [
@@ -24,6 +27,9 @@ const MIGRATIONS = [
   { name: '0008-value-confirmations', ...m0008 },
   { name: '0009-reference-versions', ...m0009 },
   { name: '0010-reference-documents', ...m0010 },
+  { name: '0011-sign-in-throttle', ...m0011 },
+  { name: '0012-mail-outbox', ...m0012 },
+  { name: '0013-item-versions', ...m0013 },
 ];
 
 export function migrator() {

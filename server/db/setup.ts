@@ -8,7 +8,6 @@ import { seedDemoProject } from './seeders/demo-project';
 import { invalidateCatalogueSnapshot } from '../modules/property-sets/snapshot';
 import { forgetSessionUsers } from '../auth/passport';
 import { forgetAllSessions } from '../auth/session-cache';
-import { resetLockouts } from '../auth/lockout';
 
 export interface SetupResult {
   migrations: string[];
@@ -39,6 +38,8 @@ export async function setupDatabase(options: { demo?: boolean; demoProject?: boo
 
 /** Every application table, in an order TRUNCATE … CASCADE accepts. */
 export const TABLES = [
+  'sign_in_throttles',
+  'mail_outbox',
   'audit_log',
   'value_confirmations',
   'session',
@@ -67,7 +68,6 @@ export async function emptyDatabase(): Promise<void> {
   invalidateCatalogueSnapshot();
   forgetSessionUsers();
   forgetAllSessions();
-  resetLockouts();
 }
 
 /** Tests only: empty every table, then seed the catalogue and demo accounts (and, when asked, the demo project). */

@@ -10,6 +10,8 @@ import { AppError, badRequest } from '../errors';
 export function singleFile(field: string, maxBytes: number): RequestHandler {
   const upload = multer({
     storage: multer.memoryStorage(),
+    // Browsers send the file name as raw UTF-8 in the part header; busboy's default reads it as Latin-1.
+    defParamCharset: 'utf8',
     limits: { fileSize: maxBytes, files: 1, fields: 4, parts: 5, fieldSize: 4096, headerPairs: 50 },
   }).single(field);
   const megabytes = Math.round((maxBytes / 1024 / 1024) * 10) / 10;

@@ -71,11 +71,16 @@ export function closeMail(): void {
 // Nodemailer's error codes for a server that could not be reached or talked to.
 const UNREACHABLE = new Set(['ECONNECTION', 'ETIMEDOUT', 'ESOCKET', 'EDNS', 'ECONNREFUSED', 'ECONNRESET', 'ETLS', 'EPROXY']);
 
-/** Sends one message from MAIL_FROM. Throws a 400 AppError for bad input and MailError when sending fails. */
-export async function sendMail(input: SendMailInput): Promise<SentMail> {
+/** The message as it will be sent; a 400 AppError naming the field when it is not valid (e.g. a subject with a line break). */
+export function checkMail(input: SendMailInput): z.output<typeof sendMailSchema> {
   const parsed = sendMailSchema.safeParse(input);
   if (!parsed.success) throw badRequest('The message is not valid.', fieldErrorsFromZod(parsed.error));
-  const { to, subject, text, html } = parsed.data;
+  return parsed.data;
+}
+
+/** Sends one message from MAIL_FROM. Throws a 400 AppError for bad input and MailError when sending fails. */
+export async function sendMail(input: SendMailInput): Promise<SentMail> {
+  const { to, subject, text, html } = checkMail(input);
   try {
     const info = await mailTransport().sendMail({ to, subject, text, ...(html ? { html } : {}) });
     return {
@@ -89,23 +94,6 @@ export async function sendMail(input: SendMailInput): Promise<SentMail> {
       throw new MailError(503, 'mail_unavailable', 'The mail server is unavailable. Try again in a moment.', err);
     }
     throw new MailError(502, 'mail_failed', 'The mail server did not accept the message.', err);
-  }
-}
-
-/**
- * sendMail for callers that must go on whatever happens (a sign-up must not fail because mail
- * is down): logs the failure, without the body, and returns false instead of throwing.
- */
-export async function sendMailSafely(input: SendMailInput): Promise<boolean> {
-  try {
-    await sendMail(input);
-    return true;
-  } catch (err) {
-    const cause = err instanceof MailError ? err.cause : err;
-    const detail = cause instanceof Error ? `${(cause as { code?: string }).code ?? cause.name}: ${cause.message}` : String(cause);
-    const count = Array.isArray(input?.to) ? input.to.length : 1;
-    console.error(`[isobath] mail "${String(input?.subject ?? '').slice(0, 80)}" to ${count} recipient(s) not sent: ${detail}`);
-    return false;
   }
 }
 

@@ -98,6 +98,36 @@ describe('document storage on the S3 fake', () => {
     await deleteDocument(key);
   });
 
+  // Reproduces finding 7 of the account-safety assessment: a failed upload left a truncated object.
+  it('leaves no partial object when the body breaks off half way through a put', async () => {
+    const key = 'documents/harrow-sound/broken-off-upload.pdf';
+    const first = randomBytes(300_000);
+    let sent = false;
+    const body = new Readable({
+      read() {
+        if (!sent) {
+          sent = true;
+          this.push(first);
+        } else {
+          // The source (a client, a disk) fails after the first 300 kB of a declared 1 MB.
+          setTimeout(() => this.destroy(new Error('source broke off')), 50);
+        }
+      },
+    });
+    body.on('error', () => undefined); // the SDK sees it through the request it aborts
+    const log = vi.spyOn(console, 'error').mockImplementation(() => undefined);
+    const started = Date.now();
+    await expect(putDocument({ key, body, contentType: 'application/pdf', contentLength: 1_000_000 })).rejects.toBeInstanceOf(StorageError);
+    // It fails at once instead of waiting for the missing bytes until a timeout (30 s before).
+    expect(Date.now() - started).toBeLessThan(10_000);
+    expect(log).toHaveBeenCalled();
+    expect(await documentExists(key)).toBe(false);
+    const files = await filesUnder(dataDir);
+    const contents = await Promise.all(files.map((f) => readFile(f)));
+    // Nor is any file of the fake holding the bytes that arrived.
+    expect(contents.some((c) => c.length > 0 && first.subarray(0, 1024).equals(c.subarray(0, 1024)))).toBe(false);
+  }, 20_000);
+
   it('replaces an object put twice under one key', async () => {
     const key = 'documents/replace-me.pdf';
     await putDocument({ key, body: Buffer.from('first'), contentType: 'text/plain' });

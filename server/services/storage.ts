@@ -166,6 +166,10 @@ export async function putDocument(input: PutDocumentInput): Promise<{ key: strin
   } else {
     throw new TypeError('body must be a Buffer or a Readable stream');
   }
+  // A stream that breaks off ends the request at once (the SDK would otherwise wait for the
+  // missing bytes until a timeout).
+  const abort = new AbortController();
+  if (body instanceof Readable) body.once('error', (err) => abort.abort(err));
   try {
     await storageClient().send(
       new PutObjectCommand({
@@ -176,11 +180,24 @@ export async function putDocument(input: PutDocumentInput): Promise<{ key: strin
         ContentLength: size,
         ...(contentMD5 ? { ContentMD5: contentMD5 } : {}),
       }),
+      { abortSignal: abort.signal },
     );
   } catch (err) {
-    throw storageFailure(err, 'put', key);
+    const failure = storageFailure(err, 'put', key);
+    // A put cut off half way may leave the bytes that arrived under the key (some stores keep
+    // them, the local fake among them): remove them, so a failed upload leaves nothing behind.
+    await removePartial(key);
+    throw failure;
   }
   return { key, size };
+}
+
+async function removePartial(key: string): Promise<void> {
+  try {
+    await storageClient().send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }));
+  } catch (err) {
+    console.error(`[isobath] storage: could not remove what a failed put left under ${bucket()}/${key}:`, err instanceof Error ? `${err.name}: ${err.message}` : err);
+  }
 }
 
 /** Opens a stored document for reading. Throws DocumentNotFoundError when it is not there. */

@@ -6,7 +6,7 @@ import type { Model, ModelStatic, Transaction } from 'sequelize';
 import { sequelize } from '../db/sequelize';
 import { AppError, badRequest, conflict, forbidden, notFound } from '../errors';
 import { recordAudit } from '../services/audit';
-import { sendMailSafely } from '../services/mail';
+import { queueMail } from '../services/outbox';
 import { assertCurrent, auditSnapshot, lockCurrent } from '../services/optimistic-lock';
 import { findStep, stepRefusal, type Refusal, type StepRule, type WorkflowSubject } from '../../shared/workflows/steps';
 import type { Role } from '../../shared/roles';
@@ -118,5 +118,5 @@ export function subjectLine(text: string): string {
 
 /** One message to many, in batches of 50 recipients. */
 export async function mailInChunks(to: string[], subject: string, text: string): Promise<void> {
-  for (let i = 0; i < to.length; i += 50) await sendMailSafely({ to: to.slice(i, i + 50), subject: subjectLine(subject), text });
+  for (let i = 0; i < to.length; i += 50) await queueMail({ to: to.slice(i, i + 50), subject: subjectLine(subject), text });
 }

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { oneLineText } from './text';
 import type { ListDto } from './responses';
 
 /** Material families in the catalogue. Slugs are stable API values; labels are for screens. */
@@ -100,7 +101,7 @@ export type PropertyValues = z.infer<typeof propertyValuesSchema>;
 
 export const referenceInputSchema = z.object({
   kind: referenceKindSchema,
-  title: z.string().trim().min(1).max(400),
+  title: oneLineText({ min: 1, max: 400 }),
   authors: z.string().trim().max(400).optional(),
   year: z.number().int().min(1800).max(2100).optional(),
   identifier: z.string().trim().max(200).optional(),
@@ -110,7 +111,7 @@ export const referenceInputSchema = z.object({
 export type ReferenceInput = z.infer<typeof referenceInputSchema>;
 
 export const materialInputSchema = z.object({
-  name: z.string().trim().min(1).max(200),
+  name: oneLineText({ min: 1, max: 200 }),
   family: familySchema,
   transparent: z.boolean(),
   description: z.string().trim().max(2000).optional(),

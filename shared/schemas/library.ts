@@ -3,6 +3,7 @@
  * CSV import, and the admin's audit log and caught mail. All values SI.
  */
 import { z } from 'zod';
+import { oneLineText } from './text';
 import {
   materialInputSchema,
   propertyValuesSchema,
@@ -31,7 +32,7 @@ const anyObject = z.object({});
  */
 export const draftInputSchema = propertyValuesSchema
   .extend({
-    condition: z.string().trim().min(1, 'Describe the condition (form, temper, grade…)').max(300),
+    condition: oneLineText({ min: 1, max: 300, required: 'Describe the condition (form, temper, grade…)' }),
     materialId: id.optional(),
     material: materialInputSchema.strict().optional(),
     referenceId: id.nullish(),
@@ -267,6 +268,23 @@ export type AuditPageDto = ItemsDto<AuditEntryDto>;
 export interface CaughtMailListDto extends ItemsDto<CaughtMailDto> {
   enabled: boolean;
 }
+
+/** A row of GET /api/admin/outbox: a message Isobath sends, and how it fared (never its body). */
+export interface OutboxMailDto {
+  id: number;
+  to: string[];
+  subject: string;
+  status: 'pending' | 'sent' | 'failed';
+  attempts: number;
+  lastError: string | null;
+  nextAttemptAt: string | null;
+  createdAt: string;
+  sentAt: string | null;
+  /** What it is about, e.g. "invitation:12". */
+  ref: string | null;
+}
+
+export const outboxQuerySchema = z.strictObject({ status: z.enum(['pending', 'sent', 'failed']).optional() });
 
 /** The CSV import's columns, each declared once (name, draft path, unit, required, help). */
 export { PROPERTY_SET_COLUMNS as IMPORT_COLUMNS } from '../import/property-set-columns';

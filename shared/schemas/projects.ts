@@ -3,6 +3,7 @@
  * administration. All values SI.
  */
 import { z } from 'zod';
+import { oneLineText } from './text';
 import { loadCaseSchema, evaluateFiltersSchema, type LoadCase } from './evaluate';
 import { roleSchema, type Role } from './auth';
 import type { CandidateResult, EvaluateResult } from '../engine/types';
@@ -10,13 +11,13 @@ import type { PropertySetDto } from './catalogue';
 
 const id = z.number().int().positive().max(2_147_483_647);
 const lockVersion = z.number().int().min(0).max(2_147_483_647);
-const name = (what: string) => z.string().trim().min(1, `Give the ${what} a name`).max(200);
+const name = (what: string) => oneLineText({ min: 1, max: 200, required: `Give the ${what} a name` });
 
 export const projectCreateSchema = z
   .object({ name: name('project'), description: z.string().trim().max(4000).default('') })
   .strict();
 export const projectUpdateSchema = z
-  .object({ name: name('project').optional(), description: z.string().trim().max(4000).optional() })
+  .object({ lockVersion, name: name('project').optional(), description: z.string().trim().max(4000).optional() })
   .strict();
 export const memberAddSchema = z.object({ userId: id }).strict();
 
@@ -34,7 +35,7 @@ export const shortlistCreateSchema = z.object({ loadCaseId: id, name: name('shor
 export const shortlistItemAddSchema = z
   .object({ propertySetId: id, note: z.string().trim().max(2000).default('') })
   .strict();
-export const shortlistItemUpdateSchema = z.object({ note: z.string().trim().max(2000) }).strict();
+export const shortlistItemUpdateSchema = z.object({ lockVersion, note: z.string().trim().max(2000) }).strict();
 export const shortlistReorderSchema = z.object({ lockVersion, itemIds: z.array(id).min(1).max(200) }).strict();
 export const shortlistTransitionSchema = z
   .object({ lockVersion, comment: z.string().trim().max(4000).optional() })
@@ -54,7 +55,7 @@ export const passwordSchema = z.string().min(12, 'Use at least 12 characters').m
 
 export const invitationCreateSchema = z.object({ email, role: roleSchema }).strict();
 export const invitationAcceptSchema = z
-  .object({ token: z.string().trim().min(20).max(200), name: z.string().trim().min(1, 'Enter your name').max(200), password: passwordSchema })
+  .object({ token: z.string().trim().min(20).max(200), name: oneLineText({ min: 1, max: 200, required: 'Enter your name' }), password: passwordSchema })
   .strict();
 export const userUpdateSchema = z.object({ role: roleSchema.optional(), active: z.boolean().optional() }).strict();
 export const passwordChangeSchema = z
@@ -80,6 +81,8 @@ export interface ProjectDto {
   members: UserSummaryDto[];
   createdAt: string;
   updatedAt: string;
+  /** For PATCH: a change made from an older read gets 409 stale. */
+  lockVersion: number;
   counts: { loadCases: number; shortlists: number; checked: number };
 }
 
@@ -99,6 +102,8 @@ export interface ShortlistItemDto {
   id: number;
   position: number;
   note: string;
+  /** For editing the note: a save made from an older read gets 409 stale. */
+  lockVersion: number;
   propertySet: PropertySetDto;
   /** Live evaluation against the shortlist's load case (null once a record is frozen: use the record). */
   result: CandidateResult | null;
@@ -127,7 +132,7 @@ export interface ShortlistSubmission {
   submittedAt: string;
   loadCase: LoadCaseDto;
   evaluation: Omit<EvaluateResult, 'results' | 'total'> | null;
-  items: { id: number; position: number; note: string; propertySet: PropertySetDto; result: CandidateResult | null }[];
+  items: { id: number; position: number; note: string; lockVersion?: number; propertySet: PropertySetDto; result: CandidateResult | null }[];
 }
 
 export interface ShortlistDto {
@@ -224,7 +229,18 @@ export interface AdminUserDto {
   createdAt: string;
 }
 
-export type InvitationState = 'waiting' | 'accepted' | 'expired';
+export type InvitationState = 'waiting' | 'accepted' | 'expired' | 'revoked';
+
+/** How an outgoing message fared: sent, waiting for another attempt, or given up. */
+export interface MailDeliveryDto {
+  status: 'pending' | 'sent' | 'failed';
+  attempts: number;
+  /** The mail server's last refusal or the connection error, while not sent. */
+  lastError: string | null;
+  /** When the next attempt is due (pending only). */
+  nextAttemptAt: string | null;
+  sentAt: string | null;
+}
 
 /** A row of GET /api/admin/invitations. */
 export interface InvitationDto {
@@ -234,7 +250,28 @@ export interface InvitationDto {
   createdAt: string;
   expiresAt: string;
   state: InvitationState;
+  /** When the link was last sent (created, or renewed by resending). */
+  sentAt: string;
+  revokedAt: string | null;
+  /** Its latest e-mail (null for invitations from before the outbox). */
+  mail: MailDeliveryDto | null;
+}
+
+/** A row of GET /api/admin/sign-in-locks: failed sign-ins counted for one address, across names (email null) or for one name. */
+export interface SignInLockDto {
+  id: number;
+  address: string;
+  email: string | null;
+  failures: number;
+  /** Until when sign-ins from the address (for the name, when given) wait; null while only counted. */
+  lockedUntil: string | null;
+  lastFailureAt: string;
 }
 
 /** The answer to POST /api/admin/invitations. */
-export type InvitationCreatedDto = Pick<InvitationDto, 'id' | 'email' | 'role' | 'expiresAt'>;
+export type InvitationCreatedDto = Pick<InvitationDto, 'id' | 'email' | 'role' | 'expiresAt'> & {
+  /** sent: the mail server took it; queued: it did not answer in time or refused, and the outbox tries again. */
+  mail: 'sent' | 'queued';
+  /** Live invitations to the same address that this one replaced. */
+  replaced: number;
+};

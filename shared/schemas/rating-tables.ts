@@ -9,6 +9,7 @@
  * row or column below the table is on the safe side).
  */
 import { z } from 'zod';
+import { oneLineText } from './text';
 
 const finite = (label: string) =>
   z.number({ error: (iss) => (iss.input === undefined ? `${label} is required.` : `${label} must be a number.`) }).refine(Number.isFinite, `${label} must be a finite number.`);
@@ -123,7 +124,7 @@ const limitsSchema = z.strictObject({
 /** The content of a rating table, as drafted and exchanged (SI). */
 export const ratingTableContentSchema = z
   .strictObject({
-    name: z.string().trim().min(1, 'Name the table.').max(300),
+    name: oneLineText({ min: 1, max: 300, required: 'Name the table.' }),
     geometry: ratingGeometrySchema,
     /** Cones and spherical sectors only: the included angles the table applies to. */
     includedAngle: angleRangeSchema.nullish(),

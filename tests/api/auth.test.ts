@@ -98,7 +98,8 @@ describe('GET /api/auth/me and POST /api/auth/logout', () => {
     await User.update({ active: false }, { where: { email: demoEmail('viewer') } });
     expect((await agent.get('/api/auth/me')).status).toBe(401);
     const again = await request(handle.app).post('/api/auth/login').send({ email: demoEmail('viewer'), password: DEMO_PASSWORD });
-    expect(again.status).toBe(401);
+    expect(again.status).toBe(403);
+    expect(again.body.error.code).toBe('account_deactivated');
     await User.update({ active: true }, { where: { email: demoEmail('viewer') } });
   });
 

@@ -124,8 +124,51 @@ describe('shortlists and sign-off', () => {
     const unpublished = await engineer.post(`/api/shortlists/${sl.id}/items`).send({ propertySetId: draft.id });
     expect(unpublished.status).toBe(400);
     expect(unpublished.body.error.fields).toHaveProperty('propertySetId');
-    const noted = await engineer.patch(`/api/shortlists/${sl.id}/items/${sl.items[0].id}`).send({ note: 'Edge seal to confirm' });
+    const noted = await engineer.patch(`/api/shortlists/${sl.id}/items/${sl.items[0].id}`).send({ note: 'Edge seal to confirm', lockVersion: sl.items[0].lockVersion });
     expect(noted.body.items.find((i: { id: number }) => i.id === sl.items[0].id).note).toBe('Edge seal to confirm');
+  });
+
+  // Reproduces finding 7 of the account-safety assessment: project edits and shortlist notes had
+  // no version, so the last write won.
+  it('refuses a note saved from an older read (409 stale) and keeps the newer note; of two at once, one wins', async () => {
+    const sl = await shortlistReady();
+    const item = sl.items[0];
+    const first = await engineer.patch(`/api/shortlists/${sl.id}/items/${item.id}`).send({ note: 'Confirm the lot certificate', lockVersion: item.lockVersion });
+    expect(first.status).toBe(200);
+    const saved = first.body.items.find((i: { id: number }) => i.id === item.id);
+    expect(saved.lockVersion).toBe(item.lockVersion + 1);
+    const late = await engineer.patch(`/api/shortlists/${sl.id}/items/${item.id}`).send({ note: 'Written in another tab', lockVersion: item.lockVersion });
+    expect(late.status).toBe(409);
+    expect(late.body.error.code).toBe('stale');
+    expect((await engineer.get(`/api/shortlists/${sl.id}`)).body.items.find((i: { id: number }) => i.id === item.id).note).toBe('Confirm the lot certificate');
+    expect((await engineer.patch(`/api/shortlists/${sl.id}/items/${item.id}`).send({ note: 'No version' })).status).toBe(400);
+
+    const both = await Promise.all(
+      ['Tab one: check the edge seal', 'Tab two: check the bearing surface'].map((note) => engineer.patch(`/api/shortlists/${sl.id}/items/${item.id}`).send({ note, lockVersion: saved.lockVersion })),
+    );
+    expect(both.map((r) => r.status).sort()).toEqual([200, 409]);
+    const winner = both.find((r) => r.status === 200)!.body.items.find((i: { id: number }) => i.id === item.id).note;
+    expect((await engineer.get(`/api/shortlists/${sl.id}`)).body.items.find((i: { id: number }) => i.id === item.id).note).toBe(winner);
+  });
+
+  it('refuses a project edit made from an older read (409 stale) and keeps the newer one; of two at once, one wins', async () => {
+    const project = (await engineer.post('/api/projects').send({ name: 'HS-4 chamber viewports', description: 'Flat viewports, 5 bar' })).body;
+    expect(project.lockVersion).toBe(0);
+    const first = await engineer.patch(`/api/projects/${project.id}`).send({ lockVersion: 0, description: 'Flat viewports, 5 bar, treatment chamber' });
+    expect(first.status).toBe(200);
+    expect(first.body.lockVersion).toBe(1);
+    const late = await engineer.patch(`/api/projects/${project.id}`).send({ lockVersion: 0, name: 'HS-4 renamed from an old tab' });
+    expect(late.status).toBe(409);
+    expect(late.body.error.code).toBe('stale');
+    const now = (await engineer.get(`/api/projects/${project.id}`)).body;
+    expect(now).toMatchObject({ name: 'HS-4 chamber viewports', description: 'Flat viewports, 5 bar, treatment chamber', lockVersion: 1 });
+    const missing = await engineer.patch(`/api/projects/${project.id}`).send({ name: 'No version' });
+    expect(missing.status).toBe(400);
+    expect(missing.body.error.fields).toHaveProperty('lockVersion');
+
+    const both = await Promise.all(['HS-4 chamber ports (A)', 'HS-4 chamber ports (B)'].map((name) => engineer.patch(`/api/projects/${project.id}`).send({ lockVersion: 1, name })));
+    expect(both.map((r) => r.status).sort()).toEqual([200, 409]);
+    expect((await engineer.get(`/api/projects/${project.id}`)).body.name).toBe(both.find((r) => r.status === 200)!.body.name);
   });
 
   it('never lets the author check their own shortlist, and only a checker who is a member', async () => {

@@ -229,6 +229,14 @@ describe('reference documents', () => {
     expect(audit.body.items[0]).toMatchObject({ action: 'upload', before: { document: { key: oldKey, version: 1 } }, after: { document: { key: newKey, version: 2 } } });
   });
 
+  // Reproduces finding 7 of the account-safety assessment: non-ASCII upload names were read as Latin-1.
+  it('reads a non-ASCII file name as UTF-8 (browsers send it so): accents fold to their letters', async () => {
+    const ref = await newReference();
+    const res = await uploadTo(librarian, ref.id, pdf(), 'Prüfbericht Fenster Ø200 – Harrow.pdf');
+    expect(res.status).toBe(200);
+    expect(res.body.document.name).toBe('Prufbericht-Fenster-200-Harrow.pdf');
+  });
+
   it('keeps the file name safe: no path, no quotes, nothing outside letters, digits, dot, dash and underscore', async () => {
     const ref = await newReference();
     const res = await uploadTo(librarian, ref.id, pdf(), '../../etc/"passwd"; rm -rf.pdf');

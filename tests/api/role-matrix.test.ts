@@ -12,7 +12,7 @@ import { ROLES, can, type Permission, type Role } from '../../shared/schemas/aut
 import { PropertySet, RatingTable, User } from '../../server/db/models';
 import { createRatingTableDraft } from '../../server/modules/rating-tables/service';
 import { ratingTableDraftSchema } from '../../shared/schemas/rating-tables';
-import { Invitation, PasswordReset } from '../../server/db/models/projects';
+import { Invitation, PasswordReset, Project } from '../../server/db/models/projects';
 import { draftInputSchema } from '../../shared/schemas/library';
 import { createDraft, stepSet } from '../../server/modules/library/service';
 import { proposeConfirmation } from '../../server/modules/library/confirmations';
@@ -23,6 +23,8 @@ import { addItem, createShortlist } from '../../server/modules/projects/shortlis
 import { submitShortlist, checkShortlist } from '../../server/modules/projects/shortlist-steps';
 import { requestPasswordReset } from '../../server/modules/users/service';
 import { listCaughtMail } from '../../server/services/mail';
+import { sendQueued } from '../../server/services/outbox';
+import { sequelize } from '../../server/db/sequelize';
 import type { LoadCase } from '../../shared/schemas/evaluate';
 
 type Caller = 'anonymous' | Role;
@@ -137,6 +139,9 @@ async function submittedByEngineer() {
   const sl = await shortlistOf('engineer');
   return submitShortlist(actors.engineer, sl.id, sl.lockVersion);
 }
+
+const liveInvitation = () =>
+  Invitation.create({ email: `${unique('invited')}@harrow.example`, role: 'viewer', tokenHash: createHash('sha256').update(randomBytes(32)).digest('hex'), expiresAt: new Date(Date.now() + 3600_000), usedAt: null, invitedById: null });
 
 const json = (path: string, body?: unknown) => async () => ({ path, body });
 const ratingDraft = () => ({
@@ -258,14 +263,25 @@ const TABLE: Record<string, Entry> = {
   'GET /api/admin/mail/:id': { build: async () => ({ path: `/api/admin/mail/${f.mailId}` }) },
   'GET /api/admin/users': { build: json('/api/admin/users') },
   'PATCH /api/admin/users/:id': { build: async () => ({ path: `/api/admin/users/${(await freshSession('viewer')).id}`, body: { role: 'engineer' } }) },
+  'GET /api/admin/sign-in-locks': { build: json('/api/admin/sign-in-locks') },
+  'DELETE /api/admin/sign-in-locks/:id': {
+    ok: 204,
+    build: async () => {
+      const [rows] = await sequelize().query(`INSERT INTO sign_in_throttles (address, email, failures, last_failure_at) VALUES ('192.0.2.1', :email, 1, now()) RETURNING id`, { replacements: { email: `${unique('locked')}@harrow.example` } });
+      return { path: `/api/admin/sign-in-locks/${(rows as { id: number }[])[0].id}` };
+    },
+  },
   'GET /api/admin/invitations': { build: json('/api/admin/invitations') },
+  'POST /api/admin/invitations/:id/revoke': { build: async () => ({ path: `/api/admin/invitations/${(await liveInvitation()).id}/revoke` }) },
+  'POST /api/admin/invitations/:id/resend': { build: async () => ({ path: `/api/admin/invitations/${(await liveInvitation()).id}/resend` }) },
+  'GET /api/admin/outbox': { build: json('/api/admin/outbox?status=sent') },
   'POST /api/admin/invitations': { ok: 201, build: async () => ({ path: '/api/admin/invitations', body: { email: `${unique('new')}@harrow.example`, role: 'viewer' } }) },
 
   // The project: owned by the engineer, with the checker and the viewer as members; the librarian is not one.
   'GET /api/projects': { build: json('/api/projects') },
   'POST /api/projects': { ok: 201, build: async () => ({ path: '/api/projects', body: { name: unique('Harrow project') } }) },
   'GET /api/projects/:id': { build: async () => ({ path: `/api/projects/${f.projectId}` }), except: { librarian: 404 } },
-  'PATCH /api/projects/:id': { build: async () => ({ path: `/api/projects/${f.projectId}`, body: { description: unique('HS-2 viewports') } }), except: { checker: 403 } },
+  'PATCH /api/projects/:id': { build: async () => ({ path: `/api/projects/${f.projectId}`, body: { lockVersion: (await Project.findByPk(f.projectId))!.lockVersion, description: unique('HS-2 viewports') } }), except: { checker: 403 } },
   'POST /api/projects/:id/members': { build: async () => ({ path: `/api/projects/${f.projectId}/members`, body: { userId: (await freshSession('viewer')).id } }), except: { checker: 403 } },
   'DELETE /api/projects/:id/members/:userId': {
     build: async () => {
@@ -296,7 +312,7 @@ const TABLE: Record<string, Entry> = {
       return { path: `/api/shortlists/${sl.id}/items`, body: { propertySetId: f.setId, note: 'Confirm the lot data' } };
     },
   },
-  'PATCH /api/shortlists/:id/items/:itemId': { build: async (c) => { const sl = await shortlistOf(c); return { path: `/api/shortlists/${sl.id}/items/${sl.items[0].id}`, body: { note: 'Edge seal to confirm' } }; } },
+  'PATCH /api/shortlists/:id/items/:itemId': { build: async (c) => { const sl = await shortlistOf(c); return { path: `/api/shortlists/${sl.id}/items/${sl.items[0].id}`, body: { note: 'Edge seal to confirm', lockVersion: sl.items[0].lockVersion } }; } },
   'DELETE /api/shortlists/:id/items/:itemId': { build: async (c) => { const sl = await shortlistOf(c); return { path: `/api/shortlists/${sl.id}/items/${sl.items[0].id}` }; } },
   'POST /api/shortlists/:id/reorder': { build: async (c) => { const sl = await shortlistOf(c, 2); return { path: `/api/shortlists/${sl.id}/reorder`, body: { lockVersion: sl.lockVersion, itemIds: [sl.items[1].id, sl.items[0].id] } }; } },
   'POST /api/shortlists/:id/submit': { build: async (c) => { const sl = await shortlistOf(c); return { path: `/api/shortlists/${sl.id}/submit`, body: { lockVersion: sl.lockVersion } }; } },
@@ -350,7 +366,7 @@ beforeAll(async () => {
   f.shortlistId = (await shortlistOf('engineer')).id;
   const submitted = await submittedByEngineer();
   f.recordId = (await checkShortlist(actors.checker, submitted.id, submitted.lockVersion, undefined)).designRecordId!;
-  await requestPasswordReset('viewer@harrow.example');
+  await sendQueued([await requestPasswordReset('viewer@harrow.example')]);
   f.mailId = (await listCaughtMail({ limit: 1 }))[0].id;
 
   const doc = (await request(handle.app).get('/api/openapi.json')).body as { paths: Record<string, Record<string, { 'x-isobath-access': string }>> };

@@ -6,7 +6,6 @@ import { startTestApp } from '../helpers/app';
 import { createApp } from '../../server/app';
 import { resetEnvCache } from '../../server/config/env';
 import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
-import { FREE_FAILURES } from '../../server/auth/lockout';
 
 let handle: Awaited<ReturnType<typeof startTestApp>>;
 let writes: { method: 'post' | 'put' | 'patch' | 'delete'; path: string }[] = [];
@@ -64,18 +63,27 @@ describe('cross-site request forgery', () => {
   });
 });
 
-describe('sign-in back-off', () => {
-  it(`locks an account name after ${FREE_FAILURES} failures, whether or not the account exists, and says when to retry`, async () => {
-    const attempt = (email: string, password: string) => request(handle.app).post('/api/auth/login').send({ email, password });
-    for (const email of ['checker@harrow.example', 'no.such.person@harrow.example']) {
-      for (let i = 0; i < FREE_FAILURES; i++) expect((await attempt(email, 'wrong-password')).status).toBe(401);
-      const locked = await attempt(email, DEMO_PASSWORD);
-      expect(locked.status).toBe(429);
-      expect(Number(locked.headers['retry-after'])).toBeGreaterThan(0);
-      expect(locked.body.error.code).toBe('too_many_attempts');
+describe('Cache-Control on API answers', () => {
+  // Reproduces finding 7 of the account-safety assessment: signed-in JSON (caught mail with its
+  // tokens, users, audit, records, /api/auth/me) came without Cache-Control.
+  it('is no-store on every GET operation for a signed-in administrator, and on answers from the answer cache', async () => {
+    const cookie = await signInCookie('admin@harrow.example');
+    const doc = (await request(handle.app).get('/api/openapi.json')).body as { paths: Record<string, Record<string, unknown>> };
+    const gets = Object.entries(doc.paths).filter(([, ops]) => 'get' in ops).map(([path]) => path.replace(/\{[A-Za-z]+\}/g, '1'));
+    expect(gets.length).toBeGreaterThan(25);
+    const ok: string[] = [];
+    for (const path of gets) {
+      const res = await request(handle.app).get(path).set('Cookie', cookie);
+      expect(res.headers['cache-control'], path).toMatch(/(^|, )no-store/);
+      if (res.status === 200) ok.push(path);
     }
-    // Another account is unaffected.
-    expect((await attempt('viewer@harrow.example', DEMO_PASSWORD)).status).toBe(200);
+    expect(ok).toEqual(expect.arrayContaining(['/api/auth/me', '/api/admin/users', '/api/admin/mail', '/api/admin/audit', '/api/admin/invitations', '/api/property-sets/1', '/api/projects']));
+    const body = { loadCase: { pressure: { value: 0.5e6 }, temperature: { min: 15, max: 40 }, sustainedHours: 100, cycles: 100, component: { type: 'flat-disc', diameter: 0.25, thickness: 0.04, edge: 'clamped' } }, limit: 3 };
+    for (let i = 0; i < 2; i++) {
+      const res = await request(handle.app).post('/api/evaluate').set('Cookie', cookie).send(body);
+      expect(res.status).toBe(200);
+      expect(res.headers['cache-control']).toBe('no-store');
+    }
   });
 });
 
@@ -86,9 +94,12 @@ describe('production settings', () => {
     resetEnvCache();
   });
 
-  it('sends Secure, HttpOnly, SameSite cookies and HSTS behind HTTPS', async () => {
+  it('sends Secure, HttpOnly, SameSite cookies and HSTS behind an HTTPS proxy that TRUST_PROXY names', async () => {
     process.env.NODE_ENV = 'production';
     process.env.SESSION_SECRET = 'a-production-secret-of-more-than-32-characters';
+    process.env.APP_URL = 'https://isobath.harrow-sound.example';
+    // The TLS-terminating proxy on this machine: its X-Forwarded-Proto is believed.
+    process.env.TRUST_PROXY = 'loopback';
     resetEnvCache();
     const prod = createApp();
     try {
@@ -99,6 +110,21 @@ describe('production settings', () => {
       expect(cookie).toMatch(/HttpOnly/i);
       expect(cookie).toMatch(/SameSite=Lax/i);
       expect(res.headers['strict-transport-security']).toMatch(/max-age=\d+/);
+    } finally {
+      await prod.close();
+    }
+  });
+
+  it('ignores X-Forwarded-Proto from loopback when TRUST_PROXY is unset: no Secure cookie goes over plain HTTP', async () => {
+    process.env.NODE_ENV = 'production';
+    process.env.SESSION_SECRET = 'a-production-secret-of-more-than-32-characters';
+    process.env.APP_URL = 'https://isobath.harrow-sound.example';
+    delete process.env.TRUST_PROXY;
+    resetEnvCache();
+    const prod = createApp();
+    try {
+      const res = await request(prod.app).post('/api/auth/login').set('X-Forwarded-Proto', 'https').send({ email: 'viewer@harrow.example', password: DEMO_PASSWORD });
+      expect(res.headers['set-cookie']).toBeUndefined();
     } finally {
       await prod.close();
     }

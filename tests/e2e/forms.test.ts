@@ -121,4 +121,65 @@ describe('forms in chromium', () => {
     await page.getByTestId('saved-load-case').getByText('Side port, upper').waitFor();
     expect(await dialog.isVisible()).toBe(false);
   });
+
+  it('keeps an owner’s project edit when someone saved the project first, and loads the saved one on request', async () => {
+    const { page, baseUrl, context } = s;
+    await context.clearCookies();
+    await signInThroughForm(page, baseUrl, 'engineer');
+    const project = (await (await page.request.post(`${baseUrl}/api/projects`, { data: { name: 'HS-5 survey sled', description: 'Camera housing, 4,000 m' } })).json()) as { id: number };
+    await page.goto(`${baseUrl}/projects/${project.id}`);
+    await page.getByRole('button', { name: 'Edit name and description…' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Edit the project' });
+    // Another tab saves the project while this dialog is open.
+    const other = await page.request.patch(`${baseUrl}/api/projects/${project.id}`, { data: { lockVersion: 0, description: 'Camera housing and lamp ports, 4,000 m' } });
+    expect(other.status()).toBe(200);
+
+    await dialog.getByLabel('Description').fill('Camera housing, 4,000 m; sapphire port under review');
+    await dialog.getByRole('button', { name: 'Save' }).click();
+    const banner = dialog.getByTestId('project-stale');
+    await banner.waitFor();
+    expect(await banner.textContent()).toMatch(/Someone saved this project after you opened it/);
+    expect(await dialog.getByLabel('Description').inputValue()).toBe('Camera housing, 4,000 m; sapphire port under review');
+
+    await banner.getByRole('button', { name: /Load the saved version/ }).click();
+    await expect.poll(() => dialog.getByLabel('Description').inputValue()).toBe('Camera housing and lamp ports, 4,000 m');
+    await dialog.getByLabel('Name').fill('HS-5 survey sled ports');
+    await dialog.getByRole('button', { name: 'Save' }).click();
+    await page.getByRole('heading', { name: 'HS-5 survey sled ports' }).waitFor();
+    expect(await dialog.isVisible()).toBe(false);
+  });
+
+  it('keeps an author’s note when the note was saved elsewhere first, and loads the saved note on request', async () => {
+    const { page, baseUrl, context } = s;
+    await context.clearCookies();
+    await signInThroughForm(page, baseUrl, 'engineer');
+    const api = async (method: 'post' | 'patch', path: string, data: unknown) => {
+      const res = await page.request[method](`${baseUrl}/api${path}`, { data });
+      expect(res.status(), path).toBeLessThan(300);
+      return res.json();
+    };
+    const project = await api('post', '/projects', { name: 'HS-6 chamber', description: 'Treatment chamber, 5 bar' });
+    const lc = await api('post', `/projects/${project.id}/load-cases`, { name: 'Flat viewport', loadCase: DEMO_CHAMBER_PORT });
+    const sl = await api('post', `/projects/${project.id}/shortlists`, { loadCaseId: lc.id, name: 'Chamber viewport material' });
+    const set = ((await (await page.request.get(`${baseUrl}/api/property-sets?family=acrylic`)).json()) as { items: { id: number; material: { name: string } }[] }).items[0];
+    const withItem = await api('post', `/shortlists/${sl.id}/items`, { propertySetId: set.id, note: 'First thoughts' });
+    const item = withItem.items[0] as { id: number; lockVersion: number };
+
+    await page.goto(`${baseUrl}/shortlists/${sl.id}`);
+    await page.getByRole('button', { name: `Edit the note on ${set.material.name}` }).click();
+    const editor = page.getByRole('form', { name: `Note on ${set.material.name}` });
+    await api('patch', `/shortlists/${sl.id}/items/${item.id}`, { note: 'Ask for the lot certificate', lockVersion: item.lockVersion });
+
+    await editor.getByLabel(/^Note/).fill('Check the bearing surface finish');
+    await editor.getByRole('button', { name: 'Save note' }).click();
+    const banner = editor.getByTestId('note-stale');
+    await banner.waitFor();
+    expect(await editor.getByLabel(/^Note/).inputValue()).toBe('Check the bearing surface finish');
+
+    await banner.getByRole('button', { name: 'Load the saved note (discards your edit)' }).click();
+    await expect.poll(() => editor.getByLabel(/^Note/).inputValue()).toBe('Ask for the lot certificate');
+    await editor.getByLabel(/^Note/).fill('Ask for the lot certificate and the bearing surface finish');
+    await editor.getByRole('button', { name: 'Save note' }).click();
+    await page.getByTestId('item-note').filter({ hasText: 'Ask for the lot certificate and the bearing surface finish' }).waitFor();
+  });
 });

@@ -77,6 +77,7 @@ export class ShortlistItem extends Model<InferAttributes<ShortlistItem>, InferCr
   declare propertySetId: number;
   declare position: number;
   declare note: string;
+  declare lockVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
   declare propertySet?: NonAttribute<PropertySet>;
@@ -98,6 +99,9 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare expiresAt: Date;
   declare usedAt: Date | null;
   declare invitedById: number | null;
+  declare revokedAt: CreationOptional<Date | null>;
+  declare revokedById: CreationOptional<number | null>;
+  declare sentAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
 }
 
@@ -173,9 +177,10 @@ export function initProjectModels(db: Sequelize): void {
       propertySetId: { type: DataTypes.INTEGER, allowNull: false },
       position: { type: DataTypes.INTEGER, allowNull: false },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+      ...lockVersionColumn(),
       ...timestamps(),
     },
-    { sequelize: db, tableName: 'shortlist_items' },
+    { sequelize: db, tableName: 'shortlist_items', version: 'lockVersion' },
   );
   DesignRecord.init(
     {
@@ -196,6 +201,9 @@ export function initProjectModels(db: Sequelize): void {
       expiresAt: { type: DataTypes.DATE, allowNull: false },
       usedAt: { type: DataTypes.DATE },
       invitedById: { type: DataTypes.INTEGER },
+      revokedAt: { type: DataTypes.DATE },
+      revokedById: { type: DataTypes.INTEGER },
+      sentAt: { type: DataTypes.DATE },
       createdAt: stamp(),
     },
     { sequelize: db, tableName: 'invitations', updatedAt: false },

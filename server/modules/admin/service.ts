@@ -3,7 +3,8 @@ import { Op, type WhereOptions } from 'sequelize';
 import { AuditEntry, User } from '../../db/models';
 import { env } from '../../config/env';
 import { getCaughtMail, listCaughtMail, type CaughtMail } from '../../services/mail';
-import type { AuditEntryDto, AuditPageDto, CaughtMailDto, CaughtMailListDto } from '../../../shared/schemas/library';
+import { listOutbox, type OutboxStatus } from '../../services/outbox';
+import type { AuditEntryDto, AuditPageDto, CaughtMailDto, CaughtMailListDto, OutboxMailDto } from '../../../shared/schemas/library';
 
 export interface AuditQuery {
   entityType?: string;
@@ -58,4 +59,20 @@ export async function listMail(query: { limit: number }): Promise<CaughtMailList
 
 export async function getMail(id: string): Promise<CaughtMailDto> {
   return caughtMailDto(await getCaughtMail(id));
+}
+
+/** What Isobath sends and how it fared, newest first (the last week's sent, the last month's failed). */
+export async function listOutgoingMail(query: { status?: OutboxStatus }): Promise<OutboxMailDto[]> {
+  return (await listOutbox({ status: query.status })).map((r) => ({
+    id: r.id,
+    to: r.recipients,
+    subject: r.subject,
+    status: r.status,
+    attempts: r.attempts,
+    lastError: r.status === 'sent' ? null : r.lastError,
+    nextAttemptAt: r.status === 'pending' ? r.nextAttemptAt.toISOString() : null,
+    createdAt: r.createdAt.toISOString(),
+    sentAt: r.sentAt?.toISOString() ?? null,
+    ref: r.ref,
+  }));
 }

@@ -58,7 +58,7 @@ export function shortlistsRouter(): Router {
   r.get('/:id', authorize('project:read'), async (req, res) => res.json(await shortlists.getShortlist(actor(req), idParam(req))));
   r.post('/:id/items', authorize('project:write'), async (req, res) => res.status(201).json(await shortlists.addItem(actor(req), idParam(req), parse(shortlistItemAddSchema, req.body, 'item'))));
   r.patch('/:id/items/:itemId', authorize('project:write'), async (req, res) =>
-    res.json(await shortlists.updateItem(actor(req), idParam(req), idParam(req, 'itemId'), parse(shortlistItemUpdateSchema, req.body, 'item').note)),
+    res.json(await shortlists.updateItem(actor(req), idParam(req), idParam(req, 'itemId'), parse(shortlistItemUpdateSchema, req.body, 'item'))),
   );
   r.delete('/:id/items/:itemId', authorize('project:write'), async (req, res) => res.json(await shortlists.removeItem(actor(req), idParam(req), idParam(req, 'itemId'))));
   r.post('/:id/reorder', authorize('project:write'), async (req, res) => res.json(await shortlists.reorderItems(actor(req), idParam(req), parse(shortlistReorderSchema, req.body, 'order'))));

@@ -38,6 +38,7 @@ async function projectDto(project: Project, transaction?: Transaction): Promise<
     members: members.map(userSummary),
     createdAt: project.createdAt.toISOString(),
     updatedAt: project.updatedAt.toISOString(),
+    lockVersion: project.lockVersion,
     counts: { loadCases, shortlists, checked },
   };
 }
@@ -65,10 +66,15 @@ export async function createProject(actor: Actor, input: z.output<typeof project
 
 export async function updateProject(actor: Actor, projectId: number, input: z.output<typeof projectUpdateSchema>): Promise<ProjectDto> {
   return sequelize().transaction(async (transaction) => {
-    const project = await ownedProject(actor, projectId, transaction);
+    await ownedProject(actor, projectId, transaction);
+    const project = await lockCurrent(Project, transaction, projectId, input.lockVersion, 'Project', 'project');
     const before = { name: project.name, description: project.description };
-    await project.update(input, { transaction });
-    await recordAudit(transaction, { actorId: actor.id, action: 'update', entityType: 'project', entityId: String(projectId), before, after: input });
+    const { lockVersion: _read, ...change } = input;
+    project.set(change);
+    // Saved even when nothing changed, so the version moves on with every accepted edit.
+    project.changed('updatedAt' as never, true);
+    await project.save({ transaction });
+    await recordAudit(transaction, { actorId: actor.id, action: 'update', entityType: 'project', entityId: String(projectId), before, after: change });
     return projectDto(project, transaction);
   });
 }

@@ -9,7 +9,7 @@ import type { DesignRecordContent, ShortlistDto, ShortlistRoundDto, ShortlistSta
 import { CAUTIONS_TEXT } from '../../../shared/cautions';
 import { SHORTLIST_STEPS, type ShortlistStepName } from '../../../shared/workflows/shortlist';
 import { notFound } from '../../errors';
-import { sendMailSafely } from '../../services/mail';
+import { queueMail } from '../../services/outbox';
 import { appLink } from '../../services/app-link';
 import { runStep, subjectLine, type Actor, type WorkflowKind } from '../../workflows/run-step';
 import { visibleProject } from './access';
@@ -153,7 +153,7 @@ const shortlistKind: WorkflowKind<ShortlistStatus, ShortlistStepName, Shortlist>
     if (step.name === 'submit') {
       const checkers = await projectCheckers(shortlist.projectId, author.id);
       if (!checkers.length) return;
-      await sendMailSafely({
+      await queueMail({
         to: checkers.map((c) => c.email),
         subject: subjectLine(`Shortlist to check: ${shortlist.name}`),
         text: `${author.name} submitted the shortlist "${shortlist.name}" (${shortlist.items?.length ?? 0} candidate(s), load case "${shortlist.loadCaseRecord!.name}") for checking.\n\nOpen it: ${appLink(`/shortlists/${id}`)}\n\n— Isobath`,
@@ -164,14 +164,14 @@ const shortlistKind: WorkflowKind<ShortlistStatus, ShortlistStepName, Shortlist>
     const checker = shortlist.checker?.name ?? actor.name;
     if (step.name === 'check') {
       const record = await DesignRecord.findOne({ where: { shortlistId: id }, attributes: ['id'] });
-      await sendMailSafely({
+      await queueMail({
         to: author.email,
         subject: subjectLine(`Shortlist checked: ${shortlist.name}`),
         text: `${checker} checked your shortlist "${shortlist.name}". Its design record is frozen.\n${comment ? `\nComment: ${comment}\n` : ''}\nDesign record: ${appLink(`/records/${record?.id}`)}\n\n— Isobath`,
       });
       return;
     }
-    await sendMailSafely({
+    await queueMail({
       to: author.email,
       subject: subjectLine(`Shortlist returned: ${shortlist.name}`),
       text: `${checker} returned your shortlist "${shortlist.name}" with this comment:\n\n${comment ?? ''}\n\nOpen it: ${appLink(`/shortlists/${id}`)}\n\n— Isobath`,

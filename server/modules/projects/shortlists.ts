@@ -10,6 +10,7 @@ import type {
   ShortlistSummaryDto,
   shortlistCreateSchema,
   shortlistItemAddSchema,
+  shortlistItemUpdateSchema,
   shortlistReorderSchema,
 } from '../../../shared/schemas/projects';
 import type { PropertySetDto } from '../../../shared/schemas/catalogue';
@@ -93,7 +94,7 @@ async function liveInputs(shortlist: Shortlist): Promise<Omit<ShortlistSubmissio
   return {
     loadCase: loadCaseDto(shortlist.loadCaseRecord!),
     evaluation: evaluation ? { pressure: evaluation.pressure, proofTestPressure: evaluation.proofTestPressure, pressureMethod: evaluation.pressureMethod } : null,
-    items: items.map((item, i) => ({ id: item.id, position: item.position, note: item.note, propertySet: sets[i], result: resultFor(item.propertySetId) })),
+    items: items.map((item, i) => ({ id: item.id, position: item.position, note: item.note, lockVersion: item.lockVersion, propertySet: sets[i], result: resultFor(item.propertySetId) })),
   };
 }
 
@@ -114,7 +115,7 @@ export async function shortlistDto(shortlist: Shortlist): Promise<ShortlistDto> 
     newerVersions(sets, new Map(sets.map((s) => [s.id, s.lineageId ?? null]))),
     DesignRecord.findOne({ where: { shortlistId: shortlist.id }, attributes: ['id'] }),
   ]);
-  const itemDtos: ShortlistItemDto[] = inputs.items.map((item) => ({ ...item, newerVersionId: newer.get(item.propertySet.id) ?? null }));
+  const itemDtos: ShortlistItemDto[] = inputs.items.map((item) => ({ ...item, lockVersion: item.lockVersion ?? 0, newerVersionId: newer.get(item.propertySet.id) ?? null }));
   return {
     id: shortlist.id,
     projectId: shortlist.projectId,
@@ -208,10 +209,12 @@ export function addItem(actor: Actor, id: number, input: z.output<typeof shortli
   });
 }
 
-export function updateItem(actor: Actor, id: number, itemId: number, note: string): Promise<ShortlistDto> {
+export function updateItem(actor: Actor, id: number, itemId: number, input: z.output<typeof shortlistItemUpdateSchema>): Promise<ShortlistDto> {
+  const { note, lockVersion } = input;
   return editShortlist(actor, id, undefined, async (shortlist, transaction) => {
-    const item = await ShortlistItem.findOne({ where: { id: itemId, shortlistId: id }, transaction });
+    const item = await ShortlistItem.findOne({ where: { id: itemId, shortlistId: id }, transaction, lock: transaction.LOCK.UPDATE });
     if (!item) throw notFound('Shortlist item');
+    assertCurrent(item, lockVersion, 'note');
     const before = { note: item.note };
     await item.update({ note }, { transaction });
     await recordAudit(transaction, { actorId: actor.id, action: 'edit-item', entityType: 'shortlist', entityId: String(shortlist.id), before, after: { itemId, note } });

@@ -15,6 +15,7 @@ import {
 import type { SessionDto } from '../../../shared/schemas/auth';
 import type { MessageDto } from '../../../shared/schemas/responses';
 import * as users from './service';
+import { kickOutbox } from '../../services/outbox';
 
 /** Admin: people, roles, deactivation, invitations. */
 export function adminUsersRouter(): Router {
@@ -23,11 +24,18 @@ export function adminUsersRouter(): Router {
   r.patch('/users/:id', authorize('users:manage'), async (req, res) =>
     res.json(await users.updateUser(req.user!.id, parseId(req.params.id), parse(userUpdateSchema, req.body, 'change'))),
   );
+  r.get('/sign-in-locks', authorize('users:manage'), async (_req, res) => res.json({ items: await users.listSignInLocks() }));
+  r.delete('/sign-in-locks/:id', authorize('users:manage'), async (req, res) => {
+    await users.clearSignInLock(req.user!.id, parseId(req.params.id));
+    res.status(204).end();
+  });
   r.get('/invitations', authorize('users:manage'), async (_req, res) => res.json({ items: await users.listInvitations() }));
   r.post('/invitations', authorize('users:manage'), async (req, res) => {
     const input = parse(invitationCreateSchema, req.body, 'invitation');
     res.status(201).json(await users.invite(req.user!.id, input.email, input.role));
   });
+  r.post('/invitations/:id/revoke', authorize('users:manage'), async (req, res) => res.json(await users.revokeInvitation(req.user!.id, parseId(req.params.id))));
+  r.post('/invitations/:id/resend', authorize('users:manage'), async (req, res) => res.json(await users.resendInvitation(req.user!.id, parseId(req.params.id))));
   return r;
 }
 
@@ -50,7 +58,9 @@ export function accountRouter(): Router {
   });
   r.post('/password-reset/request', open, limiter, async (req, res) => {
     const input = parse(passwordResetRequestSchema, req.body, 'request');
+    // The same work for every address (one queued job); the lookup and the mail come after the answer.
     await users.requestPasswordReset(input.email);
+    res.once('finish', kickOutbox);
     res.status(202).json({ message: 'If that address has an account, a reset link is on its way.' } satisfies MessageDto);
   });
   r.post('/password-reset', open, limiter, async (req, res) => {

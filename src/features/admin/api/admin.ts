@@ -1,6 +1,7 @@
 import { infiniteQueryOptions, queryOptions, useInfiniteQuery, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { AuditPageDto, CaughtMailListDto } from '@shared/schemas/library';
+import type { AuditPageDto, CaughtMailListDto, OutboxMailDto } from '@shared/schemas/library';
+import type { ItemsDto } from '@shared/schemas/responses';
 
 export const AUDIT_PAGE_SIZE = 50;
 
@@ -17,6 +18,7 @@ export const auditKeys = {
 export const mailKeys = {
   all: ['caught-mail'] as const,
   list: () => [...mailKeys.all, 'list'] as const,
+  outbox: () => ['outbox', 'list'] as const,
 };
 
 /** Newest first; each further page asks for entries older than the last one shown. */
@@ -35,3 +37,8 @@ export const caughtMailQueryOptions = () =>
   queryOptions({ queryKey: mailKeys.list(), queryFn: () => api.get<CaughtMailListDto>('/admin/mail'), staleTime: 0 });
 
 export const useCaughtMail = () => useQuery(caughtMailQueryOptions());
+
+export const outboxQueryOptions = () =>
+  queryOptions({ queryKey: mailKeys.outbox(), queryFn: () => api.get<ItemsDto<OutboxMailDto>>('/admin/outbox').then((r) => r.items), staleTime: 0 });
+
+export const useOutbox = () => useQuery(outboxQueryOptions());

@@ -1,13 +1,14 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { Role } from '@shared/schemas/auth';
-import type { AdminUserDto, InvitationCreatedDto, InvitationDto } from '@shared/schemas/projects';
+import type { AdminUserDto, InvitationCreatedDto, InvitationDto, SignInLockDto } from '@shared/schemas/projects';
 import type { ItemsDto } from '@shared/schemas/responses';
 
 export const teamKeys = {
   all: ['team'] as const,
   users: () => [...teamKeys.all, 'users'] as const,
   invitations: () => [...teamKeys.all, 'invitations'] as const,
+  signInLocks: () => [...teamKeys.all, 'sign-in-locks'] as const,
 };
 
 export const usersQueryOptions = () =>
@@ -20,7 +21,15 @@ export const invitationsQueryOptions = () =>
     staleTime: 0,
   });
 
+export const signInLocksQueryOptions = () =>
+  queryOptions({
+    queryKey: teamKeys.signInLocks(),
+    queryFn: () => api.get<ItemsDto<SignInLockDto>>('/admin/sign-in-locks').then((r) => r.items),
+    staleTime: 0,
+  });
+
 export const useUsers = () => useQuery(usersQueryOptions());
+export const useSignInLocks = () => useQuery(signInLocksQueryOptions());
 export const useInvitations = () => useQuery(invitationsQueryOptions());
 
 export function useUpdateUser() {
@@ -39,5 +48,22 @@ export function useInvite() {
   return useMutation({
     mutationFn: (input: { email: string; role: Role }) => api.post<InvitationCreatedDto>('/admin/invitations', input),
     onSuccess: () => void qc.invalidateQueries({ queryKey: teamKeys.invitations() }),
+  });
+}
+
+export function useInvitationStep() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ id, step }: { id: number; step: 'revoke' | 'resend' }): Promise<InvitationDto | InvitationCreatedDto> =>
+      step === 'revoke' ? api.post<InvitationDto>(`/admin/invitations/${id}/revoke`, {}) : api.post<InvitationCreatedDto>(`/admin/invitations/${id}/resend`, {}),
+    onSuccess: () => void qc.invalidateQueries({ queryKey: teamKeys.invitations() }),
+  });
+}
+
+export function useClearSignInLock() {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (id: number) => api.delete<void>(`/admin/sign-in-locks/${id}`),
+    onSettled: () => void qc.invalidateQueries({ queryKey: teamKeys.signInLocks() }),
   });
 }

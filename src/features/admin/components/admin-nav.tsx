@@ -13,7 +13,7 @@ export function AdminNav() {
         Audit log
       </NavLink>
       <NavLink to="/admin/mail" className={link}>
-        Caught mail
+        Mail
       </NavLink>
     </nav>
   );

@@ -1,14 +1,56 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
-import { useCaughtMail } from '../api/admin';
+import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import type { OutboxMailDto } from '@shared/schemas/library';
+import { useCaughtMail, useOutbox } from '../api/admin';
 import { AdminNav } from './admin-nav';
+import { PlainTable } from '@/components/ui/column-heads';
 
 const when = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
+
+const STATUS: Record<OutboxMailDto['status'], { label: string; tone: 'pass' | 'brass' | 'fail' }> = {
+  sent: { label: 'sent', tone: 'pass' },
+  pending: { label: 'not sent yet', tone: 'brass' },
+  failed: { label: 'not delivered', tone: 'fail' },
+};
+
+/** What Isobath sends through its mail server, and how each message fared (with any real server too). */
+function Outgoing({ outbox }: { outbox: ReturnType<typeof useOutbox> }) {
+  if (outbox.isPending) return <Spinner label="Loading outgoing mail…" />;
+  if (outbox.isError) return <ErrorState error={outbox.error} onRetry={() => void outbox.refetch()} />;
+  if (!outbox.data.length) return <EmptyState title="Nothing sent lately">Invitations, reset links and review notices appear here as they go out.</EmptyState>;
+  const trouble = outbox.data.filter((m) => m.status !== 'sent').length;
+  return (
+    <div className="flex flex-col gap-2">
+      {trouble ? (
+        <p role="status" className="rounded-plate border-l-4 border-verdict-fail bg-white px-3 py-2 text-sm" data-testid="outbox-trouble">
+          <strong>{trouble === 1 ? 'One message has' : `${trouble} messages have`} not reached the mail server.</strong> Isobath tries again with a growing wait; a message
+          marked “not delivered” has used up its attempts.
+        </p>
+      ) : null}
+      <PlainTable label="Outgoing mail" columns={['Subject', 'To', 'State', 'Attempts', 'Queued']}>
+        {outbox.data.map((m) => (
+          <tr key={m.id} className="border-t border-chart-line/60 align-top">
+            <td className="py-1.5 pr-3">{m.subject}</td>
+            <td className="max-w-[16rem] truncate py-1.5 pr-3">{m.to.join(', ')}</td>
+            <td className="py-1.5 pr-3">
+              <Tag tone={STATUS[m.status].tone}>{STATUS[m.status].label}</Tag>
+              {m.lastError ? <span className="block text-xs text-verdict-fail">{m.lastError}</span> : null}
+              {m.nextAttemptAt ? <span className="block text-xs text-ink-soft">next attempt {when.format(new Date(m.nextAttemptAt))}</span> : null}
+            </td>
+            <td className="py-1.5 pr-3">{m.attempts}</td>
+            <td className="whitespace-nowrap py-1.5">{when.format(new Date(m.createdAt))}</td>
+          </tr>
+        ))}
+      </PlainTable>
+    </div>
+  );
+}
 
 /** The e-mail the local catcher received (dev and test); with a real mail server there is nothing to show. */
 export function MailPage() {
   const query = useCaughtMail();
+  const outbox = useOutbox();
   const [selectedId, setSelectedId] = useState<string | null>(null);
   const items = query.data?.items ?? [];
   const selected = items.find((m) => m.id === selectedId) ?? items[0];
@@ -18,13 +60,16 @@ export function MailPage() {
       <AdminNav />
       <div className="flex flex-wrap items-end justify-between gap-3">
         <div>
-          <h1 className="text-2xl font-bold">Caught mail</h1>
-          <p className="text-sm text-ink-soft">Messages Isobath sent, as received by the local mail catcher, newest first.</p>
+          <h1 className="text-2xl font-bold">Mail</h1>
+          <p className="text-sm text-ink-soft">What Isobath sends and how each message fared; below it, the messages the local mail catcher received, newest first.</p>
         </div>
-        <Button tone="quiet" onClick={() => void query.refetch()} disabled={query.isFetching}>
-          {query.isFetching ? 'Refreshing…' : 'Refresh'}
+        <Button tone="quiet" onClick={() => void Promise.all([query.refetch(), outbox.refetch()])} disabled={query.isFetching || outbox.isFetching}>
+          {query.isFetching || outbox.isFetching ? 'Refreshing…' : 'Refresh'}
         </Button>
       </div>
+      <Panel title="Outgoing mail">
+        <Outgoing outbox={outbox} />
+      </Panel>
       {query.isPending ? (
         <Spinner label="Loading caught mail…" />
       ) : query.isError ? (

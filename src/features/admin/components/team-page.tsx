@@ -11,15 +11,15 @@ import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/sta
 import { ApiError } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/dates';
 import { setServerErrors } from '@/lib/field-errors';
-import type { AdminUserDto, InvitationState } from '@shared/schemas/projects';
-import { useInvitations, useInvite, useUpdateUser, useUsers } from '../api/users';
+import type { AdminUserDto, InvitationDto, InvitationState, MailDeliveryDto, SignInLockDto } from '@shared/schemas/projects';
+import { useClearSignInLock, useInvitationStep, useInvitations, useInvite, useSignInLocks, useUpdateUser, useUsers } from '../api/users';
 import { AdminNav } from './admin-nav';
-import { PlainTable } from '@/components/ui/column-heads';
+import { ColumnHeads } from '@/components/ui/column-heads';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 
-const STATE_TONE: Record<InvitationState, 'sounding' | 'pass' | 'neutral'> = { waiting: 'sounding', accepted: 'pass', expired: 'neutral' };
-const STATE_LABEL: Record<InvitationState, string> = { waiting: 'waiting', accepted: 'accepted', expired: 'expired' };
+const STATE_TONE: Record<InvitationState, 'sounding' | 'pass' | 'neutral'> = { waiting: 'sounding', accepted: 'pass', expired: 'neutral', revoked: 'neutral' };
+const STATE_LABEL: Record<InvitationState, string> = { waiting: 'waiting', accepted: 'accepted', expired: 'expired', revoked: 'revoked' };
 
 function UserRow({ user, self, onToggle }: { user: AdminUserDto; self: boolean; onToggle: (u: AdminUserDto) => void }) {
   const update = useUpdateUser();
@@ -72,7 +72,12 @@ function InviteForm() {
   const submit = form.handleSubmit(async (input) => {
     try {
       const inv = await invite.mutateAsync(input);
-      setSent(`Invitation sent to ${inv.email}; the link works once, until ${formatDateTime(inv.expiresAt)}.`);
+      const replaced = inv.replaced ? ' The earlier invitation to this address no longer works.' : '';
+      setSent(
+        inv.mail === 'sent'
+          ? `Invitation sent to ${inv.email}; the link works once, until ${formatDateTime(inv.expiresAt)}.${replaced}`
+          : `Invitation saved for ${inv.email}, but the mail server has not taken the message yet; Isobath keeps trying and shows how it goes under Invitations.${replaced}`,
+      );
       form.resetField('email');
     } catch (err) {
       // An address that has an account belongs to that field.
@@ -111,25 +116,144 @@ function InviteForm() {
   );
 }
 
+function MailState({ mail }: { mail: MailDeliveryDto | null }) {
+  if (!mail) return <span className="text-ink-faint">—</span>;
+  if (mail.status === 'sent') return <Tag tone="pass">sent</Tag>;
+  return (
+    <span className="flex flex-col gap-0.5">
+      <span>
+        <Tag tone={mail.status === 'failed' ? 'fail' : 'brass'}>{mail.status === 'failed' ? 'not delivered' : 'not sent yet'}</Tag>{' '}
+        <span className="text-xs text-ink-soft">
+          {mail.status === 'failed'
+            ? `gave up after ${mail.attempts} attempts; resend it once the mail server works`
+            : `attempt ${mail.attempts} failed${mail.nextAttemptAt ? `; next at ${formatDateTime(mail.nextAttemptAt)}` : ''}`}
+        </span>
+      </span>
+      {mail.lastError ? <span className="text-xs text-verdict-fail">{mail.lastError}</span> : null}
+    </span>
+  );
+}
+
+type InvitationAction = { invitation: InvitationDto; step: 'revoke' | 'resend' };
+
 function Invitations() {
   const invitations = useInvitations();
+  const step = useInvitationStep();
+  const [action, setAction] = useState<InvitationAction | null>(null);
   if (invitations.isPending) return <Spinner label="Loading invitations…" />;
   if (invitations.isError) return <ErrorState error={invitations.error} onRetry={() => void invitations.refetch()} />;
   if (!invitations.data.length) return <EmptyState title="No invitations yet">Invite a colleague above; the invitation shows here until it is accepted or expires.</EmptyState>;
+  const ask = (invitation: InvitationDto, s: 'revoke' | 'resend') => {
+    step.reset();
+    setAction({ invitation, step: s });
+  };
   return (
-    <PlainTable label="Invitations" columns={['E-mail', 'Role', 'State', 'Sent', 'Expires']}>
-      {invitations.data.map((i) => (
-        <tr key={i.id} className="border-t border-chart-line/60">
-          <td className="py-1.5 pr-3">{i.email}</td>
-          <td className="py-1.5 pr-3">{ROLE_LABELS[i.role]}</td>
-          <td className="py-1.5 pr-3">
-            <Tag tone={STATE_TONE[i.state]}>{STATE_LABEL[i.state]}</Tag>
-          </td>
-          <td className="whitespace-nowrap py-1.5 pr-3">{formatDateTime(i.createdAt)}</td>
-          <td className="whitespace-nowrap py-1.5">{i.state === 'accepted' ? '—' : formatDateTime(i.expiresAt)}</td>
-        </tr>
-      ))}
-    </PlainTable>
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Invitations">
+        <ColumnHeads columns={['E-mail', 'Role', 'State', 'Mail', 'Sent', 'Expires', { label: <span className="sr-only">Actions</span> }]} />
+        <tbody>
+          {invitations.data.map((i) => {
+            const live = i.state === 'waiting' || i.state === 'expired';
+            return (
+              <tr key={i.id} className="border-t border-chart-line/60 align-top">
+                <td className="py-1.5 pr-3">{i.email}</td>
+                <td className="py-1.5 pr-3">{ROLE_LABELS[i.role]}</td>
+                <td className="py-1.5 pr-3">
+                  <Tag tone={STATE_TONE[i.state]}>{STATE_LABEL[i.state]}</Tag>
+                </td>
+                <td className="py-1.5 pr-3">{live || i.mail?.status !== 'sent' ? <MailState mail={i.mail} /> : <Tag tone="pass">sent</Tag>}</td>
+                <td className="whitespace-nowrap py-1.5 pr-3">{formatDateTime(i.sentAt)}</td>
+                <td className="whitespace-nowrap py-1.5 pr-3">{live ? formatDateTime(i.expiresAt) : '—'}</td>
+                <td className="whitespace-nowrap py-1.5">
+                  {live ? (
+                    <span className="flex gap-1">
+                      <Button tone="quiet" className="!px-2 !py-0.5 text-xs" onClick={() => ask(i, 'resend')} aria-label={`Resend the invitation to ${i.email}`}>
+                        Resend…
+                      </Button>
+                      <Button tone="quiet" className="!px-2 !py-0.5 text-xs" onClick={() => ask(i, 'revoke')} aria-label={`Revoke the invitation to ${i.email}`}>
+                        Revoke…
+                      </Button>
+                    </span>
+                  ) : null}
+                </td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+      <ConfirmDialog
+        open={action !== null}
+        title={action?.step === 'revoke' ? `Revoke the invitation to ${action.invitation.email}?` : `Send the invitation to ${action?.invitation.email ?? ''} again?`}
+        confirmLabel={action?.step === 'revoke' ? 'Revoke' : 'Send again'}
+        tone={action?.step === 'revoke' ? 'danger' : 'primary'}
+        busy={step.isPending}
+        busyLabel={action?.step === 'revoke' ? 'Revoking…' : 'Sending…'}
+        error={step.isError ? errorText(step.error) : undefined}
+        onClose={() => setAction(null)}
+        onConfirm={() => action && step.mutate({ id: action.invitation.id, step: action.step }, { onSuccess: () => setAction(null) })}
+      >
+        {action?.step === 'revoke' ? (
+          <p>The link in the message stops working at once. You can invite the address again later.</p>
+        ) : (
+          <p>A new message goes out with a new link, valid for 72 hours; the link sent before stops working.</p>
+        )}
+      </ConfirmDialog>
+    </div>
+  );
+}
+
+function SignInLocks() {
+  const locks = useSignInLocks();
+  const clear = useClearSignInLock();
+  const [clearing, setClearing] = useState<SignInLockDto | null>(null);
+  if (locks.isPending) return <Spinner label="Loading sign-in locks…" />;
+  if (locks.isError) return <ErrorState error={locks.error} onRetry={() => void locks.refetch()} />;
+  if (!locks.data.length) return <EmptyState title="No failed sign-ins">Failed sign-ins are counted here per address, and per address and account name, until a quiet period passes.</EmptyState>;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" aria-label="Sign-in locks">
+        <ColumnHeads columns={['Address', 'Account name', 'Failures', 'Waits until', 'Last failure', { label: <span className="sr-only">Actions</span> }]} />
+        <tbody>
+          {locks.data.map((l) => (
+            <tr key={l.id} className="border-t border-chart-line/60">
+              <td className="py-1.5 pr-3 font-mono text-xs">{l.address}</td>
+              <td className="py-1.5 pr-3">{l.email ?? <span className="text-ink-soft">every name</span>}</td>
+              <td className="py-1.5 pr-3">{l.failures}</td>
+              <td className="whitespace-nowrap py-1.5 pr-3">{l.lockedUntil ? <Tag tone="fail">{formatDateTime(l.lockedUntil)}</Tag> : <span className="text-ink-faint">not locked</span>}</td>
+              <td className="whitespace-nowrap py-1.5 pr-3">{formatDateTime(l.lastFailureAt)}</td>
+              <td className="py-1.5">
+                <Button
+                  tone="quiet"
+                  className="!px-2 !py-0.5 text-xs"
+                  aria-label={`Clear the sign-in lock of ${l.email ?? 'every name'} from ${l.address}`}
+                  onClick={() => {
+                    clear.reset();
+                    setClearing(l);
+                  }}
+                >
+                  Clear…
+                </Button>
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <ConfirmDialog
+        open={clearing !== null}
+        title={clearing?.email ? `Let ${clearing.email} sign in from ${clearing.address} again?` : `Let ${clearing?.address ?? ''} sign in again?`}
+        confirmLabel="Clear the lock"
+        busy={clear.isPending}
+        busyLabel="Clearing…"
+        error={clear.isError ? errorText(clear.error) : undefined}
+        onClose={() => setClearing(null)}
+        onConfirm={() => clearing && clear.mutate(clearing.id, { onSuccess: () => setClearing(null) })}
+      >
+        <p>
+          The count of failed sign-ins starts again from zero{clearing?.email ? ' for this name from this address' : ' for every name from this address'}. Clear it when you know who
+          failed, for instance a colleague who mistyped their password; the audit log notes that you did.
+        </p>
+      </ConfirmDialog>
+    </div>
   );
 }
 
@@ -152,19 +276,24 @@ export function TeamPage({ meId }: { meId: number }) {
         ) : users.isError ? (
           <ErrorState error={users.error} onRetry={() => void users.refetch()} />
         ) : (
-          <PlainTable label="People" columns={['Name', 'E-mail', 'Role', 'Account', 'Last signed in']}>
-            {users.data.map((u) => (
-              <UserRow
-                key={u.id}
-                user={u}
-                self={u.id === meId}
-                onToggle={(user) => {
-                  update.reset();
-                  setToggling(user);
-                }}
-              />
-            ))}
-          </PlainTable>
+          <div className="overflow-x-auto">
+            <table className="w-full text-sm" aria-label="People">
+              <ColumnHeads columns={['Name', 'E-mail', 'Role', 'Account', 'Last signed in']} />
+              <tbody>
+                {users.data.map((u) => (
+                  <UserRow
+                    key={u.id}
+                    user={u}
+                    self={u.id === meId}
+                    onToggle={(user) => {
+                      update.reset();
+                      setToggling(user);
+                    }}
+                  />
+                ))}
+              </tbody>
+            </table>
+          </div>
         )}
       </Panel>
       <Panel title="Invite someone">
@@ -172,6 +301,13 @@ export function TeamPage({ meId }: { meId: number }) {
       </Panel>
       <Panel title="Invitations">
         <Invitations />
+      </Panel>
+      <Panel title="Sign-in locks">
+        <p className="mb-2 text-xs text-ink-soft">
+          After repeated failed sign-ins an address waits before it may try again: for one account name, and for every name when it fails across many. Only that
+          address waits; the same person signing in from elsewhere is not held back.
+        </p>
+        <SignInLocks />
       </Panel>
       <ConfirmDialog
         open={toggling !== null}

@@ -63,7 +63,7 @@ export function useCreateProject() {
 export function useUpdateProject(id: number) {
   const settle = useSettleProject();
   return useMutation({
-    mutationFn: (input: { name: string; description: string }) => api.patch<ProjectDto>(`/projects/${id}`, input),
+    mutationFn: (input: { name: string; description: string; lockVersion: number }) => api.patch<ProjectDto>(`/projects/${id}`, input),
     onSuccess: settle,
   });
 }

@@ -26,7 +26,7 @@ function useSettleShortlist() {
 }
 
 export type ShortlistStep =
-  | { step: 'note'; itemId: number; note: string }
+  | { step: 'note'; itemId: number; note: string; lockVersion: number }
   | { step: 'remove'; itemId: number }
   | { step: 'reorder'; lockVersion: number; itemIds: number[] }
   | { step: 'submit'; lockVersion: number }
@@ -36,7 +36,7 @@ export type ShortlistStep =
 function send(id: number, s: ShortlistStep): Promise<ShortlistDto> {
   switch (s.step) {
     case 'note':
-      return api.patch<ShortlistDto>(`/shortlists/${id}/items/${s.itemId}`, { note: s.note });
+      return api.patch<ShortlistDto>(`/shortlists/${id}/items/${s.itemId}`, { note: s.note, lockVersion: s.lockVersion });
     case 'remove':
       return api.delete<ShortlistDto>(`/shortlists/${id}/items/${s.itemId}`);
     case 'reorder':

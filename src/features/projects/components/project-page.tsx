@@ -285,11 +285,16 @@ export function ProjectPage({ id, me }: { id: number; me: Viewer }) {
         open={editing}
         title="Edit the project"
         confirmLabel="Save"
-        initial={{ name: p.name, description: p.description }}
+        initial={{ name: p.name, description: p.description, lockVersion: p.lockVersion }}
         onClose={() => setEditing(false)}
-        onSave={async (values) => {
-          await update.mutateAsync(values);
+        onSave={async (values, lockVersion) => {
+          await update.mutateAsync({ ...values, lockVersion: lockVersion ?? p.lockVersion });
           setEditing(false);
+        }}
+        onReload={async () => {
+          const saved = await project.refetch();
+          if (!saved.data) throw saved.error;
+          return { name: saved.data.name, description: saved.data.description, lockVersion: saved.data.lockVersion };
         }}
       />
     </div>

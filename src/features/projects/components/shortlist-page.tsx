@@ -1,4 +1,6 @@
 import { useEffect, useRef, useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'react-router-dom';
 import { shortlistItemUpdateSchema, type ShortlistDto, type ShortlistItemDto } from '@shared/schemas/projects';
 import { Button } from '@/components/ui/button';
@@ -6,7 +8,10 @@ import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { LinkButton } from '@/components/ui/link-button';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { TextAreaField } from '@/components/ui/text-area';
-import { ApiError } from '@/lib/api-client';
+import { ApiError, isStale } from '@/lib/api-client';
+import { setServerErrors } from '@/lib/field-errors';
+import { StaleBanner } from '@/components/stale-banner';
+import { FormError } from '@/components/ui/form-error';
 import { useUnits } from '@/lib/unit-system';
 import { useProject } from '../api/projects';
 import { useShortlist, useShortlistStep } from '../api/shortlists';
@@ -19,28 +24,51 @@ import { formatDateTime } from '@/lib/dates';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
 
 const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
-const isStale = (err: unknown) => err instanceof ApiError && err.status === 409 && (err.code === 'stale' || err.code === 'wrong_status');
+/** A reorder refused because the shortlist moved on (stale) or is no longer open. */
+const isOutdated = (err: unknown) => err instanceof ApiError && err.status === 409 && (err.code === 'stale' || err.code === 'wrong_status');
 
-function NoteEditor({ item, shortlistId, onDone }: { item: ShortlistItemDto; shortlistId: number; onDone: () => void }) {
+/** The note alone, checked by the shared schema of PATCH …/items/:itemId (the lock version goes beside it). */
+const noteFormSchema = shortlistItemUpdateSchema.pick({ note: true });
+const NOTE_LABELS = { note: 'Note' };
+
+function NoteEditor({ item, shortlistId, onDone, onReload }: { item: ShortlistItemDto; shortlistId: number; onDone: () => void; onReload: () => Promise<ShortlistDto | undefined> }) {
   const step = useShortlistStep(shortlistId);
-  const [note, setNote] = useState(item.note);
-  const [error, setError] = useState<string>();
-  const save = () => {
-    const parsed = shortlistItemUpdateSchema.shape.note.safeParse(note);
-    if (!parsed.success) return setError(parsed.error.issues[0]?.message);
-    step.mutate({ step: 'note', itemId: item.id, note: parsed.data }, { onSuccess: onDone, onError: (err) => setError(errorText(err)) });
+  const form = useForm({ resolver: zodResolver(noteFormSchema), defaultValues: { note: item.note } });
+  const { errors, isSubmitting } = form.formState;
+  // The version this note was read at; it moves on only when the saved note is loaded again.
+  const readVersion = useRef(item.lockVersion);
+  const [stale, setStale] = useState<ApiError | null>(null);
+
+  const save = form.handleSubmit(async ({ note }) => {
+    setStale(null);
+    try {
+      await step.mutateAsync({ step: 'note', itemId: item.id, note, lockVersion: readVersion.current });
+      onDone();
+    } catch (err) {
+      if (isStale(err)) setStale(err);
+      else setServerErrors(form.setError, err, NOTE_LABELS);
+    }
+  });
+
+  const reload = async () => {
+    const fresh = (await onReload())?.items.find((i) => i.id === item.id);
+    if (!fresh) return onDone();
+    form.reset({ note: fresh.note });
+    readVersion.current = fresh.lockVersion;
+    setStale(null);
   };
+
   return (
     <form
       className="flex flex-col gap-2"
-      onSubmit={(e) => {
-        e.preventDefault();
-        save();
-      }}
+      noValidate
+      aria-label={`Note on ${item.propertySet.material.name}`}
+      onSubmit={(e) => void save(e)}
       onKeyDown={(e) => {
         if (e.key === 'Escape') onDone();
       }}
     >
+      {stale ? <StaleBanner testId="note-stale" message={stale.message} onReload={() => void reload()} reloadLabel="Load the saved note (discards your edit)" /> : null}
       <TextAreaField
         label={
           <>
@@ -48,15 +76,15 @@ function NoteEditor({ item, shortlistId, onDone }: { item: ShortlistItemDto; sho
           </>
         }
         autoFocus
-        value={note}
         maxLength={2000}
-        error={error}
+        error={errors.note?.message}
         hint="Why it is on the list, and what to confirm with the supplier."
-        onChange={(e) => setNote(e.target.value)}
+        {...form.register('note')}
       />
+      <FormError message={errors.root?.message} />
       <div className="flex gap-2">
-        <Button type="submit" disabled={step.isPending} className="!py-1 text-xs">
-          {step.isPending ? 'Saving…' : 'Save note'}
+        <Button type="submit" disabled={isSubmitting} className="!py-1 text-xs">
+          {isSubmitting ? 'Saving…' : 'Save note'}
         </Button>
         <Button tone="quiet" onClick={onDone} className="!py-1 text-xs">
           Cancel
@@ -66,7 +94,7 @@ function NoteEditor({ item, shortlistId, onDone }: { item: ShortlistItemDto; sho
   );
 }
 
-function Items({ shortlist, rights, onReload }: { shortlist: ShortlistDto; rights: ShortlistRights; onReload: () => void }) {
+function Items({ shortlist, rights, onReload, readAgain }: { shortlist: ShortlistDto; rights: ShortlistRights; onReload: () => void; readAgain: () => Promise<ShortlistDto | undefined> }) {
   const { format } = useUnits();
   const reorder = useShortlistStep(shortlist.id);
   const remove = useShortlistStep(shortlist.id);
@@ -125,7 +153,7 @@ function Items({ shortlist, rights, onReload }: { shortlist: ShortlistDto; right
       {reorder.isError ? (
         <div role="alert" className="mb-3 rounded-plate border border-verdict-fail/40 bg-white px-3 py-2 text-sm text-verdict-fail">
           {errorText(reorder.error)}{' '}
-          {isStale(reorder.error) ? (
+          {isOutdated(reorder.error) ? (
             <button type="button" className="font-bold text-sounding underline" onClick={onReload}>
               Reload the shortlist
             </button>
@@ -194,6 +222,7 @@ function Items({ shortlist, rights, onReload }: { shortlist: ShortlistDto; right
                   <NoteEditor
                     item={item}
                     shortlistId={shortlist.id}
+                    onReload={readAgain}
                     onDone={() => {
                       lastEdited.current = item.id;
                       setEditing(null);
@@ -286,7 +315,7 @@ export function ShortlistPage({ id, me }: { id: number; me: Viewer }) {
 
       <div className="grid gap-4 lg:grid-cols-[1fr_22rem]">
         <Panel title="Candidates in order">
-          <Items shortlist={s} rights={rights} onReload={reload} />
+          <Items shortlist={s} rights={rights} onReload={reload} readAgain={async () => (await shortlist.refetch()).data} />
         </Panel>
         <Panel
           title="Load case"
