@@ -1,5 +1,5 @@
 import cluster from 'node:cluster';
-import { availableParallelism } from 'node:os';
+import { workerCount } from './config/env';
 import { runWorker } from './worker';
 
 /**
@@ -10,8 +10,7 @@ import { runWorker } from './worker';
  * every worker gracefully (each finishes its in-flight requests); a worker that dies otherwise
  * is replaced. With one worker, the app runs in this process.
  */
-const requested = Number(process.env.WEB_CONCURRENCY ?? '');
-const workers = Number.isInteger(requested) && requested > 0 ? requested : availableParallelism();
+const workers = workerCount();
 
 if (workers === 1 || !cluster.isPrimary) {
   runWorker(cluster.isPrimary ? 'server' : `worker ${cluster.worker!.id}`);

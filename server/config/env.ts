@@ -1,3 +1,4 @@
+import { availableParallelism } from 'node:os';
 import { z } from 'zod';
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
@@ -121,3 +122,6 @@ export function env(): Env {
 export function resetEnvCache(): void {
   cached = undefined;
 }
+
+/** How many worker processes npm start runs (server/index.ts): WEB_CONCURRENCY, else one per core. */
+export const workerCount = (): number => env().WEB_CONCURRENCY ?? availableParallelism();

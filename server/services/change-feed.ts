@@ -93,7 +93,7 @@ let connecting: Promise<void> | null = null;
 export const cachesUsable = (): boolean => listening;
 
 function lost(): void {
-  if (listening) listening = false;
+  listening = false;
   applyLocally({ kind: 'everything' });
   client = null;
   if (users > 0 && !retry) {

@@ -13,13 +13,9 @@ export const serialId = () => ({ id: { type: DataTypes.INTEGER, autoIncrement: t
 /** With the model option `version: 'lockVersion'` (see server/services/optimistic-lock.ts). */
 export const lockVersionColumn = () => ({ lockVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 } });
 
-/** The workflow columns of a curated record, with its material and reference. */
-export const curatedColumns = () => ({
-  materialId: { type: DataTypes.INTEGER, allowNull: false },
-  referenceId: { type: DataTypes.INTEGER },
-  referenceVersionId: { type: DataTypes.INTEGER },
+/** The review workflow's columns (status, lineage, who and when, lock version), for any reviewed row. */
+export const workflowColumns = () => ({
   status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
-  version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
   lineageId: { type: DataTypes.INTEGER },
   supersedesId: { type: DataTypes.INTEGER },
   supersededById: { type: DataTypes.INTEGER },
@@ -32,6 +28,15 @@ export const curatedColumns = () => ({
   retiredAt: { type: DataTypes.DATE },
   ...lockVersionColumn(),
   ...timestamps(),
+});
+
+/** The workflow columns of a curated record, with its material, reference and version number. */
+export const curatedColumns = () => ({
+  materialId: { type: DataTypes.INTEGER, allowNull: false },
+  referenceId: { type: DataTypes.INTEGER },
+  referenceVersionId: { type: DataTypes.INTEGER },
+  version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+  ...workflowColumns(),
 });
 
 /**

@@ -4,7 +4,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 import type { CuratedStatus } from '../../../shared/workflows/curated';
 import type { ReferenceKind } from '../../../shared/schemas/catalogue';
 import { Reference, User } from './index';
-import { lockVersionColumn, serialId, stamp, timestamps } from './columns';
+import { serialId, stamp, workflowColumns } from './columns';
 
 /**
  * One version of a reference's citation. Its `referenceId` is the reference it is a version of
@@ -69,19 +69,7 @@ export function initReferenceModels(db: Sequelize): void {
       identifier: { type: DataTypes.TEXT },
       location: { type: DataTypes.TEXT },
       note: { type: DataTypes.TEXT },
-      status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
-      lineageId: { type: DataTypes.INTEGER },
-      supersedesId: { type: DataTypes.INTEGER },
-      supersededById: { type: DataTypes.INTEGER },
-      draftedById: { type: DataTypes.INTEGER },
-      lastEditedById: { type: DataTypes.INTEGER },
-      approvedById: { type: DataTypes.INTEGER },
-      returnedComment: { type: DataTypes.TEXT },
-      submittedAt: { type: DataTypes.DATE },
-      publishedAt: { type: DataTypes.DATE },
-      retiredAt: { type: DataTypes.DATE },
-      ...lockVersionColumn(),
-      ...timestamps(),
+      ...workflowColumns(),
     },
     { sequelize: db, tableName: 'reference_versions', version: 'lockVersion' },
   );

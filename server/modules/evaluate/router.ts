@@ -1,7 +1,6 @@
 import { Router } from 'express';
 import rateLimit from 'express-rate-limit';
-import { availableParallelism } from 'node:os';
-import { env } from '../../config/env';
+import { env, workerCount } from '../../config/env';
 import { AppError } from '../../errors';
 import { authorize } from '../../auth/authorize';
 import { can } from '../../../shared/schemas/auth';
@@ -20,10 +19,9 @@ export function evaluateRouter(): Router {
   // Per account, so one caller's loop cannot slow everyone else; kept in the worker (a shared
   // store would cost a database write per evaluation), each worker allowing its share.
   const config = env();
-  const workers = config.WEB_CONCURRENCY ?? availableParallelism();
   const limiter = rateLimit({
     windowMs: 60_000,
-    limit: Math.max(1, Math.ceil(config.EVALUATE_RATE_LIMIT / workers)),
+    limit: Math.max(1, Math.ceil(config.EVALUATE_RATE_LIMIT / workerCount())),
     standardHeaders: 'draft-8',
     legacyHeaders: false,
     keyGenerator: (req) => `user:${req.user!.id}`,
