@@ -215,7 +215,7 @@ describe('shortlists and sign-off', () => {
     const { pages, text } = await pdfText(res.body as Buffer);
     expect(pages).toBeGreaterThanOrEqual(1);
     const governing = checked.body.items[0].result.governingMode as string;
-    expect(text).toContain('Governing mode');
+    expect(text).toContain('Governed by');
     expect(text.toLowerCase()).toContain(governing);
     expect(text).toContain(acrylic[0].reference!.title.slice(0, 30));
     expect(text).toContain('screening estimates for qualified engineers');

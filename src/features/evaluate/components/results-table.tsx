@@ -14,7 +14,7 @@ import { factorsText } from '@shared/labels';
 import { SortableHeader } from '@/components/ui/sortable-header';
 import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
 import { InputsMark } from '@/components/inputs-mark';
-import { splitCandidateName } from '../candidate-name';
+import { splitCandidateName } from '@shared/candidate-name';
 
 /** Rows in the first paint of the ranking; the rest render right after. */
 const FIRST_ROWS = 20;
