@@ -23,7 +23,8 @@ export function MarginChart({ results, pageSize = 12 }: { results: CandidateResu
   const { min, max } = MARGIN_CHART_RANGE;
   // Margins run from −1 upwards without bound; the axis is clipped so one strong mode does not flatten the rest.
   const data = {
-    labels: labels.slice(from, from + pageSize),
+    // Two lines each: the designation, then the condition's short name.
+    labels: labels.slice(from, from + pageSize).map((l) => l.split(' · ')),
     datasets: modes.map((mode) => ({
       label: FAILURE_MODE_LABELS[mode],
       backgroundColor: MODE_COLOURS[mode],
@@ -65,10 +66,10 @@ export function MarginChart({ results, pageSize = 12 }: { results: CandidateResu
           </span>
         ) : null}
       </div>
-      <div style={{ height: `${Math.max(160, shown.length * 34 + 60)}px` }}>
+      <div style={{ height: `${Math.max(160, shown.length * 40 + 60)}px` }}>
         <Bar
           role="img"
-          aria-label={`Margins by failure mode per candidate: ${data.labels.join('; ')}`}
+          aria-label={`Margins by failure mode per candidate: ${labels.slice(from, from + pageSize).join('; ')}`}
           data={data}
           options={{
             indexAxis: 'y',

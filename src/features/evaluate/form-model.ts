@@ -8,7 +8,7 @@ import {
 } from '@shared/schemas/evaluate';
 import type { Family } from '@shared/schemas/catalogue';
 import { checkedFormSchema } from '@/lib/form-schema';
-import { fromDisplay, toDisplay, type QuantityKind, type UnitSystem } from '@/lib/units';
+import { PRESSURE_UNITS, roundForInput, unitOf, type PressureUnit, type QuantityKind, type UnitSystem } from '@/lib/units';
 
 /**
  * The Evaluate form holds numbers in the units shown on screen; the request is built in SI and
@@ -20,6 +20,8 @@ export interface LoadCaseForm {
   latitude: number;
   water: 'sea' | 'fresh';
   pressureValue: number;
+  /** The unit the design pressure is typed in (MPa, bar or psi, gauge), whatever the system. */
+  pressureUnit: PressureUnit;
   tmin: number;
   tmax: number;
   sustainedHours: number;
@@ -108,6 +110,7 @@ export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
   latitude: 57,
   water: 'sea',
   pressureValue: 12e6,
+  pressureUnit: 'MPa',
   tmin: 2,
   tmax: 25,
   sustainedHours: 1000,
@@ -149,24 +152,59 @@ export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
   excludeDemo: false,
 };
 
-const round = (v: number) => (Number.isFinite(v) ? Number(v.toPrecision(6)) : v);
+/**
+ * The exact SI value behind each converted field, with the rounded number shown for it: a field
+ * still showing that number stands for the exact value, so rounding on screen never changes
+ * what is evaluated or saved.
+ */
+export type ExactValues = Partial<Record<NumericField, { shown: number; si: number }>>;
 
-/** Converts every numeric field between unit systems (SI form ⇄ display form). */
-export function convertForm(form: LoadCaseForm, from: UnitSystem | 'SI-raw', to: UnitSystem | 'SI-raw'): LoadCaseForm {
+/** The unit definition a field is shown in: the system's, or the chosen pressure unit. */
+function unitFor(field: NumericField, kind: QuantityKind, system: UnitSystem, form: LoadCaseForm) {
+  return field === 'pressureValue' ? PRESSURE_UNITS[form.pressureUnit] : unitOf(kind, system);
+}
+
+/**
+ * Converts every numeric field between unit systems (SI form ⇄ display form). Shown values are
+ * rounded to meaningful digits (roundForInput); `exact` gives back the SI value of fields left as shown.
+ */
+export function convertForm(form: LoadCaseForm, from: UnitSystem | 'SI-raw', to: UnitSystem | 'SI-raw', exact: ExactValues = {}): LoadCaseForm {
   const out = { ...form };
   for (const [field, kind] of Object.entries(FIELD_KIND) as [NumericField, QuantityKind | null][]) {
     if (!kind) continue;
-    const si = from === 'SI-raw' ? form[field] : fromDisplay(kind, from, form[field]);
-    out[field] = to === 'SI-raw' ? si : round(toDisplay(kind, to, si));
+    const kept = exact[field];
+    const si = from === 'SI-raw' ? form[field] : kept && Object.is(kept.shown, form[field]) ? kept.si : unitFor(field, kind, from, form).toSI(form[field]);
+    if (to === 'SI-raw') out[field] = si;
+    else {
+      const def = unitFor(field, kind, to, form);
+      out[field] = roundForInput(def, def.fromSI(si));
+    }
   }
   return out;
+}
+
+/** What each shown field stands for exactly (see ExactValues). */
+export function exactValues(shown: LoadCaseForm, si: LoadCaseForm): ExactValues {
+  const exact: ExactValues = {};
+  for (const [field, kind] of Object.entries(FIELD_KIND) as [NumericField, QuantityKind | null][]) {
+    if (kind && Number.isFinite(si[field])) exact[field] = { shown: shown[field], si: si[field] };
+  }
+  return exact;
+}
+
+/** The pressure typed in another unit: the number converts, the pressure stays the same. */
+export function withPressureUnit(shown: LoadCaseForm, unit: PressureUnit, exact: ExactValues = {}): LoadCaseForm {
+  if (unit === shown.pressureUnit) return shown;
+  const kept = exact.pressureValue;
+  const pa = kept && Object.is(kept.shown, shown.pressureValue) ? kept.si : PRESSURE_UNITS[shown.pressureUnit].toSI(shown.pressureValue);
+  return { ...shown, pressureUnit: unit, pressureValue: roundForInput(PRESSURE_UNITS[unit], PRESSURE_UNITS[unit].fromSI(pa)) };
 }
 
 const optionalOutOfRoundness = (f: LoadCaseForm) => (Number.isNaN(f.outOfRoundness) ? {} : { outOfRoundness: f.outOfRoundness });
 
 /** The request in SI from the form as shown. */
-export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequestInput {
-  const f = convertForm(shown, system, 'SI-raw');
+export function toRequest(shown: LoadCaseForm, system: UnitSystem, exact: ExactValues = {}): EvaluateRequestInput {
+  const f = convertForm(shown, system, 'SI-raw', exact);
   const component =
     f.componentType === 'flat-disc'
       ? { type: 'flat-disc' as const, diameter: f.diameter, thickness: f.thickness, edge: f.edge }
@@ -276,8 +314,8 @@ export type FormCheck =
   | { ok: false; errors: Partial<Record<keyof LoadCaseForm | 'root', string>> };
 
 /** Validates the form through the shared request schema. */
-export function checkForm(shown: LoadCaseForm, system: UnitSystem): FormCheck {
-  const parsed = evaluateRequestSchema.safeParse(toRequest(shown, system));
+export function checkForm(shown: LoadCaseForm, system: UnitSystem, exact: ExactValues = {}): FormCheck {
+  const parsed = evaluateRequestSchema.safeParse(toRequest(shown, system, exact));
   if (parsed.success) return { ok: true, request: parsed.data };
   const errors: Partial<Record<keyof LoadCaseForm | 'root', string>> = {};
   for (const issue of parsed.error.issues) {
@@ -288,9 +326,9 @@ export function checkForm(shown: LoadCaseForm, system: UnitSystem): FormCheck {
 }
 
 /** The form's zod schema for zodResolver: the typed form in, the checked request in SI out. */
-export const loadCaseFormSchema = (system: () => UnitSystem) =>
+export const loadCaseFormSchema = (system: () => UnitSystem, exact: () => ExactValues = () => ({})) =>
   checkedFormSchema((shown: LoadCaseForm) => {
-    const check = checkForm(shown, system());
+    const check = checkForm(shown, system(), exact());
     return check.ok ? { ok: true, value: check.request } : check;
   });
 
@@ -362,8 +400,8 @@ export function requestFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): 
   return evaluateRequestSchema.parse({ loadCase: lc, ...(filters ? { filters } : {}) });
 }
 
-// Shown values are rounded to six significant figures (convertForm), so a case that went
-// through US units and back differs from the saved one by up to 5 parts in a million.
+// Fields left as shown keep their exact SI value (ExactValues); the tolerance covers the float
+// round trips of conversions.
 const RELATIVE_TOLERANCE = 1e-5;
 
 function nearlyEqual(a: unknown, b: unknown): boolean {
@@ -377,6 +415,12 @@ function nearlyEqual(a: unknown, b: unknown): boolean {
     return ka.every((k) => nearlyEqual((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k]));
   }
   return a === b;
+}
+
+/** True when the form, checked, asks for what was evaluated (the rank order aside). */
+export function sameRequest(a: EvaluateRequest, b: EvaluateRequest): boolean {
+  const strip = ({ sortBy: _sortBy, limit: _limit, ...rest }: EvaluateRequest) => rest;
+  return nearlyEqual(strip(a), strip(b));
 }
 
 /** True when two load cases describe the same design case (unit round trips allowed for). */
