@@ -3,6 +3,7 @@
  */
 import type { LoadCaseInput } from './schemas/evaluate';
 import { COMPONENT_LABELS } from './labels';
+import { FAMILY_LABELS, type Family } from './schemas/catalogue';
 import { formatQuantity, type UnitSystem } from './units';
 
 export { COMPONENT_LABELS };
@@ -79,7 +80,12 @@ export function describeLoadCase(lc: LoadCaseInput, system: UnitSystem): { label
     { label: 'Pressure cycles', value: count(lc.cycles) },
     {
       label: 'Target safety factor',
-      value: lc.targetSafetyFactor === undefined ? "Each family's default (common practice)" : lc.targetSafetyFactor.toFixed(2),
+      value:
+        lc.targetSafetyFactor !== undefined
+          ? lc.targetSafetyFactor.toFixed(2)
+          : lc.familyTargets && Object.keys(lc.familyTargets).length
+            ? `Each family's default (common practice), except ${(Object.entries(lc.familyTargets) as [Family, number][]).map(([f, t]) => `${FAMILY_LABELS[f]} ${t}`).join(', ')}`
+            : "Each family's default (common practice)",
     },
     { label: 'Proof-test factor', value: (lc.proofFactor ?? 1.25).toFixed(2) },
     { label: 'Human occupancy', value: lc.humanOccupancy ? 'Yes: window rules apply' : 'No' },

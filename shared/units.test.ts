@@ -65,3 +65,12 @@ describe('pressure in MPa, bar and psi, and values rounded for the form', () => 
     expect(PRESSURE_UNITS.bar.toSI(1)).toBeCloseTo(1e5, 6);
   });
 });
+
+describe('exact values for reviewers', () => {
+  it('shows every digit entered, not the table rounding', () => {
+    expect(formatQuantity('modulus', 'SI', 2.35e9)).toBe('2.4 GPa');
+    expect(formatQuantity('modulus', 'SI', 2.35e9, { exact: true })).toBe('2.35 GPa');
+    expect(formatQuantity('stress', 'SI', 62e6, { exact: true })).toBe('62.0 MPa');
+    expect(formatQuantity('density', 'SI', 1190, { exact: true })).toBe('1,190 kg/m³');
+  });
+});

@@ -101,13 +101,16 @@ export function formatQuantity(
   kind: QuantityKind,
   system: UnitSystem,
   si: number | null | undefined,
-  options: { unit?: boolean; digits?: number } = {},
+  options: { unit?: boolean; digits?: number; exact?: boolean } = {},
 ): string {
   if (si === null || si === undefined || !Number.isFinite(si)) return '—';
   const def = UNITS[kind][system];
   const shown = def.fromSI(si);
   const digits = options.digits ?? def.digits;
-  const text = shown.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  // exact: every digit the stored value has (to 12 significant figures, dropping conversion noise), for reviewers.
+  const text = options.exact
+    ? Number(shown.toPrecision(12)).toLocaleString('en-GB', { minimumFractionDigits: digits === 0 ? 0 : Math.min(digits, 1), maximumFractionDigits: 12 })
+    : shown.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
   return options.unit === false ? text : `${text} ${def.label}`;
 }
 

@@ -132,6 +132,7 @@ export const OPERATIONS: Record<string, OperationDoc> = {
   'GET /api/people': { tag: 'Projects', summary: 'Active accounts, to add as project members' },
   'GET /api/load-cases/:id': { tag: 'Projects', summary: 'A saved load case' },
   'PUT /api/load-cases/:id': { tag: 'Projects', summary: 'Edit a saved load case (optimistic lock; refused once a checked shortlist uses it)', body: loadCaseUpdateSchema },
+  'GET /api/shortlists/awaiting-check': { tag: 'Shortlists', summary: 'Shortlists submitted by others in your projects, waiting for your check (oldest first)' },
   'GET /api/shortlists/:id': { tag: 'Shortlists', summary: 'A shortlist with its candidates evaluated live against the load case' },
   'POST /api/shortlists/:id/items': { tag: 'Shortlists', summary: 'Add a published property set with a note', body: shortlistItemAddSchema, responses: { 201: 'Added', 409: 'Already on the shortlist, or the shortlist is no longer open' } },
   'PATCH /api/shortlists/:id/items/:itemId': { tag: 'Shortlists', summary: 'Edit a candidate’s note', body: shortlistItemUpdateSchema },

@@ -6,7 +6,8 @@ import {
   type EvaluateRequestInput,
   type LoadCaseInput,
 } from '@shared/schemas/evaluate';
-import type { Family } from '@shared/schemas/catalogue';
+import { FAMILIES, FAMILY_LABELS, type Family } from '@shared/schemas/catalogue';
+import { DEFAULT_TARGET_SAFETY_FACTORS } from '@shared/engine/defaults';
 import { checkedFormSchema } from '@/lib/form-schema';
 import { PRESSURE_UNITS, roundForInput, unitOf, type PressureUnit, type QuantityKind, type UnitSystem } from '@/lib/units';
 
@@ -27,6 +28,8 @@ export interface LoadCaseForm {
   sustainedHours: number;
   cycles: number;
   useFamilyTargets: boolean;
+  /** Each family's target while useFamilyTargets: the common-practice default unless changed. */
+  familyTargets: Record<Family, number>;
   targetSafetyFactor: number;
   proofFactor: number;
   componentType: ComponentType;
@@ -116,6 +119,7 @@ export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
   sustainedHours: 1000,
   cycles: 2000,
   useFamilyTargets: true,
+  familyTargets: { ...DEFAULT_TARGET_SAFETY_FACTORS },
   targetSafetyFactor: 4,
   proofFactor: 1.25,
   componentType: 'conical-frustum',
@@ -202,6 +206,12 @@ export function withPressureUnit(shown: LoadCaseForm, unit: PressureUnit, exact:
 
 const optionalOutOfRoundness = (f: LoadCaseForm) => (Number.isNaN(f.outOfRoundness) ? {} : { outOfRoundness: f.outOfRoundness });
 
+/** The families whose target differs from the common-practice default (only those are sent). */
+function familyTargetsOf(f: LoadCaseForm): { familyTargets?: Partial<Record<Family, number>> } {
+  const changed = FAMILIES.filter((family) => !Object.is(f.familyTargets[family], DEFAULT_TARGET_SAFETY_FACTORS[family]));
+  return changed.length ? { familyTargets: Object.fromEntries(changed.map((family) => [family, f.familyTargets[family]])) } : {};
+}
+
 /** The request in SI from the form as shown. */
 export function toRequest(shown: LoadCaseForm, system: UnitSystem, exact: ExactValues = {}): EvaluateRequestInput {
   const f = convertForm(shown, system, 'SI-raw', exact);
@@ -247,7 +257,7 @@ export function toRequest(shown: LoadCaseForm, system: UnitSystem, exact: ExactV
       temperature: { min: f.tmin, max: f.tmax },
       sustainedHours: f.sustainedHours,
       cycles: f.cycles,
-      ...(f.useFamilyTargets ? {} : { targetSafetyFactor: f.targetSafetyFactor }),
+      ...(f.useFamilyTargets ? familyTargetsOf(f) : { targetSafetyFactor: f.targetSafetyFactor }),
       proofFactor: f.proofFactor,
       ...(f.humanOccupancy ? { humanOccupancy: true } : {}),
       component,
@@ -306,6 +316,7 @@ const PATHS: Record<string, keyof LoadCaseForm> = {
 
 export function formFieldFor(path: string, mode: LoadCaseForm['pressureMode']): keyof LoadCaseForm | 'root' {
   if (path === 'loadCase.pressure') return mode === 'depth' ? 'depth' : 'pressureValue';
+  if (path.startsWith('loadCase.familyTargets')) return 'familyTargets';
   return PATHS[path] ?? 'root';
 }
 
@@ -320,7 +331,7 @@ export function checkForm(shown: LoadCaseForm, system: UnitSystem, exact: ExactV
   const errors: Partial<Record<keyof LoadCaseForm | 'root', string>> = {};
   for (const issue of parsed.error.issues) {
     const field = formFieldFor(issue.path.map(String).join('.'), shown.pressureMode);
-    errors[field] ??= issue.message;
+    errors[field] ??= field === 'familyTargets' ? `${FAMILY_LABELS[issue.path[2] as Family] ?? 'A family'}: ${issue.message}` : issue.message;
   }
   return { ok: false, errors };
 }
@@ -381,6 +392,7 @@ export function formFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): Loa
     sustainedHours: lc.sustainedHours,
     cycles: lc.cycles,
     useFamilyTargets: lc.targetSafetyFactor === undefined,
+    familyTargets: { ...DEFAULT_TARGET_SAFETY_FACTORS, ...(lc.familyTargets ?? {}) },
     targetSafetyFactor: lc.targetSafetyFactor ?? DEMO_LOAD_CASE_SI.targetSafetyFactor,
     proofFactor: lc.proofFactor ?? DEFAULT_PROOF_FACTOR,
     componentType: c.type,

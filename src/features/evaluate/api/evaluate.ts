@@ -1,7 +1,6 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { EvaluateRequestInput } from '@shared/schemas/evaluate';
-import type { EvaluateResult } from '@shared/engine';
+import type { EvaluateAnswerDto, EvaluateRequestInput } from '@shared/schemas/evaluate';
 import type { PropertySetDto } from '@shared/schemas/catalogue';
 
 export const evaluateKeys = {
@@ -12,7 +11,7 @@ export const evaluateKeys = {
 export const evaluateQueryOptions = (request: EvaluateRequestInput) =>
   queryOptions({
     queryKey: evaluateKeys.run(request),
-    queryFn: () => api.post<EvaluateResult>('/evaluate', request),
+    queryFn: () => api.post<EvaluateAnswerDto>('/evaluate', request),
     staleTime: 5 * 60_000,
   });
 

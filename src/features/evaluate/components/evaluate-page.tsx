@@ -2,7 +2,7 @@ import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } fro
 import { Link, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { candidateFromPropertySet, type CandidateResult } from '@shared/engine';
-import type { EvaluateRequest, SORT_KEYS } from '@shared/schemas/evaluate';
+import type { EvaluateRequest, ExclusionDto, ExclusionReason, SORT_KEYS } from '@shared/schemas/evaluate';
 import type { LoadCaseDto, ShortlistDto } from '@shared/schemas/projects';
 import { Cautions } from '@/components/cautions';
 import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
@@ -39,6 +39,37 @@ function SelectedCandidate({ request, result }: { request: EvaluateRequest; resu
     <Suspense fallback={<Spinner label="Drawing…" />}>
       <ThicknessChart loadCase={request.loadCase} candidate={candidate} thickness={request.loadCase.component.thickness} requiredThickness={result.requiredThickness} />
     </Suspense>
+  );
+}
+
+const EXCLUSION_WORDS: Record<ExclusionReason, (n: number, lc: EvaluateRequest['loadCase'], t: (c: number) => string) => string> = {
+  family: (n) => `${n} of other families (family filter)`,
+  transparency: (n) => `${n} left out by the transparency filter`,
+  'service-range': (n, lc, t) => `${n} whose service range does not cover ${t(lc.temperature.min)} to ${t(lc.temperature.max)}`,
+  unconfirmed: (n) => `${n} with inputs not confirmed against their source`,
+  demo: (n) => `${n} with demo data`,
+};
+
+/** What the filters left out and why, so a missing candidate is never a silent drop. */
+function ExcludedNote({ excluded, loadCase }: { excluded: ExclusionDto[]; loadCase: EvaluateRequest['loadCase'] }) {
+  const { format } = useUnits();
+  const total = excluded.reduce((n, x) => n + x.count, 0);
+  if (!total) return null;
+  return (
+    <details className="mb-3 text-sm" data-testid="excluded-candidates">
+      <summary className="cursor-pointer text-ink-soft">
+        <strong className="text-ink">{total}</strong> published set{total === 1 ? '' : 's'} left out by the filters:{' '}
+        {excluded.map((x) => EXCLUSION_WORDS[x.reason](x.count, loadCase, (c) => format('temperature', c))).join('; ')}.
+      </summary>
+      <ul className="mt-1 flex flex-col gap-1 pl-4 text-xs">
+        {excluded.map((x) => (
+          <li key={x.reason}>
+            <span className="font-bold">{EXCLUSION_WORDS[x.reason](x.count, loadCase, (c) => format('temperature', c))}:</span> {x.names.join('; ')}
+            {x.count > x.names.length ? ` and ${x.count - x.names.length} more` : ''}
+          </li>
+        ))}
+      </ul>
+    </details>
   );
 }
 
@@ -270,6 +301,7 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
                   </>
                 ) : null}
               </p>
+              <ExcludedNote excluded={data.excluded ?? []} loadCase={request.loadCase} />
               {data.results.length ? (
                 <ResultsTable
                   results={data.results}

@@ -235,13 +235,37 @@ export function LoadCaseFormPanel({
       <Fieldset legend="Targets">
         <label className="flex items-start gap-2 text-sm">
           <input type="checkbox" className="mt-1" {...register('useFamilyTargets')} />
-          <span>
-            Each family's default safety factor <span className="text-ink-faint">(common practice: acrylic {DEFAULT_TARGET_SAFETY_FACTORS.acrylic}, glass {DEFAULT_TARGET_SAFETY_FACTORS.glass}, titanium {DEFAULT_TARGET_SAFETY_FACTORS['titanium-alloy']} …)</span>
-          </span>
+          <span>Target safety factor by family</span>
         </label>
+        {v.useFamilyTargets ? (
+          <div data-testid="family-targets">
+            <p className="mb-1 text-xs text-ink-faint">Common-practice defaults, shown beside each; change any for this load case.</p>
+            <div className="grid grid-cols-2 gap-x-2 gap-y-1">
+              {FAMILIES.map((family) => (
+                <label key={family} className="flex items-center justify-between gap-1 text-xs">
+                  <span className="min-w-0 truncate" title={FAMILY_LABELS[family]}>
+                    {FAMILY_LABELS[family]}
+                  </span>
+                  <span className="flex items-center gap-1">
+                    <input
+                      inputMode="decimal"
+                      aria-label={`Target safety factor for ${FAMILY_LABELS[family]}`}
+                      className={`w-12 rounded-plate border bg-white px-1 py-0.5 text-right text-xs ${Object.is(v.familyTargets?.[family], DEFAULT_TARGET_SAFETY_FACTORS[family]) ? 'border-chart-line' : 'border-brass font-bold'}`}
+                      {...register(`familyTargets.${family}`, num)}
+                    />
+                    <span className="w-7 text-ink-faint" title="Common practice">
+                      {DEFAULT_TARGET_SAFETY_FACTORS[family]}
+                    </span>
+                  </span>
+                </label>
+              ))}
+            </div>
+            <FormError message={err('familyTargets')} />
+          </div>
+        ) : null}
         <div className="grid grid-cols-2 gap-2">
           {!v.useFamilyTargets ? (
-            <TextField label="Target safety factor" inputMode="decimal" error={err('targetSafetyFactor')} {...register('targetSafetyFactor', num)} />
+            <TextField label="Target safety factor" inputMode="decimal" error={err('targetSafetyFactor')} hint="One target for every candidate" {...register('targetSafetyFactor', num)} />
           ) : null}
           <TextField label="Proof-test factor" inputMode="decimal" error={err('proofFactor')} hint="Common practice 1.25–1.5" {...register('proofFactor', num)} />
         </div>

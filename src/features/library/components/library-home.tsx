@@ -4,7 +4,9 @@ import type { LibrarySetDto } from '@shared/schemas/library';
 import type { SessionUserDto } from '@shared/schemas/auth';
 import { TextField } from '@/components/ui/field';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
-import { useLibrarySets, usePublishedSets } from '../api/library-sets';
+import { useBulkSubmit, useLibrarySets, usePublishedSets } from '../api/library-sets';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { STATUS_LABELS, STATUS_TONE, formatDateTime } from '../labels';
 import { isOwnWork } from './review-panel';
 import { LinkButton } from '@/components/ui/link-button';
@@ -16,12 +18,33 @@ const setLink = (s: { id: number; material: { name: string }; condition: string 
   </Link>
 );
 
-function SetTable({ label, items, columns }: { label: string; items: LibrarySetDto[]; columns: { header: string; cell: (s: LibrarySetDto) => ReactNode }[] }) {
+function SetTable({
+  label,
+  items,
+  columns,
+  selection,
+}: {
+  label: string;
+  items: LibrarySetDto[];
+  columns: { header: string; cell: (s: LibrarySetDto) => ReactNode }[];
+  /** Tick boxes for choosing rows (bulk submit). */
+  selection?: { selected: ReadonlySet<number>; toggle: (id: number) => void; toggleAll: () => void };
+}) {
   return (
     <div className="overflow-x-auto">
       <table className="w-full text-sm" aria-label={label}>
         <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
           <tr>
+            {selection ? (
+              <th scope="col" className="w-6 py-1 pr-2">
+                <input
+                  type="checkbox"
+                  aria-label="Choose every draft"
+                  checked={items.length > 0 && items.every((s) => selection.selected.has(s.id))}
+                  onChange={selection.toggleAll}
+                />
+              </th>
+            ) : null}
             <th scope="col" className="py-1 pr-3">Material and condition</th>
             {columns.map((c) => (
               <th key={c.header} scope="col" className="py-1 pr-3">
@@ -33,6 +56,16 @@ function SetTable({ label, items, columns }: { label: string; items: LibrarySetD
         <tbody>
           {items.map((s) => (
             <tr key={s.id} className="border-t border-chart-line/60 align-top">
+              {selection ? (
+                <td className="py-1.5 pr-2">
+                  <input
+                    type="checkbox"
+                    aria-label={`Choose ${s.material.name} — ${s.condition}`}
+                    checked={selection.selected.has(s.id)}
+                    onChange={() => selection.toggle(s.id)}
+                  />
+                </td>
+              ) : null}
               <td className="py-1.5 pr-3">{setLink(s)}</td>
               {columns.map((c) => (
                 <td key={c.header} className="py-1.5 pr-3">
@@ -43,6 +76,63 @@ function SetTable({ label, items, columns }: { label: string; items: LibrarySetD
           ))}
         </tbody>
       </table>
+    </div>
+  );
+}
+
+/** Submit the chosen drafts for review at once (after a CSV import there may be dozens). */
+function BulkSubmitBar({ drafts, selected, onDone }: { drafts: LibrarySetDto[]; selected: ReadonlySet<number>; onDone: () => void }) {
+  const bulk = useBulkSubmit();
+  const [confirming, setConfirming] = useState(false);
+  const chosen = drafts.filter((d) => selected.has(d.id));
+  const result = bulk.data;
+  return (
+    <div className="mb-3 flex flex-col gap-2">
+      <div className="flex flex-wrap items-center gap-3">
+        <Button disabled={chosen.length === 0 || bulk.isPending} onClick={() => setConfirming(true)}>
+          {chosen.length ? `Submit ${chosen.length} for review…` : 'Submit for review…'}
+        </Button>
+        <span className="text-xs text-ink-soft">Tick drafts to submit several at once; another librarian reviews each.</span>
+      </div>
+      {result ? (
+        <div role="status" className="text-sm" data-testid="bulk-submit-result">
+          {result.submitted.length} submitted for review.
+          {result.failed.length ? (
+            <ul className="mt-1 list-disc pl-5 text-verdict-fail">
+              {result.failed.map((f) => (
+                <li key={f.id}>
+                  {f.title}: {f.message}
+                </li>
+              ))}
+            </ul>
+          ) : null}
+        </div>
+      ) : null}
+      <ConfirmDialog
+        open={confirming}
+        title={`Submit ${chosen.length} draft${chosen.length === 1 ? '' : 's'} for review?`}
+        confirmLabel="Submit for review"
+        busy={bulk.isPending}
+        busyLabel="Submitting…"
+        onConfirm={() =>
+          bulk.mutate(chosen, {
+            onSuccess: () => {
+              setConfirming(false);
+              onDone();
+            },
+          })
+        }
+        onClose={() => setConfirming(false)}
+      >
+        <p>Each goes to the review queue as it is now; you cannot edit it while it waits. Drafts the server refuses stay on your desk with the reason.</p>
+        <ul className="mt-2 max-h-48 list-disc overflow-y-auto pl-5 text-sm">
+          {chosen.map((d) => (
+            <li key={d.id}>
+              {d.material.name} — {d.condition}
+            </li>
+          ))}
+        </ul>
+      </ConfirmDialog>
     </div>
   );
 }
@@ -87,6 +177,7 @@ function PublishedSearch() {
 
 /** The library desk: what the caller is drafting, what came back, and what waits for their review. */
 export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
+  const [selected, setSelected] = useState<ReadonlySet<number>>(new Set());
   const location = useLocation();
   const navigate = useNavigate();
   // The notice is for this arrival only; a reload should not show it again.
@@ -152,15 +243,29 @@ export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
               ) : null}
               <Panel title={`Your drafts (${drafts.length})`}>
                 {drafts.length ? (
+                  <>
+                  <BulkSubmitBar drafts={drafts} selected={selected} onDone={() => setSelected(new Set())} />
                   <SetTable
                     label="Your drafts"
                     items={drafts}
+                    selection={{
+                      selected,
+                      toggle: (id) =>
+                        setSelected((prev) => {
+                          const next = new Set(prev);
+                          if (next.has(id)) next.delete(id);
+                          else next.add(id);
+                          return next;
+                        }),
+                      toggleAll: () => setSelected((prev) => (drafts.every((d) => prev.has(d.id)) ? new Set() : new Set(drafts.map((d) => d.id)))),
+                    }}
                     columns={[
                       { header: 'Version', cell: (s) => s.version },
                       { header: 'Last saved', cell: (s) => formatDateTime(s.updatedAt) },
                       { header: 'Source', cell: (s) => (s.reference ? <span className="text-xs">{s.reference.title}</span> : <Tag tone="fail">none yet</Tag>) },
                     ]}
                   />
+                  </>
                 ) : (
                   <EmptyState
                     title="No drafts on your desk"

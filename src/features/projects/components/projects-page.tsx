@@ -67,6 +67,7 @@ export function ProjectsPage({ canCreate }: { canCreate: boolean }) {
                   <th scope="col" className="py-1 pr-3 text-right">Members</th>
                   <th scope="col" className="py-1 pr-3 text-right">Load cases</th>
                   <th scope="col" className="py-1 pr-3 text-right">Shortlists</th>
+                  <th scope="col" className="py-1 pr-3 text-right">Awaiting check</th>
                   <th scope="col" className="py-1 pr-3 text-right">Checked</th>
                   <th scope="col" className="py-1">Updated</th>
                 </tr>
@@ -84,6 +85,9 @@ export function ProjectsPage({ canCreate }: { canCreate: boolean }) {
                     <td className="py-2 pr-3 text-right">{p.members.length}</td>
                     <td className="py-2 pr-3 text-right">{p.counts.loadCases}</td>
                     <td className="py-2 pr-3 text-right">{p.counts.shortlists}</td>
+                    <td className="py-2 pr-3 text-right" data-testid="awaiting-check-count">
+                      {p.counts.awaitingCheck ? <span className="font-bold text-brass">{p.counts.awaitingCheck}</span> : <span className="text-ink-faint">0</span>}
+                    </td>
                     <td className="py-2 pr-3 text-right">{p.counts.checked}</td>
                     <td className="whitespace-nowrap py-2">{formatDate(p.updatedAt)}</td>
                   </tr>
