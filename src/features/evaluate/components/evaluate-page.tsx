@@ -13,13 +13,15 @@ import { formatPressureAll } from '@/lib/units';
 import { candidateSetQueryOptions, useEvaluation } from '../api/evaluate';
 import { useMyProjects, useSavedLoadCase } from '../api/project-links';
 import { exampleRequest, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, sameRequest, type LoadCaseForm } from '../form-model';
-import { LoadCaseFormPanel } from './load-case-form';
+import { LoadCaseFormPanel, type FormPoint } from './load-case-form';
+import type { MapPoint } from './mode-map';
 import { ResultsTable, resultKey, ModeTag } from './results-table';
 import { SaveLoadCaseDialog } from './save-load-case-dialog';
 import { ShortlistDialog } from './shortlist-dialog';
 
 const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
 const ThicknessChart = lazy(() => import('./thickness-chart').then((m) => ({ default: m.ThicknessChart })));
+const ModeMap = lazy(() => import('./mode-map').then((m) => ({ default: m.ModeMap })));
 
 type SortKey = (typeof SORT_KEYS)[number];
 const SORT_LABELS: Record<SortKey, string> = {
@@ -76,6 +78,20 @@ function ExcludedNote({ excluded, loadCase }: { excluded: ExclusionDto[]; loadCa
 /** What set a result's required thickness, in a sentence's words. */
 function sizedByWords(s: NonNullable<CandidateResult['sizedBy']>) {
   return s.kind === 'mode' ? <ModeTag mode={s.mode} /> : <>the rating table “{s.name}”</>;
+}
+
+/** The mode map of the selected catalogue candidate; a click hands the point to the form. */
+function SelectedModeMap({ request, result, onPick }: { request: EvaluateRequest; result: CandidateResult; onPick: (p: MapPoint) => void }) {
+  const set = useQuery({ ...candidateSetQueryOptions(result.propertySetId ?? 0), enabled: result.propertySetId !== undefined });
+  const candidate = useMemo(() => (set.data ? candidateFromPropertySet(set.data) : null), [set.data]);
+  if (result.propertySetId === undefined) return <p className="text-sm text-ink-soft">Mode maps are drawn for catalogue candidates.</p>;
+  if (set.isPending) return <Spinner label="Loading the candidate's data…" />;
+  if (set.isError || !candidate) return <ErrorState error={set.error} />;
+  return (
+    <Suspense fallback={<Spinner label="Drawing…" />}>
+      <ModeMap loadCase={request.loadCase} candidate={candidate} requiredThickness={result.requiredThickness} onPick={onPick} />
+    </Suspense>
+  );
 }
 
 /** Navigation state after saving: shortlist this candidate once the saved case is evaluated. */
@@ -162,6 +178,12 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
   requestRef.current = request;
   const onDraft = useCallback((d: EvaluateRequest | null) => setDraft(d === null ? 'invalid' : sameRequest(d, requestRef.current) ? 'same' : 'changed'), []);
   const stale = draft !== 'same';
+  // A point picked on the mode map goes into the form (which then marks the ranking stale).
+  const [point, setPoint] = useState<FormPoint | null>(null);
+  const pickPoint = (p: MapPoint) => {
+    setPoint({ key: Date.now(), ...p });
+    document.getElementById('load-case-form')?.scrollIntoView({ block: 'nearest' });
+  };
   // After an evaluation asked for from the form, the keyboard focus goes to its summary.
   const summaryRef = useRef<HTMLParagraphElement>(null);
   const focusSummary = useRef(false);
@@ -220,6 +242,7 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
             initial={formValues}
             busy={evaluation.isFetching}
             onDraft={onDraft}
+            point={point}
             onSubmit={(req, si) => {
               focusSummary.current = true;
               setFormValues(si);
@@ -325,6 +348,9 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
                 </Panel>
                 <Panel title="Where the governing mode changes">
                   {selectedResult ? <SelectedCandidate request={request} result={selectedResult} /> : null}
+                </Panel>
+                <Panel title="Where each mode governs" className="xl:col-span-2">
+                  {selectedResult ? <SelectedModeMap request={request} result={selectedResult} onPick={pickPoint} /> : null}
                 </Panel>
               </div>
             ) : null}
