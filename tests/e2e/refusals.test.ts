@@ -56,7 +56,7 @@ describe('Refusals and landings in chromium', () => {
     expect(await list.textContent()).toContain('Waiting list check');
     await page.goto(`${baseUrl}/projects`);
     const row = page.getByRole('row').filter({ has: page.getByRole('link', { name: (await (await page.request.get(`${baseUrl}/api/projects/${project.id}`)).json()).name }) });
-    expect(await page.getByRole('columnheader', { name: 'Awaiting check' }).isVisible()).toBe(true);
+    await page.getByRole('columnheader', { name: 'Awaiting check' }).waitFor();
     expect(Number(await row.getByTestId('awaiting-check-count').textContent())).toBeGreaterThanOrEqual(1);
     // The check dialog says whether any candidate misses its target.
     await page.goto(`${baseUrl}/shortlists/${created.id}`);
