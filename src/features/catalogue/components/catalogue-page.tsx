@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useSearchParams } from 'react-router-dom';
 import Fuse from 'fuse.js';
 import { FAMILIES, FAMILY_LABELS } from '@shared/schemas/catalogue';
@@ -70,16 +70,19 @@ export function CataloguePage({ canEvaluate = false }: { canEvaluate?: boolean }
   const query = usePropertySets(serverFilters(filters));
   const { system, format } = useUnits();
 
-  const setParam = (key: string, value: string | undefined) =>
-    setParams(
-      (prev) => {
-        const next = new URLSearchParams(prev);
-        if (value === undefined || value === '') next.delete(key);
-        else next.set(key, value);
-        return next;
-      },
-      { replace: true },
-    );
+  // Changes build on the last one asked for, not on the URL: the route's loader runs before the URL
+  // changes, so a second change made meanwhile (leaving one field for the next) must not drop the first.
+  const latest = useRef(params);
+  useEffect(() => {
+    latest.current = params;
+  }, [params]);
+  const setParam = (key: string, value: string | undefined) => {
+    const next = new URLSearchParams(latest.current);
+    if (value === undefined || value === '') next.delete(key);
+    else next.set(key, value);
+    latest.current = next;
+    setParams(next, { replace: true });
+  };
   const rangeError =
     filters.tmin !== undefined && filters.tmax !== undefined && filters.tmin > filters.tmax ? 'Must not be below the minimum' : undefined;
 
@@ -154,7 +157,10 @@ export function CataloguePage({ canEvaluate = false }: { canEvaluate?: boolean }
       <div className="flex items-center justify-between text-sm text-ink-soft" aria-live="polite">
         <span>{query.data ? `${shown.length} of ${query.data.total} property sets` : ' '}</span>
         {hasFilters ? (
-          <Button tone="quiet" onClick={() => setParams(new URLSearchParams(), { replace: true })}>
+          <Button tone="quiet" onClick={() => {
+            latest.current = new URLSearchParams();
+            setParams(latest.current, { replace: true });
+          }}>
             Clear filters
           </Button>
         ) : null}
