@@ -2,7 +2,7 @@
  * Engine throughput on one core: candidate × mode evaluations per second over a mix of all four
  * component types, ranking included (evaluate() evaluates, sorts and cuts to the limit).
  */
-import { evaluate, type CandidateMaterial } from '../shared/engine';
+import { evaluate, modeMap, type CandidateMaterial } from '../shared/engine';
 import type { LoadCaseInput } from '../shared/schemas/evaluate';
 import { readSeedCatalogue } from '../server/db/seeders/catalogue';
 
@@ -53,6 +53,26 @@ export interface EngineBench {
   fullResultsModeEvaluationsPerSecond: number;
   candidates: number;
   rounds: number;
+  /** Median ms for one 64 × 64 mode map (the Evaluate page's grid): cone over t/D × angle, sphere over t × depth. */
+  modeMapMs: { cone: number; sphere: number };
+}
+
+/** Median time of the mode map the Evaluate page draws (budget: 100 ms in the browser). */
+function benchModeMap(cand: CandidateMaterial): { cone: number; sphere: number } {
+  const [, cone, sphere] = ENGINE_LOAD_CASES;
+  const time = (f: () => void) => {
+    const xs: number[] = [];
+    for (let k = 0; k < 25; k++) {
+      const t0 = performance.now();
+      f();
+      xs.push(performance.now() - t0);
+    }
+    return Number(median(xs).toFixed(2));
+  };
+  return {
+    cone: time(() => modeMap(cone, cand, { kind: 'thicknessRatio', from: 0.05, to: 1.5, cells: 64 }, { kind: 'includedAngle', from: 30, to: 180, cells: 64 })),
+    sphere: time(() => modeMap(sphere, cand, { kind: 'thickness', from: 0.005, to: 0.2, cells: 64 }, { kind: 'depth', from: 100, to: 11000, cells: 64 })),
+  };
 }
 
 const median = (xs: number[]) => {
@@ -96,5 +116,6 @@ export function benchEngine(seconds = 4, candidates = 2000): EngineBench {
     fullResultsModeEvaluationsPerSecond: Math.round(median(fullRates)),
     candidates,
     rounds: marginRates.length,
+    modeMapMs: benchModeMap(cands[0]),
   };
 }

@@ -18,6 +18,8 @@ const BUDGETS = {
   evaluateP99Ms: 25,
   initialJsGzipBytes: 200 * 1024,
   evaluateReadyMs: 1000,
+  /** One 64 × 64 mode map (the Evaluate page draws it in the browser). */
+  modeMapMs: 100,
 };
 
 async function main() {
@@ -73,6 +75,7 @@ async function main() {
 
   const checks: [string, string, boolean][] = [
     ['engine mode evaluations / s', `${engine.modeEvaluationsPerSecond.toLocaleString('en-GB')} (≥ ${BUDGETS.engineModeEvaluationsPerSecond.toLocaleString('en-GB')})`, engine.modeEvaluationsPerSecond >= BUDGETS.engineModeEvaluationsPerSecond],
+    ['mode map 64 × 64 (cone / sphere)', `${engine.modeMapMs.cone} / ${engine.modeMapMs.sphere} ms (≤ ${BUDGETS.modeMapMs})`, Math.max(engine.modeMapMs.cone, engine.modeMapMs.sphere) <= BUDGETS.modeMapMs],
     ['evaluate p50 vs health p50', `${api.evaluate.p50Ms} ms vs ${api.health.p50Ms} ms (≤ ×${BUDGETS.evaluateP50OverHealthP50})`, api.evaluate.p50Ms <= BUDGETS.evaluateP50OverHealthP50 * Math.max(api.health.p50Ms, 1)],
     ['evaluate p99', `${api.evaluate.p99Ms} ms (≤ ${BUDGETS.evaluateP99Ms})`, api.evaluate.p99Ms <= BUDGETS.evaluateP99Ms],
     ['evaluate errors', `${api.evaluate.errors} (= 0)`, api.evaluate.errors === 0],

@@ -73,3 +73,22 @@ export function roundText(r: ShortlistRoundDto, date: (iso: string) => string): 
   const said = r.comment ? `: “${r.comment}”` : '.';
   return { heading, outcome: `${r.outcome === 'returned' ? 'Returned' : 'Checked'} by ${who}${said}` };
 }
+
+/**
+ * The design record's sections, in order: the page and its PDF use these titles, so a reader
+ * (and tests/e2e/record-pdf.test.ts) can match them one for one.
+ */
+export const RECORD_SECTIONS = {
+  cautions: 'Cautions',
+  signOff: 'Sign-off',
+  rounds: 'Rounds of checking',
+  loadCase: 'Load case',
+  candidates: "Candidates in the author's order",
+  margins: 'Margins by mode',
+  modes: "Each candidate's modes, models and warnings",
+  sources: 'Data sources',
+  models: 'Models used',
+} as const;
+
+/** The margin charts' axis (page and PDF alike): −100 % to +500 %; longer bars are clipped. */
+export const MARGIN_CHART_RANGE = { min: -1, max: 5 } as const;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatQuantity, fromDisplay, toDisplay, unitByLabel, type QuantityKind } from './units';
+import { formatPressureAll, formatQuantity, fromDisplay, PRESSURE_UNITS, roundForInput, toDisplay, unitByLabel, unitOf, type QuantityKind } from './units';
 
 describe('units', () => {
   // Conversion factors: NIST SP 811 (2008), Appendix B: 1 psi = 6894.757 Pa, 1 in = 25.4 mm,
@@ -46,5 +46,31 @@ describe('units by label', () => {
   it('knows no unit by a label of another kind', () => {
     expect(unitByLabel('stress', 'GPa')).toBeUndefined();
     expect(unitByLabel('temperature', 'K')).toBeUndefined();
+  });
+});
+
+describe('pressure in MPa, bar and psi, and values rounded for the form', () => {
+  it('writes a gauge pressure in all three units, the chosen one first', () => {
+    // 1 bar = 0.1 MPa (definition); 1 psi = 6894.757 Pa (NIST SP 811, B.8).
+    expect(formatPressureAll(12.15e6)).toBe('12.15 MPa (121.5 bar, 1,762 psi)');
+    expect(formatPressureAll(5e5, 'bar')).toBe('5.0 bar (0.50 MPa, 73 psi)');
+  });
+
+  it('rounds to the unit digits, keeping four significant figures', () => {
+    expect(roundForInput(unitOf('length', 'US'), 5.905511811)).toBe(5.906);
+    expect(roundForInput(unitOf('temperature', 'US'), 35.6)).toBe(35.6);
+    expect(roundForInput(unitOf('depth', 'US'), 3937.007874)).toBe(3937);
+    expect(roundForInput(unitOf('length', 'SI'), 99.99998)).toBe(100);
+    expect(roundForInput(unitOf('area', 'SI'), 0.0123456)).toBe(0.01235);
+    expect(PRESSURE_UNITS.bar.toSI(1)).toBeCloseTo(1e5, 6);
+  });
+});
+
+describe('exact values for reviewers', () => {
+  it('shows every digit entered, not the table rounding', () => {
+    expect(formatQuantity('modulus', 'SI', 2.35e9)).toBe('2.4 GPa');
+    expect(formatQuantity('modulus', 'SI', 2.35e9, { exact: true })).toBe('2.35 GPa');
+    expect(formatQuantity('stress', 'SI', 62e6, { exact: true })).toBe('62.0 MPa');
+    expect(formatQuantity('density', 'SI', 1190, { exact: true })).toBe('1,190 kg/m³');
   });
 });

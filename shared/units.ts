@@ -101,12 +101,48 @@ export function formatQuantity(
   kind: QuantityKind,
   system: UnitSystem,
   si: number | null | undefined,
-  options: { unit?: boolean; digits?: number } = {},
+  options: { unit?: boolean; digits?: number; exact?: boolean } = {},
 ): string {
   if (si === null || si === undefined || !Number.isFinite(si)) return '—';
   const def = UNITS[kind][system];
   const shown = def.fromSI(si);
   const digits = options.digits ?? def.digits;
-  const text = shown.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
+  // exact: every digit the stored value has (to 12 significant figures, dropping conversion noise), for reviewers.
+  const text = options.exact
+    ? Number(shown.toPrecision(12)).toLocaleString('en-GB', { minimumFractionDigits: digits === 0 ? 0 : Math.min(digits, 1), maximumFractionDigits: 12 })
+    : shown.toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits });
   return options.unit === false ? text : `${text} ${def.label}`;
+}
+
+/** Pressure can be typed and read in MPa, bar or psi whatever the system; always gauge. */
+export type PressureUnit = 'MPa' | 'bar' | 'psi';
+export const PRESSURE_UNITS: Record<PressureUnit, UnitDef> = {
+  MPa: UNITS.pressure.SI,
+  bar: { label: 'bar', ...via('Pa', 'bar'), digits: 1 },
+  psi: UNITS.pressure.US,
+};
+/** The pressure unit a system starts with. */
+export const defaultPressureUnit = (system: UnitSystem): PressureUnit => (system === 'US' ? 'psi' : 'MPa');
+
+/** A gauge pressure in all three units, the system's first: "12.15 MPa (121.5 bar, 1,762 psi)". */
+export function formatPressureAll(pa: number | null | undefined, first: PressureUnit = 'MPa'): string {
+  if (pa === null || pa === undefined || !Number.isFinite(pa)) return '—';
+  const one = (u: PressureUnit) => {
+    const def = PRESSURE_UNITS[u];
+    return `${def.fromSI(pa).toLocaleString('en-GB', { minimumFractionDigits: def.digits, maximumFractionDigits: def.digits })} ${def.label}`;
+  };
+  const rest = (Object.keys(PRESSURE_UNITS) as PressureUnit[]).filter((u) => u !== first).map(one);
+  return `${one(first)} (${rest.join(', ')})`;
+}
+
+/**
+ * A converted value rounded for a form field to meaningful digits: the decimals the unit shows in
+ * tables, and never fewer than four significant figures (5.906 in, not 5.90551 in).
+ */
+export function roundForInput(def: Pick<UnitDef, 'digits'>, value: number): number {
+  if (!Number.isFinite(value) || value === 0) return value;
+  const decimals = def.digits;
+  const bySignificant = 4 - Math.floor(Math.log10(Math.abs(value))) - 1;
+  const places = Math.min(12, Math.max(decimals, bySignificant));
+  return Number(value.toFixed(places));
 }

@@ -91,7 +91,7 @@ export const OPERATIONS: Record<string, OperationDoc> = {
   'GET /api/materials': { tag: 'Catalogue', summary: 'All materials, by family then name' },
   'POST /api/materials': { tag: 'Library desk', summary: 'Create a material', body: materialCreateSchema, responses: { 201: 'Created', 409: 'A material with that name exists' } },
   'GET /api/materials/:id': { tag: 'Catalogue', summary: 'One material with the property sets the caller may read' },
-  'POST /api/evaluate': { tag: 'Calculation', summary: 'Evaluate candidates (catalogue or inline) for a load case; ranked best first, every mode with its model and source', body: evaluateRequestSchema },
+  'POST /api/evaluate': { tag: 'Calculation', summary: 'Evaluate candidates (catalogue or inline) for a load case; ranked best first, every mode with its model and source. The answer is lean by default (form "lean": model texts, warnings and repeated objects once in texts/objects, candidates and modes as rows named by columns, 6 significant digits); form "full" sends each candidate whole. Both carry excluded: the published sets the filters left out, by reason', body: evaluateRequestSchema, responses: { 200: 'The ranking (lean or full form) with the excluded sets', 429: 'Too many evaluations from this account in a minute (Retry-After)' } },
   'GET /api/pressure': { tag: 'Calculation', summary: 'Gauge pressure at a depth in seawater (UNESCO 1983, inverted) or fresh water', query: pressureQuerySchema },
 
   'GET /api/library/sets': { tag: 'Library desk', summary: 'Drafts and sets in review (filter by status; mine=true for your own)', query: libraryQueueQuerySchema },
@@ -160,6 +160,7 @@ export const OPERATIONS: Record<string, OperationDoc> = {
   'GET /api/people': { tag: 'Projects', summary: 'Active accounts, to add as project members' },
   'GET /api/load-cases/:id': { tag: 'Projects', summary: 'A saved load case' },
   'PUT /api/load-cases/:id': { tag: 'Projects', summary: 'Edit a saved load case (optimistic lock; refused once a checked shortlist uses it)', body: loadCaseUpdateSchema },
+  'GET /api/shortlists/awaiting-check': { tag: 'Shortlists', summary: 'Shortlists submitted by others in your projects, waiting for your check (oldest first)' },
   'GET /api/shortlists/:id': { tag: 'Shortlists', summary: 'A shortlist with its candidates evaluated live against the load case' },
   'POST /api/shortlists/:id/items': { tag: 'Shortlists', summary: 'Add a published property set with a note', body: shortlistItemAddSchema, responses: { 201: 'Added', 409: 'Already on the shortlist, or the shortlist is no longer open' } },
   'PATCH /api/shortlists/:id/items/:itemId': { tag: 'Shortlists', summary: 'Edit a candidate’s note (optimistic lock on the item)', body: shortlistItemUpdateSchema, responses: { 200: 'Saved', 409: 'Someone saved the note since (stale), or the shortlist is no longer open' } },

@@ -241,3 +241,27 @@ describe('life factors combined once, and the proof test', () => {
     expect(r.sizedBy).toEqual({ kind: 'mode', mode: largest.mode });
   });
 });
+
+describe('evaluate: targets by family', () => {
+  const noTarget: LoadCaseInput = { ...chamberViewport, targetSafetyFactor: undefined };
+
+  it('holds a family to the load case’s own target and the others to their common-practice default', () => {
+    const out = evaluate({ loadCase: { ...noTarget, familyTargets: { acrylic: 6 } }, candidates: [acrylic, glass] });
+    const byName = new Map(out.results.map((r) => [r.name, r]));
+    expect(byName.get(acrylic.name)!.targetSafetyFactor).toBe(6);
+    expect(byName.get(acrylic.name)!.margin).toBeCloseTo(byName.get(acrylic.name)!.safetyFactor / 6 - 1, 12);
+    expect(byName.get(glass.name)!.targetSafetyFactor).toBe(DEFAULT_TARGET_SAFETY_FACTORS.glass);
+  });
+
+  it('lets the one target of the load case win over family targets', () => {
+    const out = evaluate({ loadCase: { ...noTarget, targetSafetyFactor: 3, familyTargets: { acrylic: 6 } }, candidates: [acrylic] });
+    expect(out.results[0].targetSafetyFactor).toBe(3);
+  });
+
+  it('refuses a family target that is not a positive number, and warns below 1', () => {
+    expect(loadCaseSchema.safeParse({ ...noTarget, familyTargets: { acrylic: 0 } }).success).toBe(false);
+    expect(loadCaseSchema.safeParse({ ...noTarget, familyTargets: { wood: 2 } }).success).toBe(false);
+    const out = evaluate({ loadCase: { ...noTarget, familyTargets: { acrylic: 0.8 } }, candidates: [acrylic] });
+    expect(out.results[0].warnings.some((w) => /0\.8 set for acrylic is below 1/.test(w))).toBe(true);
+  });
+});

@@ -21,6 +21,8 @@ export { evaluateCandidate } from './evaluate-candidate';
 export { sortResults, compareResults, topResults, rankKey } from './rank';
 export { sweepThickness, MAX_SWEEP_STEPS } from './sweep';
 export type { SweepOptions, SweepResult, SweepSeries, GoverningTransition } from './sweep';
+export { modeMap, targetContour, MAX_MODE_MAP_CELLS } from './mode-map';
+export type { ModeMapAxis, ModeMapAxisKind, ModeMapResult } from './mode-map';
 export { candidateFromPropertySet, candidateFromInline } from './candidates';
 
 // Pressure

@@ -10,6 +10,7 @@ import { modelFor } from './components/index';
 import { defaultTargetSafetyFactor, WATER_DENSITY } from './defaults';
 import { pressureFromDepth } from './pressure';
 import type { CandidateMaterial } from './types';
+import type { Family } from '../schemas/catalogue';
 
 /** A load case with its design pressure worked out once, for evaluating many candidates. */
 export interface PreparedLoadCase {
@@ -22,8 +23,10 @@ export interface PreparedLoadCase {
   /** kg/m³, for weight-to-displacement. */
   waterDensity: number;
   conditions: Conditions;
-  /** From the load case, or undefined to use each candidate's family default. */
+  /** From the load case, or undefined to use each candidate's family target. */
   targetSafetyFactor: number | undefined;
+  /** The load case's own targets for some families; the others keep their common-practice default. */
+  familyTargets: Partial<Record<Family, number>>;
   component: Component;
   model: ComponentModel<Component>;
   /** For human occupancy (window candidates no rule covers then warn and may rank lower). */
@@ -74,6 +77,11 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
   if (target !== undefined && target < 1) {
     warnings.push(`The target safety factor ${fmt(target)} is below 1: it accepts stresses above the allowable.`);
   }
+  const familyTargets = target === undefined ? { ...(loadCase.familyTargets ?? {}) } : {};
+  for (const [family, t] of Object.entries(familyTargets) as [Family, number][]) {
+    checkPositive(`target safety factor of ${family}`, t);
+    if (t < 1) warnings.push(`The target safety factor ${fmt(t)} set for ${family} is below 1: it accepts stresses above the allowable.`);
+  }
   if ('value' in pin && (c.type === 'sphere' || c.type === 'cylinder' || c.type === 'ring-stiffened-cylinder')) {
     warnings.push('Pressure was given directly, so weight-to-displacement assumes seawater (1025 kg/m³).');
   }
@@ -89,6 +97,7 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
       cycles: loadCase.cycles,
     },
     targetSafetyFactor: target,
+    familyTargets,
     component: c,
     model: modelFor(c),
     humanOccupancy: loadCase.humanOccupancy === true,
@@ -98,5 +107,5 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
 
 /** The target safety factor a candidate is held to under a prepared load case. */
 export function targetFor(prepared: PreparedLoadCase, candidate: CandidateMaterial): number {
-  return prepared.targetSafetyFactor ?? defaultTargetSafetyFactor(candidate.family);
+  return prepared.targetSafetyFactor ?? (candidate.family ? prepared.familyTargets[candidate.family] : undefined) ?? defaultTargetSafetyFactor(candidate.family);
 }

@@ -10,6 +10,8 @@ import { familySchema } from './catalogue';
 import { num, strict } from './fields';
 import { loadCaseSchema, MAX_DEPTH_M, waterSchema } from './load-case';
 import { candidateInputSchema } from './candidates';
+import type { EvaluateResult } from '../engine/types';
+import type { LeanEvaluation } from '../engine/lean';
 
 export * from './components';
 export * from './load-case';
@@ -63,6 +65,30 @@ export const evaluateRequestSchema = strict('Request', {
 });
 export type EvaluateRequest = z.output<typeof evaluateRequestSchema>;
 export type EvaluateRequestInput = z.input<typeof evaluateRequestSchema>;
+
+/** Why a published property set was left out of a catalogue evaluation (which filter). */
+export type ExclusionReason = 'family' | 'transparency' | 'service-range' | 'unconfirmed' | 'demo';
+
+/** The sets one filter left out: how many, and the first names (at most EXCLUDED_NAMES_SHOWN). */
+export interface ExclusionDto {
+  reason: ExclusionReason;
+  count: number;
+  names: string[];
+}
+export const EXCLUDED_NAMES_SHOWN = 50;
+
+/**
+ * The answer of POST /api/evaluate: the engine's ranking, and for a catalogue evaluation (no
+ * candidates named) what the filters left out, by reason.
+ */
+export interface EvaluateAnswerDto extends EvaluateResult {
+  excluded: ExclusionDto[];
+}
+
+/** The same answer in the lean form (the default): texts once, candidates as rows; `excluded` as is. */
+export interface LeanEvaluateAnswerDto extends LeanEvaluation {
+  excluded: ExclusionDto[];
+}
 
 // ---------------------------------------------------------------------------------------------
 // GET /api/pressure query (strings from the URL)

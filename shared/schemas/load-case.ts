@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { componentSchema } from './components';
 import { keyedUnionMessage, num, strict } from './fields';
+import { familySchema } from './catalogue';
 
 export const MAX_PRESSURE_PA = 2e9;
 export const MAX_DEPTH_M = 12_000;
@@ -48,6 +49,8 @@ export const loadCaseSchema = strict('Load case', {
   sustainedHours: num('Sustained-load hours', { min: 0, max: 1e6, unit: 'h' }),
   cycles: num('Pressure cycles', { min: 0, max: 1e9, int: true }),
   targetSafetyFactor: num('Target safety factor', { gt: 0, max: 100 }).optional(),
+  /** Targets by family, for families whose common-practice default is not wanted; the one targetSafetyFactor, when given, wins. */
+  familyTargets: z.partialRecord(familySchema, num('Target safety factor', { gt: 0, max: 100 })).optional(),
   proofFactor: num('Proof factor', { min: 1, max: 3 }).default(DEFAULT_PROOF_FACTOR),
   /** For human occupancy: window candidates no window rule covers carry a warning and rank below covered ones. */
   humanOccupancy: z.boolean({ error: 'Human occupancy must be true or false.' }).optional(),

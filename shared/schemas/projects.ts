@@ -83,7 +83,20 @@ export interface ProjectDto {
   updatedAt: string;
   /** For PATCH: a change made from an older read gets 409 stale. */
   lockVersion: number;
-  counts: { loadCases: number; shortlists: number; checked: number };
+  /** awaitingCheck: shortlists submitted and not yet checked or returned. */
+  counts: { loadCases: number; shortlists: number; checked: number; awaitingCheck: number };
+}
+
+/** A row of GET /api/shortlists/awaiting-check: a shortlist submitted by someone else, waiting for the caller's check. */
+export interface AwaitingCheckDto {
+  id: number;
+  name: string;
+  project: { id: number; name: string };
+  author: { id: number; name: string };
+  submittedAt: string;
+  itemCount: number;
+  /** Candidates whose governing margin is below zero at submission (they miss their target). */
+  belowTarget: string[];
 }
 
 export interface LoadCaseDto {

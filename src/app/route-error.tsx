@@ -17,9 +17,10 @@ export function RouteError() {
   const error = useRouteError();
   if ((isRouteErrorResponse(error) && error.status === 404) || (error instanceof ApiError && error.status === 404)) return <NotFoundPage />;
   const message = error instanceof ApiError ? error.message : 'An unexpected error stopped this page.';
+  const refused = error instanceof ApiError && error.status === 403;
   return (
-    <div role="alert" className="mx-auto max-w-xl py-16 text-center">
-      <h1 className="text-2xl font-bold">This page could not be shown</h1>
+    <div role="alert" className="mx-auto max-w-xl py-16 text-center" data-testid={refused ? 'page-refused' : 'page-error'}>
+      <h1 className="text-2xl font-bold">{refused ? 'Your role cannot use this page' : 'This page could not be shown'}</h1>
       <p className="mt-2 text-ink-soft">{message}</p>
       <a href="/catalogue" className="mt-4 inline-block font-bold text-sounding underline">
         Reload the catalogue

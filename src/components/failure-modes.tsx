@@ -6,9 +6,9 @@ import { FAILURE_MODE_LABELS, formatMargin, sizedByText } from '@shared/labels';
 /** One colour per failure mode, used in tables, charts and the design record. */
 export { MODE_COLOURS };
 
-export function ModeTag({ mode }: { mode: CandidateResult['governingMode'] }) {
+export function ModeTag({ mode, small = false }: { mode: CandidateResult['governingMode']; small?: boolean }) {
   return (
-    <span className="inline-flex items-center gap-1.5 text-sm font-bold" style={{ color: MODE_COLOURS[mode] }}>
+    <span className={`inline-flex items-center gap-1.5 font-bold ${small ? 'text-xs' : 'text-sm'}`} style={{ color: MODE_COLOURS[mode] }}>
       <span aria-hidden className="inline-block h-2.5 w-2.5 rounded-full" style={{ background: MODE_COLOURS[mode] }} />
       {FAILURE_MODE_LABELS[mode]}
     </span>

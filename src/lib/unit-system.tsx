@@ -4,7 +4,7 @@ import { formatQuantity, type QuantityKind, type UnitSystem, unitOf } from './un
 interface UnitSystemState {
   system: UnitSystem;
   setSystem(system: UnitSystem): void;
-  format(kind: QuantityKind, si: number | null | undefined, options?: { unit?: boolean; digits?: number }): string;
+  format(kind: QuantityKind, si: number | null | undefined, options?: { unit?: boolean; digits?: number; exact?: boolean }): string;
   label(kind: QuantityKind): string;
 }
 

@@ -41,6 +41,25 @@ describe('POST /api/evaluate', () => {
     expect((await agent.post('/api/evaluate').send({ loadCase: viewport })).status).toBe(200);
   });
 
+  it('says which published sets the filters left out and why, with counts that add up to the catalogue', async () => {
+    const res = await engineer.post('/api/evaluate').send({ loadCase: viewport, filters: { transparent: true, coversTemperature: true } });
+    expect(res.status).toBe(200);
+    const excluded = res.body.excluded as { reason: string; count: number; names: string[] }[];
+    const left = excluded.reduce((n, x) => n + x.count, 0);
+    expect(res.body.total + left).toBe(catalogue.length);
+    const opaque = catalogue.filter((s) => !s.material.transparent).length;
+    expect(excluded.find((x) => x.reason === 'transparency')?.count).toBe(opaque);
+    // Transparent sets whose service range does not reach down to 2 °C or up to 25 °C are named.
+    const outOfRange = catalogue.filter((s) => s.material.transparent && (s.serviceTemperature.min > 2 || s.serviceTemperature.max < 25));
+    expect(outOfRange.length).toBeGreaterThan(0);
+    const range = excluded.find((x) => x.reason === 'service-range');
+    expect(range?.count).toBe(outOfRange.length);
+    expect([...range!.names].sort()).toEqual(outOfRange.map((s) => `${s.material.name} (${s.condition})`).sort());
+    // Named candidates are never "excluded".
+    const named = await engineer.post('/api/evaluate').send({ loadCase: viewport, candidates: [{ propertySetId: catalogue[0].id }] });
+    expect(named.body.excluded).toEqual([]);
+  });
+
   it('evaluates the whole published catalogue, best first, with every mode named and sourced', async () => {
     const res = await engineer.post('/api/evaluate').send({ loadCase: viewport });
     expect(res.status).toBe(200);
@@ -49,7 +68,10 @@ describe('POST /api/evaluate', () => {
     // the lean form unpacks to it but for the rounding to 6 significant digits.
     const fullForm = await engineer.post('/api/evaluate').send({ loadCase: viewport, form: 'full' });
     const { pressure, results, total } = fullForm.body as EvaluateResult;
-    expect(full(res)).toEqual(roundedLikeLean(fullForm.body));
+    const { excluded, ...fullResult } = fullForm.body as EvaluateResult & { excluded: unknown[] };
+    expect(full(res)).toEqual(roundedLikeLean(fullResult));
+    // Both forms say what the filters left out, in the same words.
+    expect(res.body.excluded).toEqual(excluded);
     expect(JSON.stringify(fullForm.body).length).toBeGreaterThan(2 * JSON.stringify(res.body).length);
     // Sea pressure at 1,200 m must exceed plain ρgh with 1025 kg/m³ and g = 9.80665 (compressibility; common practice).
     expect(pressure).toBeGreaterThan(1025 * 9.80665 * 1200);

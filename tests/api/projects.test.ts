@@ -171,6 +171,23 @@ describe('shortlists and sign-off', () => {
     expect((await engineer.get(`/api/projects/${project.id}`)).body.name).toBe(both.find((r) => r.status === 200)!.body.name);
   });
 
+  it('lists a submitted shortlist as waiting for the member checker (with the candidates below target) until it is checked', async () => {
+    const sl = await shortlistReady();
+    const waiting = async () => (await checker.get('/api/shortlists/awaiting-check').expect(200)).body.items as { id: number; itemCount: number; belowTarget: string[]; project: { id: number } }[];
+    expect((await waiting()).some((w) => w.id === sl.id)).toBe(false);
+    const s = await engineer.post(`/api/shortlists/${sl.id}/submit`).send({ lockVersion: sl.lockVersion }).expect(200);
+    const mine = (await waiting()).find((w) => w.id === sl.id);
+    expect(mine).toMatchObject({ itemCount: 2, project: { id: sl.projectId } });
+    const expected = (s.body as ShortlistDto).items.filter((i) => i.result && i.result.margin < 0).map((i) => i.result!.name);
+    expect(mine!.belowTarget).toEqual(expected);
+    expect((await engineer.get(`/api/projects/${sl.projectId}`)).body.counts.awaitingCheck).toBe(1);
+    // The author's own work never waits for them (an admin author is the case that could).
+    expect((await engineer.get('/api/shortlists/awaiting-check')).status).toBe(403);
+    await checker.post(`/api/shortlists/${sl.id}/check`).send({ lockVersion: s.body.lockVersion }).expect(200);
+    expect((await waiting()).some((w) => w.id === sl.id)).toBe(false);
+    expect((await engineer.get(`/api/projects/${sl.projectId}`)).body.counts).toMatchObject({ awaitingCheck: 0, checked: 1 });
+  });
+
   it('never lets the author check their own shortlist, and only a checker who is a member', async () => {
     const sl = await shortlistReady();
     const submitted = await engineer.post(`/api/shortlists/${sl.id}/submit`).send({ lockVersion: sl.lockVersion });
@@ -258,7 +275,7 @@ describe('shortlists and sign-off', () => {
     const { pages, text } = await pdfText(res.body as Buffer);
     expect(pages).toBeGreaterThanOrEqual(1);
     const governing = checked.body.items[0].result.governingMode as string;
-    expect(text).toContain('Governing mode');
+    expect(text).toContain('Governed by');
     expect(text.toLowerCase()).toContain(governing);
     expect(text).toContain(acrylic[0].reference!.title.slice(0, 30));
     expect(text).toContain('screening estimates for qualified engineers');

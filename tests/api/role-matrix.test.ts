@@ -304,6 +304,7 @@ const TABLE: Record<string, Entry> = {
       return { path: `/api/load-cases/${lc.id}`, body: { lockVersion: lc.lockVersion, name: unique('Side port, revised'), loadCase: LOAD_CASE, notes: '' } };
     },
   },
+  'GET /api/shortlists/awaiting-check': { build: async () => ({ path: '/api/shortlists/awaiting-check' }) },
   'GET /api/shortlists/:id': { build: async () => ({ path: `/api/shortlists/${f.shortlistId}` }), except: { librarian: 404 } },
   'POST /api/shortlists/:id/items': {
     ok: 201,

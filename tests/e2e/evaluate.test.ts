@@ -34,12 +34,13 @@ describe('Evaluate journey in chromium', () => {
     expect(await page.getByTestId('mode-transitions').textContent()).toMatch(/governs across this range|gives way to/);
   });
 
-  it('shows field errors and keeps the last table when the thickness is negative', async () => {
+  it('shows field errors and keeps the last table, marked as not for these inputs, when the thickness is negative', async () => {
     const { page } = s;
     await page.getByLabel(/^Thickness/).fill('-5');
     await page.getByRole('button', { name: 'Evaluate candidates' }).click();
     expect(await page.getByText('Thickness must be at least').isVisible()).toBe(true);
     expect(await page.getByRole('table', { name: 'Ranked candidates' }).isVisible()).toBe(true);
+    expect(await page.getByTestId('stale-results').textContent()).toContain('Inputs changed — evaluate again');
   });
 
   it('re-evaluates a clamped flat disc and opens a candidate’s modes', async () => {

@@ -7,9 +7,9 @@ import type { Role } from '../../shared/schemas/auth';
 
 export type Agent = ReturnType<typeof request.agent>;
 
-/** A fresh, seeded test database and an app bound to it, for one test file. */
-export async function startTestApp(): Promise<AppHandle & { stop(): Promise<void> }> {
-  await resetDatabase();
+/** A fresh, seeded test database and an app bound to it, for one test file; `demoProject` adds the Harrow Sound demo projects. */
+export async function startTestApp(options: { demoProject?: boolean } = {}): Promise<AppHandle & { stop(): Promise<void> }> {
+  await resetDatabase(options);
   const handle = createApp();
   await handle.ready;
   return {

@@ -29,10 +29,10 @@ export interface BrowserSession {
 }
 
 /** The built client and the API on a free loopback port, and Debian's chromium driving it. */
-export async function startBrowserSession(): Promise<BrowserSession> {
+export async function startBrowserSession(options: { demoProject?: boolean } = {}): Promise<BrowserSession> {
   if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: run npm test, which installs Debian's chromium`);
   if (!existsSync(path.resolve('dist/index.html'))) throw new Error('dist/ is missing: run npm test, which builds the client');
-  const handle = await startTestApp();
+  const handle = await startTestApp(options);
   const server: Server = createServer(handle.app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
   const baseUrl = `http://localhost:${(server.address() as AddressInfo).port}`;

@@ -36,8 +36,10 @@ export function evaluateRouter(): Router {
       req,
       res,
       await cachedJson(cache, key, async () => {
-        const result = await evaluateLoadCase(request, caller);
-        return request.form === 'full' ? result : packEvaluation(result);
+        const answer = await evaluateLoadCase(request, caller);
+        if (request.form === 'full') return answer;
+        const { excluded, ...result } = answer;
+        return { ...packEvaluation(result), excluded };
       }),
     );
   });

@@ -1,29 +1,45 @@
-import { evaluate, pressureFromDepth, type CandidateMaterial, type EvaluateResult } from '../../../shared/engine';
-import type { EvaluateRequest, PressureQuery } from '../../../shared/schemas/evaluate';
+import { evaluate, pressureFromDepth, type CandidateMaterial } from '../../../shared/engine';
+import { EXCLUDED_NAMES_SHOWN, type EvaluateAnswerDto, type EvaluateRequest, type ExclusionDto, type ExclusionReason, type PressureQuery } from '../../../shared/schemas/evaluate';
 import { AppError, badRequest, type FieldErrors } from '../../errors';
 import { candidateForSet, publishedCatalogue, type CatalogueEntry } from '../property-sets/snapshot';
 import { getPropertySet, type Caller } from '../property-sets/service';
 
-function matchesFilters(entry: CatalogueEntry, req: EvaluateRequest): boolean {
+/** The first filter that leaves this set out, or null when it stays in. */
+function exclusionOf(entry: CatalogueEntry, req: EvaluateRequest): ExclusionReason | null {
   const f = req.filters;
-  if (!f) return true;
+  if (!f) return null;
   const { material, serviceTemperature } = entry.set;
-  if (f.family && material.family !== f.family) return false;
-  if (f.transparent !== undefined && material.transparent !== f.transparent) return false;
+  if (f.family && material.family !== f.family) return 'family';
+  if (f.transparent !== undefined && material.transparent !== f.transparent) return 'transparency';
   if (f.coversTemperature) {
     const t = req.loadCase.temperature;
-    if (serviceTemperature.min > t.min || serviceTemperature.max < t.max) return false;
+    if (serviceTemperature.min > t.min || serviceTemperature.max < t.max) return 'service-range';
   }
   const inputs = entry.candidate.inputs;
-  if (f.confirmedOnly && inputs && inputs.confirmed < inputs.total) return false;
-  if (f.excludeDemo && inputs?.demo) return false;
-  return true;
+  if (f.confirmedOnly && inputs && inputs.confirmed < inputs.total) return 'unconfirmed';
+  if (f.excludeDemo && inputs?.demo) return 'demo';
+  return null;
 }
 
 /** Candidates named in the request: catalogue ids (published, or any set the caller may read) and inline materials. */
-async function resolveCandidates(req: EvaluateRequest, caller: Caller): Promise<CandidateMaterial[]> {
+async function resolveCandidates(req: EvaluateRequest, caller: Caller): Promise<{ candidates: CandidateMaterial[]; excluded: ExclusionDto[] }> {
   const catalogue = await publishedCatalogue();
-  if (!req.candidates) return catalogue.filter((e) => matchesFilters(e, req)).map((e) => e.candidate);
+  if (!req.candidates) {
+    const kept: CandidateMaterial[] = [];
+    const left = new Map<ExclusionReason, ExclusionDto>();
+    for (const e of catalogue) {
+      const reason = exclusionOf(e, req);
+      if (reason === null) {
+        kept.push(e.candidate);
+        continue;
+      }
+      const x = left.get(reason) ?? { reason, count: 0, names: [] };
+      x.count++;
+      if (x.names.length < EXCLUDED_NAMES_SHOWN) x.names.push(e.candidate.name);
+      left.set(reason, x);
+    }
+    return { candidates: kept, excluded: [...left.values()] };
+  }
 
   const byId = new Map(catalogue.map((e) => [e.set.id, e.candidate]));
   const fields: FieldErrors = {};
@@ -46,12 +62,12 @@ async function resolveCandidates(req: EvaluateRequest, caller: Caller): Promise<
     }
   }
   if (Object.keys(fields).length) throw badRequest('Some candidates could not be found.', fields);
-  return resolved;
+  return { candidates: resolved, excluded: [] };
 }
 
-export async function evaluateLoadCase(req: EvaluateRequest, caller: Caller): Promise<EvaluateResult> {
-  const candidates = await resolveCandidates(req, caller);
-  return evaluate({ loadCase: req.loadCase, candidates, limit: req.limit, sortBy: req.sortBy, coveredFirst: req.coveredFirst });
+export async function evaluateLoadCase(req: EvaluateRequest, caller: Caller): Promise<EvaluateAnswerDto> {
+  const { candidates, excluded } = await resolveCandidates(req, caller);
+  return { ...evaluate({ loadCase: req.loadCase, candidates, limit: req.limit, sortBy: req.sortBy, coveredFirst: req.coveredFirst }), excluded };
 }
 
 export function pressureAt(q: PressureQuery) {

@@ -55,6 +55,7 @@ export function loadCasesRouter(): Router {
 
 export function shortlistsRouter(): Router {
   const r = Router();
+  r.get('/awaiting-check', authorize('shortlist:check'), async (req, res) => res.json({ items: await shortlists.awaitingCheck(actor(req)) }));
   r.get('/:id', authorize('project:read'), async (req, res) => res.json(await shortlists.getShortlist(actor(req), idParam(req))));
   r.post('/:id/items', authorize('project:write'), async (req, res) => res.status(201).json(await shortlists.addItem(actor(req), idParam(req), parse(shortlistItemAddSchema, req.body, 'item'))));
   r.patch('/:id/items/:itemId', authorize('project:write'), async (req, res) =>

@@ -30,6 +30,7 @@ async function projectDto(project: Project, transaction?: Transaction): Promise<
   const loadCases = await LoadCaseRecord.count({ where: { projectId: project.id }, transaction });
   const shortlists = await Shortlist.count({ where: { projectId: project.id }, transaction });
   const checked = await Shortlist.count({ where: { projectId: project.id, status: 'checked' }, transaction });
+  const awaitingCheck = await Shortlist.count({ where: { projectId: project.id, status: 'submitted' }, transaction });
   return {
     id: project.id,
     name: project.name,
@@ -39,7 +40,7 @@ async function projectDto(project: Project, transaction?: Transaction): Promise<
     createdAt: project.createdAt.toISOString(),
     updatedAt: project.updatedAt.toISOString(),
     lockVersion: project.lockVersion,
-    counts: { loadCases, shortlists, checked },
+    counts: { loadCases, shortlists, checked, awaitingCheck },
   };
 }
 

@@ -2,8 +2,9 @@ import { Op, type Transaction } from 'sequelize';
 import type { z } from 'zod';
 import { sequelize } from '../../db/sequelize';
 import { Material, PropertySet, Reference, User } from '../../db/models';
-import { DesignRecord, LoadCaseRecord, Shortlist, ShortlistItem } from '../../db/models/projects';
+import { DesignRecord, LoadCaseRecord, Project, Shortlist, ShortlistItem } from '../../db/models/projects';
 import type {
+  AwaitingCheckDto,
   ShortlistDto,
   ShortlistItemDto,
   ShortlistSubmission,
@@ -20,7 +21,7 @@ import { AppError, badRequest, conflict, forbidden, notFound } from '../../error
 import { assertCurrent, lockCurrent, touch } from '../../services/optimistic-lock';
 import { recordAudit } from '../../services/audit';
 import { citedVersionInclude, propertySetDto } from '../property-sets/service';
-import { visibleProject, writableProject, type Actor } from './access';
+import { isAdmin, visibleProject, writableProject, type Actor } from './access';
 import { loadCaseDto, userSummary } from './service';
 
 const itemInclude = [
@@ -155,6 +156,35 @@ export async function listShortlists(actor: Actor, projectId: number): Promise<S
     designRecordId: records.find((r) => r.shortlistId === s.id)?.id ?? null,
     updatedAt: s.updatedAt.toISOString(),
   }));
+}
+
+/**
+ * Shortlists submitted by someone else in the caller's projects (every project for an admin),
+ * oldest first: what waits for the caller's check. Nobody checks their own (decision 8).
+ */
+export async function awaitingCheck(actor: Actor): Promise<AwaitingCheckDto[]> {
+  const rows = await Shortlist.findAll({
+    where: {
+      status: 'submitted',
+      authorId: { [Op.ne]: actor.id },
+      ...(isAdmin(actor) ? {} : { projectId: { [Op.in]: sequelize().literal(`(SELECT project_id FROM project_members WHERE user_id = ${Number(actor.id)})`) } }),
+    },
+    include: [{ model: User, as: 'author', attributes: ['id', 'name'] }],
+    order: [['submittedAt', 'ASC']],
+  });
+  const projects = await Project.findAll({ where: { id: { [Op.in]: [...new Set(rows.map((r) => r.projectId))] } }, attributes: ['id', 'name'] });
+  return rows.map((s) => {
+    const items = s.submission?.items ?? [];
+    return {
+      id: s.id,
+      name: s.name,
+      project: { id: s.projectId, name: projects.find((p) => p.id === s.projectId)?.name ?? '' },
+      author: { id: s.author!.id, name: s.author!.name },
+      submittedAt: (s.submittedAt ?? s.updatedAt).toISOString(),
+      itemCount: items.length,
+      belowTarget: items.filter((i) => i.result !== null && i.result.margin < 0).map((i) => i.result!.name),
+    };
+  });
 }
 
 export async function getShortlist(actor: Actor, id: number): Promise<ShortlistDto> {

@@ -1,4 +1,5 @@
 import type { LoaderFunctionArgs } from 'react-router-dom';
+import { useCan } from '@/features/auth/api/session';
 import { queryClient } from '@/lib/query-client';
 import { propertySetsQueryOptions } from '@/features/catalogue/api/property-sets';
 import { filtersFromSearch, serverFilters } from '@/features/catalogue/filters';
@@ -10,4 +11,6 @@ export async function loader({ request }: LoaderFunctionArgs) {
   return null;
 }
 
-export const Component = CataloguePage;
+export function Component() {
+  return <CataloguePage canEvaluate={useCan('evaluate')} />;
+}

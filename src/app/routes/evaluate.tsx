@@ -5,10 +5,13 @@ import { savedLoadCaseQueryOptions } from '@/features/evaluate/api/project-links
 import { EvaluatePage } from '@/features/evaluate/components/evaluate-page';
 import { evaluateQueryOptions } from '@/features/evaluate/api/evaluate';
 import { exampleRequest } from '@/features/evaluate/form-model';
+import { requirePermission } from './permission';
 
 // ?loadCase=<id> opens a load case saved in a project; otherwise the example load case is ranked.
 // Either way the request starts with the page, not after it renders.
 export async function loader({ request }: LoaderFunctionArgs) {
+  // A role that may not evaluate gets the refusal in place of the form, not a form that cannot work.
+  await requirePermission('evaluate');
   const raw = new URL(request.url).searchParams.get('loadCase');
   if (raw && /^[1-9]\d{0,9}$/.test(raw)) void queryClient.prefetchQuery(savedLoadCaseQueryOptions(Number(raw)));
   else if (raw === null) void queryClient.prefetchQuery(evaluateQueryOptions(exampleRequest()));

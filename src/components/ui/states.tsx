@@ -39,7 +39,7 @@ export function Panel({ title, actions, children, className = '' }: { title?: Re
   return (
     <section className={`rounded-plate bg-chart-raised shadow-plate ${className}`}>
       {title || actions ? (
-        <header className="flex items-center justify-between gap-3 border-b border-chart-line px-4 py-2.5">
+        <header className="flex flex-wrap items-center justify-between gap-3 border-b border-chart-line px-4 py-2.5">
           {title ? <h2 className="text-sm font-bold uppercase tracking-wide text-ink-soft">{title}</h2> : <span />}
           {actions}
         </header>

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_CHAMBER_PORT } from '@shared/demo-load-cases';
 import type { LoadCaseInput } from '@shared/schemas/evaluate';
-import { checkForm, convertForm, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, toRequest } from './form-model';
+import { checkForm, convertForm, DEMO_LOAD_CASE_SI, exactValues, formFromLoadCase, requestFromLoadCase, sameLoadCase, toRequest } from './form-model';
 
 describe('Evaluate form model', () => {
   it('builds the SI request from the demo load case shown in SI units (mm, m, °C)', () => {
@@ -55,15 +55,19 @@ describe('saved load cases in the Evaluate form', () => {
     expect(form).toMatchObject({ pressureMode: 'pressure', pressureValue: 0.5e6, componentType: 'flat-disc', edge: 'clamped', useFamilyTargets: false, transparent: 'true', coversTemperature: false });
     for (const system of ['SI', 'US'] as const) {
       const shown = convertForm(form, 'SI-raw', system);
-      const check = checkForm(shown, system);
+      const check = checkForm(shown, system, exactValues(shown, form));
       expect(check.ok).toBe(true);
       if (check.ok) {
         expect(sameLoadCase(check.request.loadCase, chamberPort)).toBe(true);
         expect(check.request.filters).toEqual({ transparent: true });
       }
     }
-    // 250 mm shows as 9.84252 in (NIST SP 811: 1 in = 25.4 mm exactly).
-    expect(convertForm(form, 'SI-raw', 'US').diameter).toBeCloseTo(9.84252, 5);
+    // 250 mm shows rounded as 9.843 in (NIST SP 811: 1 in = 25.4 mm exactly) and still stands for 250 mm exactly.
+    const us = convertForm(form, 'SI-raw', 'US');
+    expect(us.diameter).toBe(9.843);
+    expect(convertForm(us, 'US', 'SI-raw', exactValues(us, form)).diameter).toBe(form.diameter);
+    // A value typed anew is taken as typed.
+    expect(convertForm({ ...us, diameter: 10 }, 'US', 'SI-raw', exactValues(us, form)).diameter).toBeCloseTo(0.254, 12);
   });
 
   it('keeps the family defaults when the saved case has no target, and reads depth cases', () => {

@@ -6,9 +6,10 @@ import {
   type EvaluateRequestInput,
   type LoadCaseInput,
 } from '@shared/schemas/evaluate';
-import type { Family } from '@shared/schemas/catalogue';
+import { FAMILIES, FAMILY_LABELS, type Family } from '@shared/schemas/catalogue';
+import { DEFAULT_TARGET_SAFETY_FACTORS } from '@shared/engine/defaults';
 import { checkedFormSchema } from '@/lib/form-schema';
-import { fromDisplay, toDisplay, type QuantityKind, type UnitSystem } from '@/lib/units';
+import { PRESSURE_UNITS, roundForInput, unitOf, type PressureUnit, type QuantityKind, type UnitSystem } from '@/lib/units';
 
 /**
  * The Evaluate form holds numbers in the units shown on screen; the request is built in SI and
@@ -20,11 +21,15 @@ export interface LoadCaseForm {
   latitude: number;
   water: 'sea' | 'fresh';
   pressureValue: number;
+  /** The unit the design pressure is typed in (MPa, bar or psi, gauge), whatever the system. */
+  pressureUnit: PressureUnit;
   tmin: number;
   tmax: number;
   sustainedHours: number;
   cycles: number;
   useFamilyTargets: boolean;
+  /** Each family's target while useFamilyTargets: the common-practice default unless changed. */
+  familyTargets: Record<Family, number>;
   targetSafetyFactor: number;
   proofFactor: number;
   componentType: ComponentType;
@@ -108,11 +113,13 @@ export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
   latitude: 57,
   water: 'sea',
   pressureValue: 12e6,
+  pressureUnit: 'MPa',
   tmin: 2,
   tmax: 25,
   sustainedHours: 1000,
   cycles: 2000,
   useFamilyTargets: true,
+  familyTargets: { ...DEFAULT_TARGET_SAFETY_FACTORS },
   targetSafetyFactor: 4,
   proofFactor: 1.25,
   componentType: 'conical-frustum',
@@ -149,24 +156,65 @@ export const DEMO_LOAD_CASE_SI: LoadCaseForm = {
   excludeDemo: false,
 };
 
-const round = (v: number) => (Number.isFinite(v) ? Number(v.toPrecision(6)) : v);
+/**
+ * The exact SI value behind each converted field, with the rounded number shown for it: a field
+ * still showing that number stands for the exact value, so rounding on screen never changes
+ * what is evaluated or saved.
+ */
+export type ExactValues = Partial<Record<NumericField, { shown: number; si: number }>>;
 
-/** Converts every numeric field between unit systems (SI form ⇄ display form). */
-export function convertForm(form: LoadCaseForm, from: UnitSystem | 'SI-raw', to: UnitSystem | 'SI-raw'): LoadCaseForm {
+/** The unit definition a field is shown in: the system's, or the chosen pressure unit. */
+function unitFor(field: NumericField, kind: QuantityKind, system: UnitSystem, form: LoadCaseForm) {
+  return field === 'pressureValue' ? PRESSURE_UNITS[form.pressureUnit] : unitOf(kind, system);
+}
+
+/**
+ * Converts every numeric field between unit systems (SI form ⇄ display form). Shown values are
+ * rounded to meaningful digits (roundForInput); `exact` gives back the SI value of fields left as shown.
+ */
+export function convertForm(form: LoadCaseForm, from: UnitSystem | 'SI-raw', to: UnitSystem | 'SI-raw', exact: ExactValues = {}): LoadCaseForm {
   const out = { ...form };
   for (const [field, kind] of Object.entries(FIELD_KIND) as [NumericField, QuantityKind | null][]) {
     if (!kind) continue;
-    const si = from === 'SI-raw' ? form[field] : fromDisplay(kind, from, form[field]);
-    out[field] = to === 'SI-raw' ? si : round(toDisplay(kind, to, si));
+    const kept = exact[field];
+    const si = from === 'SI-raw' ? form[field] : kept && Object.is(kept.shown, form[field]) ? kept.si : unitFor(field, kind, from, form).toSI(form[field]);
+    if (to === 'SI-raw') out[field] = si;
+    else {
+      const def = unitFor(field, kind, to, form);
+      out[field] = roundForInput(def, def.fromSI(si));
+    }
   }
   return out;
 }
 
+/** What each shown field stands for exactly (see ExactValues). */
+export function exactValues(shown: LoadCaseForm, si: LoadCaseForm): ExactValues {
+  const exact: ExactValues = {};
+  for (const [field, kind] of Object.entries(FIELD_KIND) as [NumericField, QuantityKind | null][]) {
+    if (kind && Number.isFinite(si[field])) exact[field] = { shown: shown[field], si: si[field] };
+  }
+  return exact;
+}
+
+/** The pressure typed in another unit: the number converts, the pressure stays the same. */
+export function withPressureUnit(shown: LoadCaseForm, unit: PressureUnit, exact: ExactValues = {}): LoadCaseForm {
+  if (unit === shown.pressureUnit) return shown;
+  const kept = exact.pressureValue;
+  const pa = kept && Object.is(kept.shown, shown.pressureValue) ? kept.si : PRESSURE_UNITS[shown.pressureUnit].toSI(shown.pressureValue);
+  return { ...shown, pressureUnit: unit, pressureValue: roundForInput(PRESSURE_UNITS[unit], PRESSURE_UNITS[unit].fromSI(pa)) };
+}
+
 const optionalOutOfRoundness = (f: LoadCaseForm) => (Number.isNaN(f.outOfRoundness) ? {} : { outOfRoundness: f.outOfRoundness });
 
+/** The families whose target differs from the common-practice default (only those are sent). */
+function familyTargetsOf(f: LoadCaseForm): { familyTargets?: Partial<Record<Family, number>> } {
+  const changed = FAMILIES.filter((family) => !Object.is(f.familyTargets[family], DEFAULT_TARGET_SAFETY_FACTORS[family]));
+  return changed.length ? { familyTargets: Object.fromEntries(changed.map((family) => [family, f.familyTargets[family]])) } : {};
+}
+
 /** The request in SI from the form as shown. */
-export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequestInput {
-  const f = convertForm(shown, system, 'SI-raw');
+export function toRequest(shown: LoadCaseForm, system: UnitSystem, exact: ExactValues = {}): EvaluateRequestInput {
+  const f = convertForm(shown, system, 'SI-raw', exact);
   const component =
     f.componentType === 'flat-disc'
       ? { type: 'flat-disc' as const, diameter: f.diameter, thickness: f.thickness, edge: f.edge }
@@ -209,7 +257,7 @@ export function toRequest(shown: LoadCaseForm, system: UnitSystem): EvaluateRequ
       temperature: { min: f.tmin, max: f.tmax },
       sustainedHours: f.sustainedHours,
       cycles: f.cycles,
-      ...(f.useFamilyTargets ? {} : { targetSafetyFactor: f.targetSafetyFactor }),
+      ...(f.useFamilyTargets ? familyTargetsOf(f) : { targetSafetyFactor: f.targetSafetyFactor }),
       proofFactor: f.proofFactor,
       ...(f.humanOccupancy ? { humanOccupancy: true } : {}),
       component,
@@ -268,6 +316,7 @@ const PATHS: Record<string, keyof LoadCaseForm> = {
 
 export function formFieldFor(path: string, mode: LoadCaseForm['pressureMode']): keyof LoadCaseForm | 'root' {
   if (path === 'loadCase.pressure') return mode === 'depth' ? 'depth' : 'pressureValue';
+  if (path.startsWith('loadCase.familyTargets')) return 'familyTargets';
   return PATHS[path] ?? 'root';
 }
 
@@ -276,21 +325,21 @@ export type FormCheck =
   | { ok: false; errors: Partial<Record<keyof LoadCaseForm | 'root', string>> };
 
 /** Validates the form through the shared request schema. */
-export function checkForm(shown: LoadCaseForm, system: UnitSystem): FormCheck {
-  const parsed = evaluateRequestSchema.safeParse(toRequest(shown, system));
+export function checkForm(shown: LoadCaseForm, system: UnitSystem, exact: ExactValues = {}): FormCheck {
+  const parsed = evaluateRequestSchema.safeParse(toRequest(shown, system, exact));
   if (parsed.success) return { ok: true, request: parsed.data };
   const errors: Partial<Record<keyof LoadCaseForm | 'root', string>> = {};
   for (const issue of parsed.error.issues) {
     const field = formFieldFor(issue.path.map(String).join('.'), shown.pressureMode);
-    errors[field] ??= issue.message;
+    errors[field] ??= field === 'familyTargets' ? `${FAMILY_LABELS[issue.path[2] as Family] ?? 'A family'}: ${issue.message}` : issue.message;
   }
   return { ok: false, errors };
 }
 
 /** The form's zod schema for zodResolver: the typed form in, the checked request in SI out. */
-export const loadCaseFormSchema = (system: () => UnitSystem) =>
+export const loadCaseFormSchema = (system: () => UnitSystem, exact: () => ExactValues = () => ({})) =>
   checkedFormSchema((shown: LoadCaseForm) => {
-    const check = checkForm(shown, system());
+    const check = checkForm(shown, system(), exact());
     return check.ok ? { ok: true, value: check.request } : check;
   });
 
@@ -343,6 +392,7 @@ export function formFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): Loa
     sustainedHours: lc.sustainedHours,
     cycles: lc.cycles,
     useFamilyTargets: lc.targetSafetyFactor === undefined,
+    familyTargets: { ...DEFAULT_TARGET_SAFETY_FACTORS, ...(lc.familyTargets ?? {}) },
     targetSafetyFactor: lc.targetSafetyFactor ?? DEMO_LOAD_CASE_SI.targetSafetyFactor,
     proofFactor: lc.proofFactor ?? DEFAULT_PROOF_FACTOR,
     componentType: c.type,
@@ -362,8 +412,8 @@ export function requestFromLoadCase(lc: LoadCaseInput, filters?: SavedFilters): 
   return evaluateRequestSchema.parse({ loadCase: lc, ...(filters ? { filters } : {}) });
 }
 
-// Shown values are rounded to six significant figures (convertForm), so a case that went
-// through US units and back differs from the saved one by up to 5 parts in a million.
+// Fields left as shown keep their exact SI value (ExactValues); the tolerance covers the float
+// round trips of conversions.
 const RELATIVE_TOLERANCE = 1e-5;
 
 function nearlyEqual(a: unknown, b: unknown): boolean {
@@ -377,6 +427,12 @@ function nearlyEqual(a: unknown, b: unknown): boolean {
     return ka.every((k) => nearlyEqual((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k]));
   }
   return a === b;
+}
+
+/** True when the form, checked, asks for what was evaluated (the rank order aside). */
+export function sameRequest(a: EvaluateRequest, b: EvaluateRequest): boolean {
+  const strip = ({ sortBy: _sortBy, limit: _limit, ...rest }: EvaluateRequest) => rest;
+  return nearlyEqual(strip(a), strip(b));
 }
 
 /** True when two load cases describe the same design case (unit round trips allowed for). */

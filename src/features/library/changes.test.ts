@@ -12,10 +12,12 @@ describe('review diff formatting', () => {
     expect(fieldLabel('somethingNew')).toBe('somethingNew');
   });
 
-  it('shows SI values in the chosen units: 68.9476 MPa is 10 ksi', () => {
-    expect(formatChangeValue('tensileStrength', 68.9476e6, 'SI')).toBe('68.9 MPa');
+  it('shows SI values exactly, in the chosen units: 68.9476 MPa is 10 ksi', () => {
+    // Exact, not rounded to the table's digits: a reviewer checks the value as entered.
+    expect(formatChangeValue('tensileStrength', 68.9476e6, 'SI')).toBe('68.9476 MPa');
     // 1 ksi = 6.894757 MPa (NIST SP 811, appendix B).
-    expect(formatChangeValue('tensileStrength', 68.9476e6, 'US')).toBe('10.00 ksi');
+    expect(formatChangeValue('tensileStrength', 68.9476e6, 'US')).toBe('10.0000043511 ksi');
+    expect(formatChangeValue('tensileStrength', 6.894757e7, 'US')).toBe('10.0 ksi');
     expect(formatChangeValue('serviceTemperature.min', -20, 'US')).toBe('-4 °F');
     expect(formatChangeValue('elongation', 0.045, 'SI')).toBe('4.5 %');
     expect(formatChangeValue('poissonsRatio', 0.37, 'SI')).toBe('0.37');

@@ -78,7 +78,7 @@ export function formatChangeValue(field: string, value: unknown, system: UnitSys
   if (value === null || value === undefined || value === '') return '—';
   if (isQuantity(field) && typeof value === 'number') {
     const kind = QUANTITY_KIND[field];
-    return kind ? formatQuantity(kind, system, value, { digits: kind === 'fraction' ? 1 : undefined }) : num(value, 3);
+    return kind ? formatQuantity(kind, system, value, { exact: true }) : num(value, 12);
   }
   if (/^serviceTemperature\.(min|max)$/.test(field) && typeof value === 'number') return formatQuantity('temperature', system, value);
   if (/^valueDetails\.[a-zA-Z]+\.temperature$/.test(field) && typeof value === 'number') return formatQuantity('temperature', system, value);

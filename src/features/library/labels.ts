@@ -17,11 +17,7 @@ export const STATUS_TONE: Record<PropertySetStatus, 'neutral' | 'sounding' | 'br
   retired: 'neutral',
 };
 
-const dateTime = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
-const dateOnly = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium' });
-
-export const formatDateTime = (iso: string | null | undefined) => (iso ? dateTime.format(new Date(iso)) : '—');
-export const formatDate = (iso: string | null | undefined) => (iso ? dateOnly.format(new Date(iso)) : '—');
+export { formatDate, formatDateTime } from '@/lib/dates';
 
 export function formatBytes(bytes: number): string {
   if (bytes < 1024) return `${bytes} B`;

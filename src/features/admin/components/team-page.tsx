@@ -24,6 +24,20 @@ const STATE_LABEL: Record<InvitationState, string> = { waiting: 'waiting', accep
 function UserRow({ user, self, onToggle }: { user: AdminUserDto; self: boolean; onToggle: (u: AdminUserDto) => void }) {
   const update = useUpdateUser();
   const [saved, setSaved] = useState(false);
+  // A role change takes effect at once on the account's next request: it is confirmed first.
+  const [proposed, setProposed] = useState<Role | null>(null);
+  const confirm = () => {
+    if (!proposed) return;
+    update.mutate(
+      { id: user.id, role: proposed },
+      {
+        onSuccess: () => {
+          setSaved(true);
+          setProposed(null);
+        },
+      },
+    );
+  };
   return (
     <tr className={`border-t border-chart-line/60 align-middle ${user.active ? '' : 'text-ink-faint'}`}>
       <td className="py-2 pr-3">
@@ -35,11 +49,12 @@ function UserRow({ user, self, onToggle }: { user: AdminUserDto; self: boolean; 
           label={<span className="sr-only">Role of {user.name}</span>}
           value={user.role}
           disabled={self || update.isPending}
-          error={update.isError ? errorText(update.error) : undefined}
+          error={update.isError && !proposed ? errorText(update.error) : undefined}
           hint={self ? 'Another administrator changes yours.' : saved ? 'Saved.' : undefined}
           onChange={(e) => {
             setSaved(false);
-            update.mutate({ id: user.id, role: e.target.value as Role }, { onSuccess: () => setSaved(true) });
+            update.reset();
+            setProposed(e.target.value as Role);
           }}
           wrapperClassName="w-40"
         >
@@ -56,7 +71,27 @@ function UserRow({ user, self, onToggle }: { user: AdminUserDto; self: boolean; 
           ) : null}
         </div>
       </td>
-      <td className="whitespace-nowrap py-2">{user.lastLoginAt ? formatDateTime(user.lastLoginAt) : <span className="text-ink-faint">never</span>}</td>
+      <td className="whitespace-nowrap py-2">
+        {user.lastLoginAt ? formatDateTime(user.lastLoginAt) : <span className="text-ink-faint">never</span>}
+        <ConfirmDialog
+          open={proposed !== null}
+          title={`Make ${user.name} ${proposed ? ROLE_LABELS[proposed].toLowerCase() : ''}?`}
+          confirmLabel="Change the role"
+          busy={update.isPending}
+          busyLabel="Changing…"
+          error={update.isError ? errorText(update.error) : undefined}
+          onConfirm={confirm}
+          onClose={() => {
+            setProposed(null);
+            update.reset();
+          }}
+        >
+          <p>
+            {user.name} ({user.email}) is {ROLE_LABELS[user.role].toLowerCase()} now. As {proposed ? ROLE_LABELS[proposed].toLowerCase() : ''} they can use what that role
+            allows from their next request on; the audit log records the change.
+          </p>
+        </ConfirmDialog>
+      </td>
     </tr>
   );
 }

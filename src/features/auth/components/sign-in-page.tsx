@@ -15,7 +15,7 @@ export function SignInPage() {
   const signIn = useSignIn();
   const form = useForm<LoginInput>({ resolver: zodResolver(loginSchema), defaultValues: { email: '', password: '' } });
   const next = params.get('next');
-  const safeNext = next && next.startsWith('/') && !next.startsWith('//') ? next : '/catalogue';
+  const safeNext = next && next.startsWith('/') && !next.startsWith('//') ? next : '/';
 
   const onSubmit = form.handleSubmit(async (values) => {
     try {

@@ -15,7 +15,7 @@ export function shortCitation(ref: ReferenceDto | null): string {
   return ref.year ? `${lead}, ${ref.year}` : lead;
 }
 
-export function CatalogueTable({ items }: { items: PropertySetDto[] }) {
+export function CatalogueTable({ items, requiredThickness }: { items: PropertySetDto[]; requiredThickness?: ReadonlyMap<number, number | null> }) {
   const { format, label } = useUnits();
 
   const columns = useMemo(
@@ -48,13 +48,23 @@ export function CatalogueTable({ items }: { items: PropertySetDto[] }) {
         header: `Service (${label('temperature')})`,
         cell: (c) => `${format('temperature', c.row.original.serviceTemperature.min, { unit: false })} to ${format('temperature', c.row.original.serviceTemperature.max, { unit: false })}`,
       }),
+      ...(requiredThickness
+        ? [
+            col.accessor((r) => requiredThickness.get(r.id) ?? Number.POSITIVE_INFINITY, {
+              id: 'requiredThickness',
+              header: `Required t (${label('length')})`,
+              cell: (c) => <span className="font-bold" data-testid="usable-thickness">{format('length', c.getValue(), { unit: false })}</span>,
+              meta: { numeric: true },
+            }),
+          ]
+        : []),
       col.accessor((r) => shortCitation(r.reference), {
         id: 'source',
         header: 'Source',
         cell: (c) => <span className="text-xs text-ink-soft" title={c.row.original.reference?.title}>{c.getValue()}</span>,
       }),
     ],
-    [format, label],
+    [format, label, requiredThickness],
   );
 
   const table = useSortableTable(items, columns);

@@ -9,6 +9,7 @@ import { VALUE_BASIS_LABELS } from '@shared/labels';
 import { engineInputKeys, inputStatus, inputStatusText, PROVENANCE_LABELS } from '@shared/schemas/provenance';
 import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
+import { formatDate } from '@/lib/dates';
 import { toDisplay } from '@/lib/units';
 import { RatingTableSummary, useRatingTables } from '@/features/rating-tables';
 import { ColumnHeads, numeric } from '@/components/ui/column-heads';
@@ -85,7 +86,7 @@ function SetDetail({ set }: { set: PropertySetDto }) {
         <p className="mt-1 text-xs text-ink-faint">
           {set.draftedBy ? `Drafted by ${set.draftedBy.name}. ` : 'Seeded from the project catalogue. '}
           {set.approvedBy ? `Approved by ${set.approvedBy.name}. ` : ''}
-          {set.publishedAt ? `Published ${new Date(set.publishedAt).toLocaleDateString('en-GB')}.` : ''}
+          {set.publishedAt ? `Published ${formatDate(set.publishedAt)}.` : ''}
         </p>
       </Panel>
       <Panel title="Dependence data">

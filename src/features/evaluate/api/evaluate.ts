@@ -1,8 +1,7 @@
 import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { EvaluateRequestInput } from '@shared/schemas/evaluate';
-import type { EvaluateResult } from '@shared/engine';
-import { unpackEvaluation, type LeanEvaluation } from '@shared/engine/lean';
+import { postEvaluation } from '@/lib/evaluate-client';
 import type { PropertySetDto } from '@shared/schemas/catalogue';
 
 export const evaluateKeys = {
@@ -13,8 +12,7 @@ export const evaluateKeys = {
 export const evaluateQueryOptions = (request: EvaluateRequestInput) =>
   queryOptions({
     queryKey: evaluateKeys.run(request),
-    // The answer comes lean (texts once, rows); the screens work on the full form.
-    queryFn: async (): Promise<EvaluateResult> => unpackEvaluation(await api.post<LeanEvaluation>('/evaluate', { ...request, form: 'lean' })),
+    queryFn: () => postEvaluation(request),
     staleTime: 5 * 60_000,
   });
 

@@ -1,23 +1,27 @@
-import { lazy, Suspense, useEffect, useMemo, useState } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import { Link, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { candidateFromPropertySet, type CandidateResult } from '@shared/engine';
-import type { EvaluateRequest, SORT_KEYS } from '@shared/schemas/evaluate';
+import type { EvaluateRequest, ExclusionDto, ExclusionReason, SORT_KEYS } from '@shared/schemas/evaluate';
 import type { LoadCaseDto, ShortlistDto } from '@shared/schemas/projects';
 import { Cautions } from '@/components/cautions';
 import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
 import { SelectField } from '@/components/ui/field';
+import { Button } from '@/components/ui/button';
 import { useUnits } from '@/lib/unit-system';
+import { formatPressureAll } from '@/lib/units';
 import { candidateSetQueryOptions, useEvaluation } from '../api/evaluate';
 import { useMyProjects, useSavedLoadCase } from '../api/project-links';
-import { exampleRequest, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, type LoadCaseForm } from '../form-model';
-import { LoadCaseFormPanel } from './load-case-form';
+import { exampleRequest, DEMO_LOAD_CASE_SI, formFromLoadCase, requestFromLoadCase, sameLoadCase, sameRequest, type LoadCaseForm } from '../form-model';
+import { LoadCaseFormPanel, type FormPoint } from './load-case-form';
+import type { MapPoint } from './mode-map';
 import { ResultsTable, resultKey, ModeTag } from './results-table';
 import { SaveLoadCaseDialog } from './save-load-case-dialog';
 import { ShortlistDialog } from './shortlist-dialog';
 
 const MarginChart = lazy(() => import('@/components/charts/margin-chart').then((m) => ({ default: m.MarginChart })));
 const ThicknessChart = lazy(() => import('./thickness-chart').then((m) => ({ default: m.ThicknessChart })));
+const ModeMap = lazy(() => import('./mode-map').then((m) => ({ default: m.ModeMap })));
 
 type SortKey = (typeof SORT_KEYS)[number];
 const SORT_LABELS: Record<SortKey, string> = {
@@ -36,6 +40,56 @@ function SelectedCandidate({ request, result }: { request: EvaluateRequest; resu
   return (
     <Suspense fallback={<Spinner label="Drawing…" />}>
       <ThicknessChart loadCase={request.loadCase} candidate={candidate} thickness={request.loadCase.component.thickness} requiredThickness={result.requiredThickness} />
+    </Suspense>
+  );
+}
+
+const EXCLUSION_WORDS: Record<ExclusionReason, (n: number, lc: EvaluateRequest['loadCase'], t: (c: number) => string) => string> = {
+  family: (n) => `${n} of other families (family filter)`,
+  transparency: (n) => `${n} left out by the transparency filter`,
+  'service-range': (n, lc, t) => `${n} whose service range does not cover ${t(lc.temperature.min)} to ${t(lc.temperature.max)}`,
+  unconfirmed: (n) => `${n} with inputs not confirmed against their source`,
+  demo: (n) => `${n} with demo data`,
+};
+
+/** What the filters left out and why, so a missing candidate is never a silent drop. */
+function ExcludedNote({ excluded, loadCase }: { excluded: ExclusionDto[]; loadCase: EvaluateRequest['loadCase'] }) {
+  const { format } = useUnits();
+  const total = excluded.reduce((n, x) => n + x.count, 0);
+  if (!total) return null;
+  return (
+    <details className="mb-3 text-sm" data-testid="excluded-candidates">
+      <summary className="cursor-pointer text-ink-soft">
+        <strong className="text-ink">{total}</strong> published set{total === 1 ? '' : 's'} left out by the filters:{' '}
+        {excluded.map((x) => EXCLUSION_WORDS[x.reason](x.count, loadCase, (c) => format('temperature', c))).join('; ')}.
+      </summary>
+      <ul className="mt-1 flex flex-col gap-1 pl-4 text-xs">
+        {excluded.map((x) => (
+          <li key={x.reason}>
+            <span className="font-bold">{EXCLUSION_WORDS[x.reason](x.count, loadCase, (c) => format('temperature', c))}:</span> {x.names.join('; ')}
+            {x.count > x.names.length ? ` and ${x.count - x.names.length} more` : ''}
+          </li>
+        ))}
+      </ul>
+    </details>
+  );
+}
+
+/** What set a result's required thickness, in a sentence's words. */
+function sizedByWords(s: NonNullable<CandidateResult['sizedBy']>) {
+  return s.kind === 'mode' ? <ModeTag mode={s.mode} /> : <>the rating table “{s.name}”</>;
+}
+
+/** The mode map of the selected catalogue candidate; a click hands the point to the form. */
+function SelectedModeMap({ request, result, onPick }: { request: EvaluateRequest; result: CandidateResult; onPick: (p: MapPoint) => void }) {
+  const set = useQuery({ ...candidateSetQueryOptions(result.propertySetId ?? 0), enabled: result.propertySetId !== undefined });
+  const candidate = useMemo(() => (set.data ? candidateFromPropertySet(set.data) : null), [set.data]);
+  if (result.propertySetId === undefined) return <p className="text-sm text-ink-soft">Mode maps are drawn for catalogue candidates.</p>;
+  if (set.isPending) return <Spinner label="Loading the candidate's data…" />;
+  if (set.isError || !candidate) return <ErrorState error={set.error} />;
+  return (
+    <Suspense fallback={<Spinner label="Drawing…" />}>
+      <ModeMap loadCase={request.loadCase} candidate={candidate} requiredThickness={result.requiredThickness} onPick={onPick} />
     </Suspense>
   );
 }
@@ -104,7 +158,7 @@ export function EvaluatePage({ canSave = false, meId = 0 }: { canSave?: boolean;
 }
 
 function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCaseDto | null; canSave: boolean; meId: number; onReopen: () => void }) {
-  const { format } = useUnits();
+  const { format, system } = useUnits();
   const navigate = useNavigate();
   const location = useLocation();
   const [request, setRequest] = useState<EvaluateRequest>(() => (saved ? requestFromLoadCase(saved.loadCase, saved.filters) : exampleRequest()));
@@ -118,6 +172,27 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
   const [notice, setNotice] = useState<{ text: string; shortlistId: number } | null>(null);
   const evaluation = useEvaluation(request);
   const data = evaluation.data;
+  // Whether the form still asks for what the ranking shows: 'changed' or 'invalid' dims it.
+  const [draft, setDraft] = useState<'same' | 'changed' | 'invalid'>('same');
+  const requestRef = useRef(request);
+  requestRef.current = request;
+  const onDraft = useCallback((d: EvaluateRequest | null) => setDraft(d === null ? 'invalid' : sameRequest(d, requestRef.current) ? 'same' : 'changed'), []);
+  const stale = draft !== 'same';
+  // A point picked on the mode map goes into the form (which then marks the ranking stale).
+  const [point, setPoint] = useState<FormPoint | null>(null);
+  const pickPoint = (p: MapPoint) => {
+    setPoint({ key: Date.now(), ...p });
+    document.getElementById('load-case-form')?.scrollIntoView({ block: 'nearest' });
+  };
+  // After an evaluation asked for from the form, the keyboard focus goes to its summary.
+  const summaryRef = useRef<HTMLParagraphElement>(null);
+  const focusSummary = useRef(false);
+  useEffect(() => {
+    if (focusSummary.current && data && !evaluation.isFetching) {
+      focusSummary.current = false;
+      summaryRef.current?.focus();
+    }
+  }, [data, evaluation.isFetching]);
   const hull = request.loadCase.component.type === 'sphere' || request.loadCase.component.type === 'cylinder';
   const selectedResult = data?.results.find((r) => resultKey(r) === selected) ?? data?.results[0];
 
@@ -166,7 +241,10 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
           <LoadCaseFormPanel
             initial={formValues}
             busy={evaluation.isFetching}
+            onDraft={onDraft}
+            point={point}
             onSubmit={(req, si) => {
+              focusSummary.current = true;
               setFormValues(si);
               setSelected(null);
               if (saved) setLinked(sameLoadCase(req.loadCase, saved.loadCase));
@@ -197,16 +275,28 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
         ) : null}
         {evaluation.isError ? <ErrorState error={evaluation.error} onRetry={() => void evaluation.refetch()} /> : null}
         {evaluation.isPending ? <Spinner label="Evaluating the catalogue…" /> : null}
+        {data && stale ? (
+          <div role="status" className="sticky top-0 z-10 flex flex-wrap items-center gap-3 rounded-plate border-l-4 border-verdict-watch bg-brass-light px-3 py-2 text-sm shadow-plate" data-testid="stale-results">
+            <span>
+              <strong>Inputs changed — evaluate again.</strong>{' '}
+              {draft === 'invalid' ? 'Some inputs do not check yet: fix the marked fields first. ' : ''}
+              The ranking below is for the inputs last evaluated.
+            </span>
+            <Button type="submit" form="load-case-form" tone="quiet" disabled={draft === 'invalid'}>
+              Evaluate again
+            </Button>
+          </div>
+        ) : null}
         {data ? (
-          <>
+          <div className={`flex flex-col gap-4 transition-opacity ${stale ? 'opacity-40' : ''}`} data-stale={stale} data-testid="evaluation-results">
             <Panel
               title="Ranked candidates"
               actions={
-                <div className="flex items-center gap-3">
+                <div className="flex min-w-0 max-w-full items-center gap-3">
                   {evaluation.isFetching ? <span className="text-xs text-ink-soft" role="status">Updating…</span> : null}
                   <SelectField
                     label="Rank by"
-                    wrapperClassName="w-64"
+                    wrapperClassName="w-64 max-w-full"
                     value={request.sortBy}
                     onChange={(e) => setRequest({ ...request, sortBy: e.target.value as SortKey })}
                   >
@@ -221,18 +311,20 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
                 </div>
               }
             >
-              <p className="mb-3 text-sm" data-testid="evaluation-summary">
-                Design pressure <strong>{format('pressure', data.pressure)}</strong> (proof test {format('pressure', data.proofTestPressure)}) ·{' '}
+              <p ref={summaryRef} tabIndex={-1} className="mb-3 text-sm" data-testid="evaluation-summary">
+                Design pressure <strong>{formatPressureAll(data.pressure, system === 'US' ? 'psi' : 'MPa')} gauge</strong> (proof test {format('pressure', data.proofTestPressure)}) ·{' '}
                 <span className="text-ink-soft">{data.pressureMethod}</span>
                 <br />
                 {data.total} candidate{data.total === 1 ? '' : 's'} evaluated{data.results.length < data.total ? `, best ${data.results.length} shown` : ''}.
                 {data.results[0] ? (
                   <>
                     {' '}
-                    Best: <strong>{data.results[0].name}</strong>, governed by <ModeTag mode={data.results[0].governingMode} />.
+                    Best: <strong>{data.results[0].name}</strong>, governed by <ModeTag mode={data.results[0].governingMode} />
+                    {data.results[0].sizedBy ? <>; its required thickness is set by {sizedByWords(data.results[0].sizedBy)}</> : null}.
                   </>
                 ) : null}
               </p>
+              <ExcludedNote excluded={data.excluded ?? []} loadCase={request.loadCase} />
               {data.results.length ? (
                 <ResultsTable
                   results={data.results}
@@ -257,9 +349,12 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
                 <Panel title="Where the governing mode changes">
                   {selectedResult ? <SelectedCandidate request={request} result={selectedResult} /> : null}
                 </Panel>
+                <Panel title="Where each mode governs" className="xl:col-span-2">
+                  {selectedResult ? <SelectedModeMap request={request} result={selectedResult} onPick={pickPoint} /> : null}
+                </Panel>
               </div>
             ) : null}
-          </>
+          </div>
         ) : null}
       </div>
       {canSave ? (

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { FAMILIES, FAMILY_LABELS } from '@shared/schemas/catalogue';
@@ -9,8 +9,8 @@ import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { Button } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { useUnits } from '@/lib/unit-system';
-import { fromDisplay } from '@/lib/units';
-import { convertForm, loadCaseFormSchema, type LoadCaseForm } from '../form-model';
+import { defaultPressureUnit, formatPressureAll, fromDisplay, PRESSURE_UNITS, roundForInput, toDisplay, unitOf, type PressureUnit } from '@/lib/units';
+import { checkForm, convertForm, exactValues, loadCaseFormSchema, withPressureUnit, type ExactValues, type LoadCaseForm } from '../form-model';
 import { ComponentSketch } from './component-sketch';
 
 function Fieldset({ legend, children }: { legend: string; children: React.ReactNode }) {
@@ -22,10 +22,34 @@ function Fieldset({ legend, children }: { legend: string; children: React.ReactN
   );
 }
 
+/** A point chosen elsewhere (the mode map) to load into the form, in SI; `key` makes each choice new. */
+export interface FormPoint {
+  key: number;
+  thickness?: number;
+  includedAngle?: number;
+  depth?: number;
+  pressure?: number;
+}
+
+/** Fields the sketch labels, and their kind (null: degrees). */
+const SKETCH_FIELDS = {
+  diameter: 'length',
+  minorDiameter: 'length',
+  thickness: 'length',
+  includedAngle: null,
+  innerRadius: 'length',
+  length: 'length',
+  frameSpacing: 'length',
+} as const;
+
+const HULLS: readonly LoadCaseForm['componentType'][] = ['sphere', 'cylinder', 'ring-stiffened-cylinder'];
+
 export function LoadCaseFormPanel({
   initial,
   onSubmit,
   onSave,
+  onDraft,
+  point,
   busy,
 }: {
   /** Initial values in SI. */
@@ -33,53 +57,127 @@ export function LoadCaseFormPanel({
   onSubmit: (request: EvaluateRequest, shownSI: LoadCaseForm) => void;
   /** When given, a "Save to a project" action hands over the checked form (as for onSubmit). */
   onSave?: (request: EvaluateRequest, shownSI: LoadCaseForm) => void;
+  /** Told on every change what the form now asks for: the checked request, or null while it does not check. */
+  onDraft?: (request: EvaluateRequest | null) => void;
+  /** A point to load into the form (its thickness, angle, depth or pressure). */
+  point?: FormPoint | null;
   busy: boolean;
 }) {
   const { system, label, format } = useUnits();
   const systemRef = useRef(system);
+  const exactRef = useRef<ExactValues>({});
   // The schema reads the units of the moment: the form converts what is typed when they switch.
-  const resolver = useMemo(() => zodResolver(loadCaseFormSchema(() => systemRef.current)), []);
-  const form = useForm<LoadCaseForm, unknown, EvaluateRequest>({ resolver, defaultValues: convertForm(initial, 'SI-raw', system), mode: 'onSubmit', reValidateMode: 'onChange' });
-  const { register, handleSubmit, watch, formState, reset, getValues } = form;
+  const resolver = useMemo(() => zodResolver(loadCaseFormSchema(() => systemRef.current, () => exactRef.current)), []);
+  const [defaults] = useState(() => {
+    const si = { ...initial, pressureUnit: initial.pressureUnit === 'bar' ? 'bar' : defaultPressureUnit(system) } as LoadCaseForm;
+    const shown = convertForm(si, 'SI-raw', system);
+    exactRef.current = exactValues(shown, si);
+    return shown;
+  });
+  const form = useForm<LoadCaseForm, unknown, EvaluateRequest>({ resolver, defaultValues: defaults, mode: 'onSubmit', reValidateMode: 'onChange' });
+  const { register, handleSubmit, watch, formState, reset, getValues, setValue } = form;
   const errors = formState.errors;
 
-  // Switching units converts what is typed, so the load case stays the same.
+  // Switching units converts what is typed, so the load case stays the same; fields left as shown keep their exact value.
   useEffect(() => {
     if (systemRef.current !== system) {
-      reset(convertForm(getValues(), systemRef.current, system));
+      const before = getValues();
+      const si = convertForm(before, systemRef.current, 'SI-raw', exactRef.current);
+      const unit = system === 'US' ? 'psi' : before.pressureUnit === 'psi' ? 'MPa' : before.pressureUnit;
+      const shown = convertForm({ ...si, pressureUnit: unit }, 'SI-raw', system);
+      exactRef.current = exactValues(shown, { ...si, pressureUnit: unit });
+      reset(shown, { keepDefaultValues: true });
       systemRef.current = system;
     }
   }, [system, reset, getValues]);
 
+  // A point chosen on the mode map: its values go into the form in the shown units.
+  useEffect(() => {
+    if (!point) return;
+    const shownLength = (m: number) => roundForInput(unitOf('length', systemRef.current), toDisplay('length', systemRef.current, m));
+    const opts = { shouldDirty: true } as const;
+    if (point.thickness !== undefined) setValue('thickness', shownLength(point.thickness), opts);
+    if (point.includedAngle !== undefined) setValue('includedAngle', Number(point.includedAngle.toFixed(1)), opts);
+    if (point.depth !== undefined) {
+      setValue('pressureMode', 'depth', opts);
+      setValue('depth', roundForInput(unitOf('depth', systemRef.current), toDisplay('depth', systemRef.current, point.depth)), opts);
+    }
+    if (point.pressure !== undefined) {
+      setValue('pressureMode', 'pressure', opts);
+      const unit = PRESSURE_UNITS[getValues('pressureUnit')];
+      setValue('pressureValue', roundForInput(unit, unit.fromSI(point.pressure)), opts);
+    }
+  }, [point, setValue, getValues]);
+
   const v = watch();
   const num = { valueAsNumber: true } as const;
   const err = (k: keyof LoadCaseForm) => errors[k]?.message as string | undefined;
+  // Optional fields hold NaN while empty: the input shows nothing rather than "NaN".
+  const optional = (name: 'seatOuterDiameter' | 'localRadiusRatio' | 'outOfRoundness') => {
+    const r = register(name, num);
+    return {
+      ...r,
+      ref: (el: HTMLInputElement | null) => {
+        r.ref(el);
+        if (el && el.value === 'NaN') el.value = '';
+      },
+    };
+  };
+
+  // What the form asks for now, checked by the same schema as on submit: the page marks the
+  // ranking stale when it differs, and the sketch shows only values that check.
+  const draft = checkForm(v, system, exactRef.current);
+  useEffect(() => {
+    onDraft?.(draft.ok ? draft.request : null);
+  }, [draft, onDraft]);
+
+  // A hull shell is seldom transparent: the transparency filter follows the component, unless set by hand.
+  const componentType = v.componentType;
+  const lastType = useRef(componentType);
+  useEffect(() => {
+    const was = lastType.current;
+    lastType.current = componentType;
+    if (was === componentType) return;
+    const transparent = getValues('transparent');
+    if (HULLS.includes(componentType) && !HULLS.includes(was) && transparent === 'true') setValue('transparent', '');
+    if (!HULLS.includes(componentType) && HULLS.includes(was) && transparent === '') setValue('transparent', 'true');
+  }, [componentType, getValues, setValue]);
 
   // Live design pressure from depth, by the same engine the server uses.
   let pressureReadout = '';
   if (v.pressureMode === 'depth' && Number.isFinite(v.depth) && Number.isFinite(v.latitude) && v.depth > 0 && Math.abs(v.latitude) <= 90) {
     const depthM = fromDisplay('depth', system, v.depth);
-    if (depthM <= 12_000) pressureReadout = `≈ ${format('pressure', pressureFromDepth(depthM, v.latitude, v.water).pressure)} gauge`;
+    if (depthM <= 12_000) pressureReadout = `≈ ${formatPressureAll(pressureFromDepth(depthM, v.latitude, v.water).pressure, system === 'US' ? 'psi' : 'MPa')} gauge`;
   }
 
-  const submit = handleSubmit((request) => onSubmit(request, convertForm(getValues(), system, 'SI-raw')));
+  const submit = handleSubmit((request) => onSubmit(request, convertForm(getValues(), system, 'SI-raw', exactRef.current)));
   // Saving checks the form the same way, so what is saved is what would be evaluated.
-  const save = handleSubmit((request) => onSave?.(request, convertForm(getValues(), system, 'SI-raw')));
+  const save = handleSubmit((request) => onSave?.(request, convertForm(getValues(), system, 'SI-raw', exactRef.current)));
 
   const len = label('length');
-  const sketchLabels = {
-    diameter: `${v.diameter} ${len}`,
-    minorDiameter: `${v.minorDiameter} ${len}`,
-    thickness: `${v.thickness} ${len}`,
-    includedAngle: `${v.includedAngle}°`,
-    innerRadius: `${v.innerRadius} ${len}`,
-    length: `${v.length} ${len}`,
-    frameSpacing: `${v.frameSpacing} ${len}`,
-  };
+  // Only values that pass the form's check reach the sketch, rounded as the tables round them.
+  const sketchLabels = Object.fromEntries(
+    (Object.entries(SKETCH_FIELDS) as [keyof typeof SKETCH_FIELDS, 'length' | null][]).map(([field, kind]) => {
+      const value = v[field];
+      const bad = !Number.isFinite(value) || (!draft.ok && draft.errors[field] !== undefined);
+      if (bad) return [field, '—'];
+      return [field, kind ? format('length', fromDisplay('length', system, value)) : `${Number(value.toFixed(1))}°`];
+    }),
+  ) as Record<keyof typeof SKETCH_FIELDS, string>;
   const isWindow = WINDOW_COMPONENTS.includes(v.componentType);
 
   return (
-    <form onSubmit={submit} noValidate aria-label="Load case" className="flex flex-col gap-4">
+    <form id="load-case-form" onSubmit={submit} noValidate aria-label="Load case" className="relative flex flex-col gap-4">
+      <a
+        href="#evaluate-submit"
+        className="sr-only focus:not-sr-only focus:rounded-plate focus:bg-white focus:p-2 focus:text-sm focus:font-bold focus:text-sounding"
+        onClick={(e) => {
+          e.preventDefault();
+          document.getElementById('evaluate-submit')?.focus();
+        }}
+      >
+        Skip to “Evaluate candidates”
+      </a>
       <Fieldset legend="Load">
         <div role="radiogroup" aria-label="Pressure from" className="flex gap-4 text-sm">
           <label className="flex items-center gap-1.5">
@@ -99,7 +197,28 @@ export function LoadCaseFormPanel({
             <TextField label="Latitude" unit="°" inputMode="decimal" error={err('latitude')} {...register('latitude', num)} />
           </div>
         ) : (
-          <TextField label="Design pressure" unit={label('pressure')} inputMode="decimal" error={err('pressureValue')} {...register('pressureValue', num)} />
+          <div className="grid grid-cols-[1fr_7rem] gap-2">
+            <TextField label="Design pressure" unit={`${v.pressureUnit}, gauge`} inputMode="decimal" error={err('pressureValue')} {...register('pressureValue', num)} />
+            <SelectField
+              label="Pressure unit"
+              value={v.pressureUnit}
+              onChange={(e) => {
+                const before = getValues();
+                const kept = exactRef.current.pressureValue;
+                const pa = kept && Object.is(kept.shown, before.pressureValue) ? kept.si : PRESSURE_UNITS[before.pressureUnit].toSI(before.pressureValue);
+                const next = withPressureUnit(before, e.target.value as PressureUnit, exactRef.current);
+                exactRef.current = { ...exactRef.current, pressureValue: { shown: next.pressureValue, si: pa } };
+                setValue('pressureUnit', next.pressureUnit);
+                setValue('pressureValue', next.pressureValue);
+              }}
+            >
+              {(Object.keys(PRESSURE_UNITS) as PressureUnit[]).map((u) => (
+                <option key={u} value={u}>
+                  {u}
+                </option>
+              ))}
+            </SelectField>
+          </div>
         )}
         {pressureReadout ? <p className="text-xs text-ink-soft" data-testid="pressure-readout">Design pressure {pressureReadout}</p> : null}
       </Fieldset>
@@ -116,13 +235,37 @@ export function LoadCaseFormPanel({
       <Fieldset legend="Targets">
         <label className="flex items-start gap-2 text-sm">
           <input type="checkbox" className="mt-1" {...register('useFamilyTargets')} />
-          <span>
-            Each family's default safety factor <span className="text-ink-faint">(common practice: acrylic {DEFAULT_TARGET_SAFETY_FACTORS.acrylic}, glass {DEFAULT_TARGET_SAFETY_FACTORS.glass}, titanium {DEFAULT_TARGET_SAFETY_FACTORS['titanium-alloy']} …)</span>
-          </span>
+          <span>Target safety factor by family</span>
         </label>
+        {v.useFamilyTargets ? (
+          <div data-testid="family-targets">
+            <p className="mb-1 text-xs text-ink-faint">Common-practice defaults, shown beside each; change any for this load case.</p>
+            <div className="grid grid-cols-2 gap-x-2 gap-y-1">
+              {FAMILIES.map((family) => (
+                <label key={family} className="flex items-center justify-between gap-1 text-xs">
+                  <span className="min-w-0 truncate" title={FAMILY_LABELS[family]}>
+                    {FAMILY_LABELS[family]}
+                  </span>
+                  <span className="flex items-center gap-1">
+                    <input
+                      inputMode="decimal"
+                      aria-label={`Target safety factor for ${FAMILY_LABELS[family]}`}
+                      className={`w-12 rounded-plate border bg-white px-1 py-0.5 text-right text-xs ${Object.is(v.familyTargets?.[family], DEFAULT_TARGET_SAFETY_FACTORS[family]) ? 'border-chart-line' : 'border-brass font-bold'}`}
+                      {...register(`familyTargets.${family}`, num)}
+                    />
+                    <span className="w-7 text-ink-faint" title="Common practice">
+                      {DEFAULT_TARGET_SAFETY_FACTORS[family]}
+                    </span>
+                  </span>
+                </label>
+              ))}
+            </div>
+            <FormError message={err('familyTargets')} />
+          </div>
+        ) : null}
         <div className="grid grid-cols-2 gap-2">
           {!v.useFamilyTargets ? (
-            <TextField label="Target safety factor" inputMode="decimal" error={err('targetSafetyFactor')} {...register('targetSafetyFactor', num)} />
+            <TextField label="Target safety factor" inputMode="decimal" error={err('targetSafetyFactor')} hint="One target for every candidate" {...register('targetSafetyFactor', num)} />
           ) : null}
           <TextField label="Proof-test factor" inputMode="decimal" error={err('proofFactor')} hint="Common practice 1.25–1.5" {...register('proofFactor', num)} />
         </div>
@@ -153,7 +296,7 @@ export function LoadCaseFormPanel({
                 inputMode="decimal"
                 error={err('seatOuterDiameter')}
                 hint={`Optional; a 180° (flat) seat without it bears to 1.25 × the minor diameter`}
-                {...register('seatOuterDiameter', num)}
+                {...optional('seatOuterDiameter')}
               />
             </>
           ) : null}
@@ -172,7 +315,7 @@ export function LoadCaseFormPanel({
                 <option value="fabricated">Fabricated (welded or formed)</option>
                 <option value="machined">Machined, stress-relieved</option>
               </SelectField>
-              <TextField label="Local radius ÷ R" inputMode="decimal" error={err('localRadiusRatio')} hint="Measured over an arc of 2.2√(R·t); empty: not measured" {...register('localRadiusRatio', num)} />
+              <TextField label="Local radius ÷ R" inputMode="decimal" error={err('localRadiusRatio')} hint="Measured over an arc of 2.2√(R·t); empty: not measured" {...optional('localRadiusRatio')} />
             </>
           ) : null}
           {v.componentType === 'cylinder' ? (
@@ -215,7 +358,7 @@ export function LoadCaseFormPanel({
               inputMode="decimal"
               error={err('outOfRoundness')}
               hint={v.componentType === 'cylinder' ? 'Measured oval deviation; empty: none entered' : 'Empty: 0.5 % of R (a common tolerance)'}
-              {...register('outOfRoundness', num)}
+              {...optional('outOfRoundness')}
             />
           ) : null}
           <TextField label="Thickness" unit={len} inputMode="decimal" error={err('thickness')} {...register('thickness', num)} />
@@ -262,7 +405,7 @@ export function LoadCaseFormPanel({
       </Fieldset>
 
       <FormError message={errors.root?.message} />
-      <Button type="submit" disabled={busy}>
+      <Button type="submit" id="evaluate-submit" disabled={busy}>
         {busy ? 'Evaluating…' : 'Evaluate candidates'}
       </Button>
       {onSave ? (

@@ -14,7 +14,7 @@ import { factorsText } from '@shared/labels';
 import { SortableHeader } from '@/components/ui/sortable-header';
 import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
 import { InputsMark } from '@/components/inputs-mark';
-import { splitCandidateName } from '../candidate-name';
+import { splitCandidateName } from '@shared/candidate-name';
 
 /** Rows in the first paint of the ranking; the rest render right after. */
 const FIRST_ROWS = 20;
@@ -27,26 +27,114 @@ export { ModeTag, MarginCell };
 function ModeBreakdown({ result }: { result: CandidateResult }) {
   const { format } = useUnits();
   return (
-    <div className="grid gap-3 bg-chart px-4 py-3 text-sm md:grid-cols-[2fr_1fr]">
-      <ModesTable result={result} />
-      <div className="flex flex-col gap-2">
-        <SizingSummary result={result} />
-        <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">Warnings</p>
-        {result.warnings.length ? (
-          <ul className="mt-1 list-disc pl-4 text-xs text-verdict-watch">
-            {result.warnings.map((w) => (
-              <li key={w}>{w}</li>
-            ))}
-          </ul>
-        ) : (
-          <p className="mt-1 text-xs text-ink-soft">None for this load case.</p>
-        )}
-        <p className="mt-2 text-xs text-ink-soft">
-          {factorsText(result.factors, (c) => format('temperature', c))}
-        </p>
+    <div className="flex flex-col gap-3 bg-chart px-3 py-3 text-sm" data-testid="mode-breakdown">
+      {/* The modes table scrolls on its own where the screen is narrow; the notes below always wrap. */}
+      <div className="overflow-x-auto">
+        <ModesTable result={result} />
+      </div>
+      <div className="grid gap-3 md:grid-cols-2">
+        <div className="min-w-0">
+          <SizingSummary result={result} />
+          <p className="mt-2 text-xs text-ink-soft">{factorsText(result.factors, (c) => format('temperature', c))}</p>
+        </div>
+        <div className="min-w-0">
+          <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">Warnings</p>
+          {result.warnings.length ? (
+            <ul className="mt-1 list-disc break-words pl-4 text-xs text-verdict-watch" aria-label={`Warnings for ${result.name}`}>
+              {result.warnings.map((w) => (
+                <li key={w}>{w}</li>
+              ))}
+            </ul>
+          ) : (
+            <p className="mt-1 text-xs text-ink-soft">None for this load case.</p>
+          )}
+        </div>
       </div>
     </div>
   );
+}
+
+/** The required thickness and, beneath it, what set it (a mode, or a rating table). */
+function RequiredThickness({ result, start = false }: { result: CandidateResult; start?: boolean }) {
+  const { format } = useUnits();
+  const s = result.sizedBy;
+  return (
+    <span className={`inline-flex flex-col whitespace-nowrap ${start ? 'items-start' : 'items-end'}`}>
+      <span>{result.requiredThickness === null ? 'none suffices' : format('length', result.requiredThickness, { unit: false })}</span>
+      {s === null ? null : s.kind === 'mode' ? (
+        <span className="text-xs text-ink-soft">
+          set by <ModeTag mode={s.mode} small />
+        </span>
+      ) : (
+        <span className="text-xs font-bold text-sounding" title={s.name}>
+          set by rating table
+        </span>
+      )}
+    </span>
+  );
+}
+
+function CandidateName({ result }: { result: CandidateResult }) {
+  const uncovered = result.coverage === 'not-covered';
+  const { material: head, condition: tail } = result.propertySetId ? splitCandidateName(result.name) : { material: result.name, condition: '' };
+  return (
+    <div className="min-w-[9rem] max-w-[15rem]">
+      {result.propertySetId ? (
+        <Link to={`/sets/${result.propertySetId}`} className="font-bold text-sounding hover:underline" onClick={(e) => e.stopPropagation()}>
+          {head}
+        </Link>
+      ) : (
+        <span className="font-bold">{head}</span>
+      )}
+      {tail ? <div className="text-xs text-ink-soft">{tail}</div> : null}
+      {uncovered ? <div className="text-xs font-bold text-verdict-fail">Not covered for human occupancy</div> : null}
+    </div>
+  );
+}
+
+function RowActions({ result, expanded, onShortlist, onToggle }: { result: CandidateResult; expanded: boolean; onShortlist?: (r: CandidateResult) => void; onToggle: () => void }) {
+  return (
+    <div className="flex flex-col items-stretch gap-1">
+      {onShortlist && result.propertySetId !== undefined ? (
+        <button
+          type="button"
+          aria-label={`Add ${result.name} to a shortlist`}
+          onClick={(e) => {
+            e.stopPropagation();
+            onShortlist(result);
+          }}
+          className="whitespace-nowrap rounded-plate border border-chart-line px-2 py-0.5 text-xs font-bold text-sounding hover:bg-chart-deep"
+        >
+          + Shortlist
+        </button>
+      ) : null}
+      <button
+        type="button"
+        aria-expanded={expanded}
+        aria-label={`${expanded ? 'Hide' : 'Show'} modes of ${result.name}`}
+        onClick={(e) => {
+          e.stopPropagation();
+          onToggle();
+        }}
+        className="whitespace-nowrap rounded-plate px-2 py-0.5 text-xs font-bold text-sounding hover:bg-chart-deep"
+      >
+        {expanded ? 'Less' : 'Modes'}
+      </button>
+    </div>
+  );
+}
+
+/** True while the screen is narrower than Tailwind's md breakpoint (768 px): the ranking shows as cards. */
+function useNarrow(): boolean {
+  const query = '(max-width: 767px)';
+  const [narrow, setNarrow] = useState(() => typeof window !== 'undefined' && window.matchMedia(query).matches);
+  useEffect(() => {
+    const m = window.matchMedia(query);
+    const on = () => setNarrow(m.matches);
+    m.addEventListener('change', on);
+    return () => m.removeEventListener('change', on);
+  }, []);
+  return narrow;
 }
 
 export function ResultsTable({
@@ -64,6 +152,7 @@ export function ResultsTable({
   onShortlist?: (result: CandidateResult) => void;
 }) {
   const { format, label } = useUnits();
+  const narrow = useNarrow();
   const [sorting, setSorting] = useState<SortingState>([]);
   const [open, setOpen] = useState<Set<string>>(new Set());
   const data = useMemo(() => results.map((r, i) => ({ ...r, rank: i + 1 })), [results]);
@@ -71,28 +160,7 @@ export function ResultsTable({
   const columns = useMemo(
     () => [
       col.accessor('rank', { header: '#', meta: { numeric: true } }),
-      col.accessor('name', {
-        header: 'Candidate',
-        cell: (c) => {
-          // Catalogue names read "Material (condition)": show the condition on its own line.
-          const name = c.getValue();
-          const uncovered = c.row.original.coverage === 'not-covered';
-          const { material: head, condition: tail } = c.row.original.propertySetId ? splitCandidateName(name) : { material: name, condition: '' };
-          return (
-            <div className="min-w-[13rem] max-w-[20rem]">
-              {c.row.original.propertySetId ? (
-                <Link to={`/sets/${c.row.original.propertySetId}`} className="font-bold text-sounding hover:underline" onClick={(e) => e.stopPropagation()}>
-                  {head}
-                </Link>
-              ) : (
-                <span className="font-bold">{head}</span>
-              )}
-              {tail ? <div className="text-xs text-ink-soft">{tail}</div> : null}
-              {uncovered ? <div className="text-xs font-bold text-verdict-fail">Not covered for human occupancy</div> : null}
-            </div>
-          );
-        },
-      }),
+      col.accessor('name', { header: 'Candidate', cell: (c) => <CandidateName result={c.row.original} /> }),
       col.accessor((r) => (r.inputs ? r.inputs.confirmed / Math.max(r.inputs.total, 1) : -1), {
         id: 'inputs',
         header: 'Inputs confirmed',
@@ -124,17 +192,8 @@ export function ResultsTable({
       col.accessor((r) => r.requiredThickness ?? Number.POSITIVE_INFINITY, {
         id: 'requiredThickness',
         header: `Required t (${label('length')})`,
-        cell: (c) => (c.row.original.requiredThickness === null ? 'none suffices' : format('length', c.row.original.requiredThickness, { unit: false })),
+        cell: (c) => <RequiredThickness result={c.row.original} />,
         meta: { numeric: true },
-      }),
-      col.accessor((r) => (r.sizedBy === null ? '' : r.sizedBy.kind === 'mode' ? r.sizedBy.mode : 'table'), {
-        id: 'sizedBy',
-        header: 'Sized by',
-        cell: (c) => {
-          const s = c.row.original.sizedBy;
-          if (s === null) return <span className="text-ink-faint">—</span>;
-          return s.kind === 'mode' ? <ModeTag mode={s.mode} /> : <span className="text-xs font-bold text-sounding" title={s.name}>Rating table</span>;
-        },
       }),
       col.accessor((r) => r.massPerArea ?? Number.POSITIVE_INFINITY, {
         id: 'massPerArea',
@@ -146,7 +205,7 @@ export function ResultsTable({
         ? [
             col.accessor((r) => r.weightToDisplacement ?? Number.POSITIVE_INFINITY, {
               id: 'weightToDisplacement',
-              header: 'Weight / displacement',
+              header: 'Weight / displace\u00adment',
               cell: (c) => (c.row.original.weightToDisplacement === null ? '—' : c.row.original.weightToDisplacement.toFixed(2)),
               meta: { numeric: true },
             }),
@@ -155,7 +214,7 @@ export function ResultsTable({
       col.accessor((r) => r.warnings.length, {
         id: 'warnings',
         header: 'Warnings',
-        cell: (c) => (c.getValue() ? <span className="font-bold text-verdict-watch">⚠ {c.getValue()}</span> : <span className="text-ink-faint">—</span>),
+        cell: (c) => (c.getValue() ? <span className="whitespace-nowrap font-bold text-verdict-watch">⚠ {c.getValue()}</span> : <span className="text-ink-faint">—</span>),
         meta: { numeric: true },
       }),
     ],
@@ -179,67 +238,109 @@ export function ResultsTable({
       return next;
     });
 
+  const rows = table.getRowModel().rows.slice(0, painted);
+
+  if (narrow) {
+    // On a phone: one card per candidate with every figure the table has, labelled.
+    return (
+      <ol className="flex flex-col gap-2" aria-label="Ranked candidates">
+        {rows.map((row) => {
+          const r = row.original;
+          const key = resultKey(r);
+          const expanded = open.has(key);
+          return (
+            <li
+              key={key}
+              className={`rounded-plate border border-chart-line p-3 ${selectedKey === key ? 'bg-sounding-light/70' : 'bg-chart-raised'}`}
+              onClick={() => onSelect(key)}
+              data-testid="result-card"
+            >
+              <div className="flex items-start justify-between gap-2">
+                <div className="flex min-w-0 gap-2">
+                  <span className="font-bold text-ink-soft">{r.rank}.</span>
+                  <CandidateName result={r} />
+                </div>
+                <RowActions result={r} expanded={expanded} onShortlist={onShortlist} onToggle={() => (toggle(key), onSelect(key))} />
+              </div>
+              <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
+                <dt className="text-xs text-ink-soft">Governed by</dt>
+                <dd>
+                  <ModeTag mode={r.governingMode} />
+                </dd>
+                <dt className="text-xs text-ink-soft">Safety factor / target</dt>
+                <dd>
+                  {r.safetyFactor.toFixed(2)} <span className="text-xs text-ink-faint">/ {r.targetSafetyFactor}</span>
+                </dd>
+                <dt className="text-xs text-ink-soft">Margin</dt>
+                <dd>
+                  <MarginCell margin={r.margin} />
+                </dd>
+                <dt className="text-xs text-ink-soft">Required t ({label('length')})</dt>
+                <dd>
+                  <RequiredThickness result={r} start />
+                </dd>
+                <dt className="text-xs text-ink-soft">Mass ({label('massPerArea')})</dt>
+                <dd>{format('massPerArea', r.massPerArea, { unit: false })}</dd>
+                {hull ? (
+                  <>
+                    <dt className="text-xs text-ink-soft">Weight / displacement</dt>
+                    <dd>{r.weightToDisplacement === null ? '—' : r.weightToDisplacement.toFixed(2)}</dd>
+                  </>
+                ) : null}
+                <dt className="text-xs text-ink-soft">Inputs confirmed</dt>
+                <dd>
+                  <InputsMark inputs={r.inputs} />
+                </dd>
+                <dt className="text-xs text-ink-soft">Warnings</dt>
+                <dd>{r.warnings.length ? <span className="font-bold text-verdict-watch">⚠ {r.warnings.length}</span> : '—'}</dd>
+              </dl>
+              {expanded ? (
+                <div className="mt-2">
+                  <ModeBreakdown result={r} />
+                </div>
+              ) : null}
+            </li>
+          );
+        })}
+      </ol>
+    );
+  }
+
   return (
-    <div className="overflow-x-auto">
+    <div className="overflow-x-auto" data-testid="ranked-table-box">
       <table className="w-full text-sm" aria-label="Ranked candidates">
         <thead className="border-b border-chart-line text-left">
           {table.getHeaderGroups().map((hg) => (
             <tr key={hg.id}>
               {hg.headers.map((h) => (
-                <SortableHeader key={h.id} header={h} numeric={!!(h.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric}>
+                <SortableHeader key={h.id} header={h} wrap numeric={!!(h.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric}>
                   {flexRender(h.column.columnDef.header, h.getContext())}
                 </SortableHeader>
               ))}
-              <th className="sticky right-0 bg-chart-raised px-2">
+              <th scope="col" className="px-2">
                 <span className="sr-only">Actions</span>
               </th>
             </tr>
           ))}
         </thead>
         <tbody>
-          {table.getRowModel().rows.slice(0, painted).map((row) => {
+          {rows.map((row) => {
             const key = resultKey(row.original);
             const expanded = open.has(key);
             return (
               <Fragment key={key}>
                 <tr
-                  className={`cursor-pointer border-b border-chart-line/60 ${selectedKey === key ? 'bg-sounding-light/70' : 'hover:bg-chart-deep/40'}`}
+                  className={`cursor-pointer border-b border-chart-line/60 align-top ${selectedKey === key ? 'bg-sounding-light/70' : 'hover:bg-chart-deep/40'}`}
                   onClick={() => onSelect(key)}
                   aria-selected={selectedKey === key}
                 >
                   {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className={`px-3 py-2 ${(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? 'text-right' : ''}`}>
+                    <td key={cell.id} className={`px-2 py-2 ${(cell.column.columnDef.meta as { numeric?: boolean } | undefined)?.numeric ? 'text-right' : ''}`}>
                       {flexRender(cell.column.columnDef.cell, cell.getContext())}
                     </td>
                   ))}
-                  {/* Kept in view at the right edge while the wide table scrolls sideways. */}
-                  <td className={`sticky right-0 whitespace-nowrap px-2 ${selectedKey === key ? 'bg-sounding-light' : 'bg-chart-raised'}`}>
-                    {onShortlist && row.original.propertySetId !== undefined ? (
-                      <button
-                        type="button"
-                        aria-label={`Add ${row.original.name} to a shortlist`}
-                        onClick={(e) => {
-                          e.stopPropagation();
-                          onShortlist(row.original);
-                        }}
-                        className="mr-1 rounded-plate border border-chart-line px-2 py-0.5 text-xs font-bold text-sounding hover:bg-chart-deep"
-                      >
-                        + Shortlist
-                      </button>
-                    ) : null}
-                    <button
-                      type="button"
-                      aria-expanded={expanded}
-                      aria-label={`${expanded ? 'Hide' : 'Show'} modes of ${row.original.name}`}
-                      onClick={(e) => {
-                        e.stopPropagation();
-                        toggle(key);
-                        onSelect(key);
-                      }}
-                      className="rounded-plate px-2 py-0.5 text-xs font-bold text-sounding hover:bg-chart-deep"
-                    >
-                      {expanded ? 'Less' : 'Modes'}
-                    </button>
+                  <td className="px-2 py-1.5">
+                    <RowActions result={row.original} expanded={expanded} onShortlist={onShortlist} onToggle={() => (toggle(key), onSelect(key))} />
                   </td>
                 </tr>
                 {expanded ? (

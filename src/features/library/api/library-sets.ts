@@ -83,3 +83,32 @@ export function useSetStep() {
     },
   });
 }
+
+/** Outcome of submitting several drafts: each is its own step (its own lock and audit entry). */
+export interface BulkSubmitResult {
+  submitted: number[];
+  failed: { id: number; title: string; message: string }[];
+}
+
+/**
+ * Submits drafts for review one after another, as the set page would one by one; a refusal
+ * (stale, incomplete) is reported for that draft and the rest go on.
+ */
+export function useBulkSubmit() {
+  const settle = useSettle();
+  return useMutation({
+    mutationFn: async (sets: readonly LibrarySetDto[]): Promise<BulkSubmitResult> => {
+      const result: BulkSubmitResult = { submitted: [], failed: [] };
+      for (const set of sets) {
+        try {
+          await api.post<LibrarySetDto>(`/library/sets/${set.id}/submit`, { lockVersion: set.lockVersion });
+          result.submitted.push(set.id);
+        } catch (err) {
+          result.failed.push({ id: set.id, title: `${set.material.name} — ${set.condition}`, message: err instanceof Error ? err.message : 'The server did not answer.' });
+        }
+      }
+      return result;
+    },
+    onSettled: () => settle(),
+  });
+}

@@ -4,8 +4,10 @@ import type { LibrarySetDto, PendingReferenceVersionDto } from '@shared/schemas/
 import type { SessionUserDto } from '@shared/schemas/auth';
 import { TextField } from '@/components/ui/field';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
-import { useLibrarySets, usePublishedSets } from '../api/library-sets';
+import { useBulkSubmit, useLibrarySets, usePublishedSets } from '../api/library-sets';
 import { useProposedVersions } from '../api/references';
+import { Button } from '@/components/ui/button';
+import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { STATUS_LABELS, STATUS_TONE, formatDateTime } from '../labels';
 import { isOwnWork } from './review-panel';
 import { LinkButton } from '@/components/ui/link-button';
@@ -19,11 +21,30 @@ const setLink = (s: { id: number; material: { name: string }; condition: string 
   </Link>
 );
 
-function SetTable({ label, items, columns }: { label: string; items: LibrarySetDto[]; columns: { header: string; cell: (s: LibrarySetDto) => ReactNode }[] }) {
+function SetTable({
+  label,
+  items,
+  columns,
+  selection,
+}: {
+  label: string;
+  items: LibrarySetDto[];
+  columns: { header: string; cell: (s: LibrarySetDto) => ReactNode }[];
+  /** Tick boxes for choosing rows (bulk submit). */
+  selection?: { selected: ReadonlySet<number>; toggle: (id: number) => void; toggleAll: () => void };
+}) {
+  const tickAll = selection ? (
+    <input type="checkbox" aria-label="Choose every draft" checked={items.length > 0 && items.every((s) => selection.selected.has(s.id))} onChange={selection.toggleAll} />
+  ) : null;
   return (
-    <PlainTable label={label} columns={['Material and condition', ...columns.map((c) => c.header)]}>
+    <PlainTable label={label} columns={[...(tickAll ? [{ label: tickAll, className: 'w-6 pr-2' }] : []), 'Material and condition', ...columns.map((c) => c.header)]}>
       {items.map((s) => (
         <tr key={s.id} className="border-t border-chart-line/60 align-top">
+          {selection ? (
+            <td className="py-1.5 pr-2">
+              <input type="checkbox" aria-label={`Choose ${s.material.name} — ${s.condition}`} checked={selection.selected.has(s.id)} onChange={() => selection.toggle(s.id)} />
+            </td>
+          ) : null}
           <td className="py-1.5 pr-3">{setLink(s)}</td>
           {columns.map((c) => (
             <td key={c.header} className="py-1.5 pr-3">
@@ -41,40 +62,85 @@ const ownChange = (v: PendingReferenceVersionDto, me: SessionUserDto) => v.draft
 /** Proposed changes to references in use: the version, what it changes, and who proposed it. */
 function ReferenceChangeTable({ label, items }: { label: string; items: PendingReferenceVersionDto[] }) {
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full text-sm" aria-label={label}>
-        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-          <tr>
-            <th scope="col" className="py-1 pr-3">Reference</th>
-            <th scope="col" className="py-1 pr-3">Changes</th>
-            <th scope="col" className="py-1 pr-3">Proposed by</th>
-            <th scope="col" className="py-1 pr-3">Status</th>
-          </tr>
-        </thead>
-        <tbody>
-          {items.map((v) => (
-            <tr key={v.id} className="border-t border-chart-line/60 align-top">
-              <td className="py-1.5 pr-3">
-                <Link to={`/library/references/${v.referenceId}`} className="font-bold text-sounding hover:underline">
-                  {v.current.title}
-                </Link>
-                <span className="block text-xs text-ink-soft">
-                  version {v.current.version} → {v.version}
-                </span>
-              </td>
-              <td className="py-1.5 pr-3 text-xs">{v.changes.map((c) => c.field).join(', ') || '—'}</td>
-              <td className="py-1.5 pr-3">
-                {v.lastEditedBy?.name ?? v.draftedBy?.name ?? '—'}
-                {v.submittedAt ? <span className="block text-xs text-ink-soft">{formatDateTime(v.submittedAt)}</span> : null}
-              </td>
-              <td className="py-1.5 pr-3">
-                <Tag tone={STATUS_TONE[v.status]}>{STATUS_LABELS[v.status]}</Tag>
-                {v.returnedComment && v.status === 'draft' ? <span className="block text-xs text-ink-soft">returned</span> : null}
-              </td>
-            </tr>
+    <PlainTable label={label} columns={['Reference', 'Changes', 'Proposed by', 'Status']}>
+      {items.map((v) => (
+        <tr key={v.id} className="border-t border-chart-line/60 align-top">
+          <td className="py-1.5 pr-3">
+            <Link to={`/library/references/${v.referenceId}`} className="font-bold text-sounding hover:underline">
+              {v.current.title}
+            </Link>
+            <span className="block text-xs text-ink-soft">
+              version {v.current.version} → {v.version}
+            </span>
+          </td>
+          <td className="py-1.5 pr-3 text-xs">{v.changes.map((c) => c.field).join(', ') || '—'}</td>
+          <td className="py-1.5 pr-3">
+            {v.lastEditedBy?.name ?? v.draftedBy?.name ?? '—'}
+            {v.submittedAt ? <span className="block text-xs text-ink-soft">{formatDateTime(v.submittedAt)}</span> : null}
+          </td>
+          <td className="py-1.5 pr-3">
+            <Tag tone={STATUS_TONE[v.status]}>{STATUS_LABELS[v.status]}</Tag>
+            {v.returnedComment && v.status === 'draft' ? <span className="block text-xs text-ink-soft">returned</span> : null}
+          </td>
+        </tr>
+      ))}
+    </PlainTable>
+  );
+}
+
+/** Submit the chosen drafts for review at once (after a CSV import there may be dozens). */
+function BulkSubmitBar({ drafts, selected, onDone }: { drafts: LibrarySetDto[]; selected: ReadonlySet<number>; onDone: () => void }) {
+  const bulk = useBulkSubmit();
+  const [confirming, setConfirming] = useState(false);
+  const chosen = drafts.filter((d) => selected.has(d.id));
+  const result = bulk.data;
+  return (
+    <div className="mb-3 flex flex-col gap-2">
+      <div className="flex flex-wrap items-center gap-3">
+        <Button disabled={chosen.length === 0 || bulk.isPending} onClick={() => setConfirming(true)}>
+          {chosen.length ? `Submit ${chosen.length} for review…` : 'Submit for review…'}
+        </Button>
+        <span className="text-xs text-ink-soft">Tick drafts to submit several at once; another librarian reviews each.</span>
+      </div>
+      {result ? (
+        <div role="status" className="text-sm" data-testid="bulk-submit-result">
+          {result.submitted.length} submitted for review.
+          {result.failed.length ? (
+            <ul className="mt-1 list-disc pl-5 text-verdict-fail">
+              {result.failed.map((f) => (
+                <li key={f.id}>
+                  {f.title}: {f.message}
+                </li>
+              ))}
+            </ul>
+          ) : null}
+        </div>
+      ) : null}
+      <ConfirmDialog
+        open={confirming}
+        title={`Submit ${chosen.length} draft${chosen.length === 1 ? '' : 's'} for review?`}
+        confirmLabel="Submit for review"
+        busy={bulk.isPending}
+        busyLabel="Submitting…"
+        onConfirm={() =>
+          bulk.mutate(chosen, {
+            onSuccess: () => {
+              setConfirming(false);
+              onDone();
+            },
+          })
+        }
+        onClose={() => setConfirming(false)}
+      >
+        <p>Each goes to the review queue as it is now; you cannot edit it while it waits. Drafts the server refuses stay on your desk with the reason.</p>
+        <ul className="mt-2 max-h-48 list-disc overflow-y-auto pl-5 text-sm">
+          {chosen.map((d) => (
+            <li key={d.id}>
+              {d.material.name} — {d.condition}
+            </li>
           ))}
-        </tbody>
-      </table>
+        </ul>
+      </ConfirmDialog>
     </div>
   );
 }
@@ -119,6 +185,7 @@ function PublishedSearch() {
 
 /** The library desk: what the caller is drafting, what came back, and what waits for their review. */
 export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
+  const [selected, setSelected] = useState<ReadonlySet<number>>(new Set());
   const location = useLocation();
   const navigate = useNavigate();
   // The notice is for this arrival only; a reload should not show it again.
@@ -183,15 +250,29 @@ export function LibraryHome({ me }: { me: SessionUserDto | null | undefined }) {
               ) : null}
               <Panel title={`Your drafts (${drafts.length})`}>
                 {drafts.length ? (
+                  <>
+                  <BulkSubmitBar drafts={drafts} selected={selected} onDone={() => setSelected(new Set())} />
                   <SetTable
                     label="Your drafts"
                     items={drafts}
+                    selection={{
+                      selected,
+                      toggle: (id) =>
+                        setSelected((prev) => {
+                          const next = new Set(prev);
+                          if (next.has(id)) next.delete(id);
+                          else next.add(id);
+                          return next;
+                        }),
+                      toggleAll: () => setSelected((prev) => (drafts.every((d) => prev.has(d.id)) ? new Set() : new Set(drafts.map((d) => d.id)))),
+                    }}
                     columns={[
                       { header: 'Version', cell: (s) => s.version },
                       { header: 'Last saved', cell: (s) => formatDateTime(s.updatedAt) },
                       { header: 'Source', cell: (s) => (s.reference ? <span className="text-xs">{s.reference.title}</span> : <Tag tone="fail">none yet</Tag>) },
                     ]}
                   />
+                  </>
                 ) : (
                   <EmptyState
                     title="No drafts on your desk"

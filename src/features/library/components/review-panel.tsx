@@ -3,6 +3,7 @@ import type { LibrarySetDto } from '@shared/schemas/library';
 import type { SessionUserDto } from '@shared/schemas/auth';
 import { allowedSteps, CURATED_STEPS, type CuratedStatus, type CuratedStepName, type WorkflowSubject } from '@shared/workflows/curated';
 import { Panel } from '@/components/ui/states';
+import { formatDateTime } from '@/lib/dates';
 import { WorkflowSteps } from '@/components/workflow-steps';
 import { useSetStep } from '../api/library-sets';
 
@@ -58,7 +59,7 @@ export function ReviewPanel({ set, me, onReload, onNotice }: Props) {
       <div className="flex flex-col gap-3 text-sm">
         <p>
           Submitted by <strong>{set.lastEditedBy?.name ?? set.draftedBy?.name ?? 'unknown'}</strong>
-          {set.submittedAt ? ` on ${new Date(set.submittedAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}` : ''}.
+          {set.submittedAt ? ` on ${formatDateTime(set.submittedAt)}` : ''}.
         </p>
         {blocker ? (
           <p className="rounded-plate bg-sounding-light px-3 py-2 text-sounding-dark" data-testid="four-eyes">

@@ -37,14 +37,15 @@ export function SetValues({ set, previous = null }: { set: PropertySetDto; previ
   const show = (s: PropertySetDto, q: Quantity) => {
     const v = s[q];
     const kind = QUANTITY_KIND[q];
-    return v === null || v === undefined ? '—' : kind ? format(kind, v as number) : (v as number).toFixed(3);
+    // Exact, as entered: a reviewer checks the value itself, not a rounding of it (2.35 GPa, not 2.4).
+    return v === null || v === undefined ? '—' : kind ? format(kind, v as number, { exact: true }) : String(Number((v as number).toPrecision(12)));
   };
   const detail = (s: PropertySetDto | null, q: Quantity, cell: Exclude<ValueCell, 'value'>) => {
     const d = s?.valueDetails[q];
     if (!d) return '—';
     if (cell === 'basis') return VALUE_BASIS_LABELS[d.basis];
     if (cell === 'testMethod') return d.testMethod ?? '—';
-    return d.temperature === undefined ? '—' : format('temperature', d.temperature);
+    return d.temperature === undefined ? '—' : format('temperature', d.temperature, { exact: true });
   };
   const rows = QUANTITIES.filter((q) => set[q] !== null || (previous && previous[q] !== null));
   const has = (row: Row, cell: ValueCell) => changes.get(row)?.has(cell) ?? false;
@@ -71,8 +72,8 @@ export function SetValues({ set, previous = null }: { set: PropertySetDto; previ
             </th>
             <DiffCell
               numeric
-              now={format('temperature', set.serviceTemperature[end])}
-              before={previous ? format('temperature', previous.serviceTemperature[end]) : undefined}
+              now={format('temperature', set.serviceTemperature[end], { exact: true })}
+              before={previous ? format('temperature', previous.serviceTemperature[end], { exact: true }) : undefined}
               changed={has(`serviceTemperature.${end}`, 'value')}
             />
             <td colSpan={3} />

@@ -12,6 +12,8 @@ export const projectKeys = {
 export const shortlistKeys = {
   all: ['shortlists'] as const,
   detail: (id: number) => [...shortlistKeys.all, 'detail', id] as const,
+  /** Shortlists waiting for the signed-in checker. */
+  awaitingCheck: () => [...shortlistKeys.all, 'awaiting-check'] as const,
 };
 
 export const recordKeys = {

@@ -1,6 +1,7 @@
 import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
-import type { DesignRecordDto, ShortlistDto } from '@shared/schemas/projects';
+import type { AwaitingCheckDto, DesignRecordDto, ShortlistDto } from '@shared/schemas/projects';
+import type { ItemsDto } from '@shared/schemas/responses';
 import { projectKeys, recordKeys, shortlistKeys } from './keys';
 
 export const shortlistQueryOptions = (id: number) =>
@@ -9,7 +10,11 @@ export const shortlistQueryOptions = (id: number) =>
 export const designRecordQueryOptions = (id: number) =>
   queryOptions({ queryKey: recordKeys.detail(id), queryFn: () => api.get<DesignRecordDto>(`/records/${id}`), staleTime: 60_000 });
 
+export const awaitingCheckQueryOptions = () =>
+  queryOptions({ queryKey: shortlistKeys.awaitingCheck(), queryFn: () => api.get<ItemsDto<AwaitingCheckDto>>('/shortlists/awaiting-check'), staleTime: 10_000 });
+
 export const useShortlist = (id: number) => useQuery(shortlistQueryOptions(id));
+export const useAwaitingCheck = (enabled = true) => useQuery({ ...awaitingCheckQueryOptions(), enabled });
 export const useDesignRecord = (id: number) => useQuery(designRecordQueryOptions(id));
 
 /** The link the browser follows to download a record's PDF (the session cookie goes with it). */
@@ -22,6 +27,7 @@ function useSettleShortlist() {
     qc.setQueryData(shortlistKeys.detail(shortlist.id), shortlist);
     void qc.invalidateQueries({ queryKey: projectKeys.detail(shortlist.projectId) });
     void qc.invalidateQueries({ queryKey: projectKeys.list() });
+    void qc.invalidateQueries({ queryKey: shortlistKeys.awaitingCheck() });
   };
 }
 

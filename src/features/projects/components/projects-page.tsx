@@ -59,7 +59,7 @@ export function ProjectsPage({ canCreate }: { canCreate: boolean }) {
         </EmptyState>
       ) : (
         <Panel>
-          <PlainTable label="Projects" columns={['Project', 'Owner', numeric('Members'), numeric('Load cases'), numeric('Shortlists'), numeric('Checked'), 'Updated']}>
+          <PlainTable label="Projects" columns={['Project', 'Owner', numeric('Members'), numeric('Load cases'), numeric('Shortlists'), numeric('Awaiting check'), numeric('Checked'), 'Updated']}>
             {projects.data.map((p) => (
               <tr key={p.id} className="border-t border-chart-line/60 align-top">
                 <td className="max-w-md py-2 pr-3">
@@ -72,6 +72,9 @@ export function ProjectsPage({ canCreate }: { canCreate: boolean }) {
                 <td className="py-2 pr-3 text-right">{p.members.length}</td>
                 <td className="py-2 pr-3 text-right">{p.counts.loadCases}</td>
                 <td className="py-2 pr-3 text-right">{p.counts.shortlists}</td>
+                <td className="py-2 pr-3 text-right" data-testid="awaiting-check-count">
+                  {p.counts.awaitingCheck ? <span className="font-bold text-brass">{p.counts.awaitingCheck}</span> : <span className="text-ink-faint">0</span>}
+                </td>
                 <td className="py-2 pr-3 text-right">{p.counts.checked}</td>
                 <td className="whitespace-nowrap py-2">{formatDate(p.updatedAt)}</td>
               </tr>

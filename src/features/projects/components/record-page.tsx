@@ -8,7 +8,7 @@ import { Button } from '@/components/ui/button';
 import { ErrorState, Spinner, Tag } from '@/components/ui/states';
 import { formatDateTime } from '@/lib/dates';
 import { useUnits } from '@/lib/unit-system';
-import { REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
+import { RECORD_SECTIONS, REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
 import { designRecordPdfUrl, useDesignRecord } from '../api/shortlists';
 import { LoadCaseFacts, SetName } from './bits';
 import { Rounds } from './rounds';
@@ -219,7 +219,17 @@ function RecordView({ record, canExport }: { record: DesignRecordDto; canExport:
             <a href={designRecordPdfUrl(record.id)} download className="inline-flex items-center rounded-plate bg-sounding px-3 py-1.5 text-sm font-bold text-white hover:bg-sounding-dark">
               Download PDF
             </a>
-          ) : null}
+          ) : (
+            // Shown, not hidden: a viewer learns why there is no PDF instead of finding none.
+            <span className="flex flex-col items-end gap-0.5">
+              <Button tone="quiet" disabled aria-describedby="record-pdf-refusal">
+                Download PDF
+              </Button>
+              <span id="record-pdf-refusal" className="max-w-xs text-right text-xs text-ink-soft" data-testid="record-pdf-refusal">
+                Your role can read this record but not export it; engineers, checkers and administrators can download the PDF. Print works for everyone.
+              </span>
+            </span>
+          )}
         </div>
       </div>
 
@@ -255,48 +265,50 @@ function RecordView({ record, canExport }: { record: DesignRecordDto; canExport:
         </div>
       ) : null}
 
-      <aside aria-label="Cautions" className="rounded-plate border-l-4 border-brass bg-brass-light/60 px-4 py-3 text-sm print:bg-white">
-        <strong className="mr-1">Caution.</strong>
+      <aside aria-labelledby="record-cautions" className="record-keep rounded-plate border-l-4 border-brass bg-brass-light/60 px-4 py-3 text-sm print:bg-white">
+        <h2 id="record-cautions" className="mb-1 text-sm font-bold uppercase tracking-wide text-ink-soft">
+          {RECORD_SECTIONS.cautions}
+        </h2>
         {c.cautions}
       </aside>
 
-      <Section title="Sign-off" keepTogether>
+      <Section title={RECORD_SECTIONS.signOff} keepTogether>
         <SignOff content={c} />
       </Section>
 
       {c.rounds?.length ? (
-        <Section title="Rounds of checking" keepTogether>
+        <Section title={RECORD_SECTIONS.rounds} keepTogether>
           <Rounds rounds={c.rounds} />
         </Section>
       ) : null}
 
-      <Section title="Load case" keepTogether>
+      <Section title={RECORD_SECTIONS.loadCase} keepTogether>
         <p className="mb-2 font-bold">{c.loadCase.name}</p>
         <LoadCaseFacts
           loadCase={c.loadCase.input}
           extra={[
-            { label: 'Design pressure', value: format('pressure', c.pressure) },
-            { label: 'Proof test', value: format('pressure', c.proofTestPressure) },
+            { label: 'Design pressure', value: `${format('pressure', c.pressure)} gauge` },
+            { label: 'Proof test', value: `${format('pressure', c.proofTestPressure)} gauge` },
             { label: 'Pressure method', value: c.pressureMethod },
           ]}
         />
         {c.loadCase.notes ? <p className="mt-2 whitespace-pre-line text-sm text-ink-soft">{c.loadCase.notes}</p> : null}
       </Section>
 
-      <Section title="Candidates in the author's order" keepTogether>
+      <Section title={RECORD_SECTIONS.candidates} keepTogether>
         <RankedTable content={c} />
       </Section>
 
-      <Section title="Margins by mode" className="record-chart" keepTogether>
+      <Section title={RECORD_SECTIONS.margins} className="record-chart" keepTogether>
         {/* Drawn at about the printable width of A4, so the printed chart is not scaled down. */}
         <div className="max-w-[700px]">
           <Suspense fallback={<Spinner label="Drawing…" />}>
-            <MarginChart results={results} />
+            <MarginChart results={results} pageSize={Math.max(results.length, 1)} />
           </Suspense>
         </div>
       </Section>
 
-      <Section title="Each candidate's modes, models and warnings">
+      <Section title={RECORD_SECTIONS.modes}>
         <div className="flex flex-col gap-4">
           {c.candidates.map((x, i) => (
             <CandidateModes key={x.propertySet.id} index={i} note={x.note} result={x.result} />
@@ -304,11 +316,11 @@ function RecordView({ record, canExport }: { record: DesignRecordDto; canExport:
         </div>
       </Section>
 
-      <Section title="Data sources">
+      <Section title={RECORD_SECTIONS.sources}>
         <Sources content={c} />
       </Section>
 
-      <Section title="Models used">
+      <Section title={RECORD_SECTIONS.models}>
         <ul className="list-disc pl-5 text-xs text-ink-soft">
           {c.engine.models.map((m) => (
             <li key={m}>{m}</li>

@@ -7,6 +7,7 @@ import { LinkButton } from '@/components/ui/link-button';
 import { Panel } from '@/components/ui/states';
 import { WorkflowSteps } from '@/components/workflow-steps';
 import { formatDateTime } from '@/lib/dates';
+import { formatMargin } from '@shared/labels';
 import { useShortlistStep } from '../api/shortlists';
 import { shortlistSubject, type ShortlistRights, type Viewer } from '../shortlist-model';
 import { ShortlistStatusTag } from './bits';
@@ -82,6 +83,27 @@ function UnconfirmedInputs({ items }: { items: ShortlistDto['items'] }) {
   );
 }
 
+/** What the checker would sign despite: candidates whose governing margin misses their target. */
+function BelowTarget({ items }: { items: ShortlistDto['items'] }) {
+  const below = items.filter((i) => i.result && i.result.margin < 0);
+  if (!below.length) return <p data-testid="below-target">Every candidate meets its target safety factor at the entered thickness.</p>;
+  return (
+    <div data-testid="below-target">
+      <p className="font-bold text-verdict-fail">
+        {below.length} candidate{below.length === 1 ? ' misses its' : 's miss their'} target safety factor:
+      </p>
+      <ul className="list-disc pl-5 text-sm">
+        {below.map((i) => (
+          <li key={i.id}>
+            {i.propertySet.material.name} — {i.propertySet.condition}: safety factor {i.result!.safetyFactor.toFixed(2)} against {i.result!.targetSafetyFactor} (margin{' '}
+            {formatMargin(i.result!.margin)})
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
 /** The sign-off steps of the shortlist, from the shared workflow table: submit; check or return. */
 export function SignOff({
   shortlist,
@@ -138,6 +160,7 @@ export function SignOff({
                     Checking freezes a design record: the load case, each candidate's results, the property set versions and both names, as they are now. It cannot be
                     changed afterwards. A comment is kept in the record.
                   </p>
+                  <BelowTarget items={items} />
                   <UnconfirmedInputs items={items} />
                 </>
               ) : (
