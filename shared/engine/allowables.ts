@@ -374,18 +374,19 @@ export function computeAllowables(m: CandidateMaterial, c: Conditions, warnings:
  * (or several evaluations of one catalogue) does not recompute them. The candidate objects of the
  * published catalogue live as long as its snapshot; inline candidates are collected with their request.
  */
-const REMEMBERED = new WeakMap<CandidateMaterial, { key: string; allowables: Allowables; warnings: string[] }>();
+const REMEMBERED = new WeakMap<CandidateMaterial, { min: number; max: number; hours: number; cycles: number; allowables: Allowables; warnings: string[] }>();
 
-export function allowablesFor(m: CandidateMaterial, c: Conditions, warnings: string[]): Allowables {
-  const key = `${c.temperature.min}|${c.temperature.max}|${c.sustainedHours}|${c.cycles}`;
+/** `warnings` null: the caller needs the numbers only (the ranking pass). */
+export function allowablesFor(m: CandidateMaterial, c: Conditions, warnings: string[] | null): Allowables {
+  // Compared number by number: no key is built per candidate (this runs for every candidate of every evaluation).
   const hit = REMEMBERED.get(m);
-  if (hit && hit.key === key) {
-    for (let i = 0; i < hit.warnings.length; i++) warnings.push(hit.warnings[i]);
+  if (hit && hit.min === c.temperature.min && hit.max === c.temperature.max && hit.hours === c.sustainedHours && hit.cycles === c.cycles) {
+    if (warnings) for (let i = 0; i < hit.warnings.length; i++) warnings.push(hit.warnings[i]);
     return hit.allowables;
   }
   const own: string[] = [];
   const allowables = computeAllowables(m, c, own);
-  REMEMBERED.set(m, { key, allowables, warnings: own });
-  for (let i = 0; i < own.length; i++) warnings.push(own[i]);
+  REMEMBERED.set(m, { min: c.temperature.min, max: c.temperature.max, hours: c.sustainedHours, cycles: c.cycles, allowables, warnings: own });
+  if (warnings) for (let i = 0; i < own.length; i++) warnings.push(own[i]);
   return allowables;
 }

@@ -7,7 +7,7 @@
 import { allowablesFor, fmt, isBrittle, isPolymer, type Allowables } from './allowables';
 import type { ModeMaterial } from './components/common';
 import { isWindowComponent, rateWithTable, ratingMargin, tableCovers } from './rating-tables';
-import type { CandidateMaterial, CandidateResult, ModeResult, RatingResult, SizedBy, WindowCoverage } from './types';
+import type { CandidateMaterial, CandidateResult, ModeResult, RatingResult, RatingTable, SizedBy, WindowCoverage } from './types';
 import { targetFor, type PreparedLoadCase } from './load-case';
 import { ACRYLIC_UNRATED_WARNING, BRITTLE_WINDOW_WARNING, CREEP_MODULUS_WARNING, FALLBACK_TARGET_WARNING, uncoveredWarning } from './candidate-warnings';
 
@@ -43,19 +43,27 @@ export function modeMaterial(candidate: CandidateMaterial, prepared: PreparedLoa
   return toModeMaterial(candidate, allowablesFor(candidate, prepared.conditions, warnings));
 }
 
+/** Rating-table readings per prepared load case (shared by its candidates; never changed once made). */
+const TABLE_READINGS = new WeakMap<PreparedLoadCase, Map<RatingTable, Readonly<RatingResult>>>();
+
 /**
  * The rating-table route of a window candidate: among the published tables that cover its grade
  * and this geometry, the one that asks for the most thickness (conservative); when none gives a
  * number, the first one's reason. Null when no table covers the candidate or the component is no window.
  */
-function ratingRoute(prepared: PreparedLoadCase, candidate: CandidateMaterial): RatingResult | null {
+function ratingRoute(prepared: PreparedLoadCase, candidate: CandidateMaterial): Readonly<RatingResult> | null {
   const tables = candidate.ratingTables;
   const c = prepared.component;
   if (!tables || tables.length === 0 || !isWindowComponent(c)) return null;
-  let best: RatingResult | null = null;
+  // A table's reading depends on the load case alone, and many candidates (every set of a grade)
+  // share a table: read each table once per load case.
+  let read = TABLE_READINGS.get(prepared);
+  if (read === undefined) TABLE_READINGS.set(prepared, (read = new Map()));
+  let best: Readonly<RatingResult> | null = null;
   for (let i = 0; i < tables.length; i++) {
     if (!tableCovers(tables[i], c)) continue;
-    const r = rateWithTable(tables[i], c, prepared.pressure, prepared.conditions);
+    let r = read.get(tables[i]);
+    if (r === undefined) read.set(tables[i], (r = rateWithTable(tables[i], c, prepared.pressure, prepared.conditions)));
     if (best === null) best = r;
     else if (r.requiredThickness !== null && (best.requiredThickness === null || r.requiredThickness > best.requiredThickness)) best = r;
   }
@@ -74,28 +82,47 @@ function lowestSafetyFactorAt(prepared: PreparedLoadCase, mm: ModeMaterial, t: n
   return sf;
 }
 
-const SCRATCH_WARNINGS: string[] = [];
+/** Reused by rankingMargin, which runs for every candidate of every evaluation: nothing is allocated per candidate. */
+const SCRATCH_MM: ModeMaterial = { E: 0, nu: 0, tension: 0, compression: 0, shear: 0, tensionOnYield: false, compressionOnYield: false, shearBasis: 'strength' };
+
+/** What rankingMargin gives for one candidate: its sizing margin and coverage group (0 first). */
+export interface RankingKey {
+  margin: number;
+  group: number;
+}
 
 /**
  * The ranking inputs of one candidate (its sizing margin and coverage group), computed exactly as
- * evaluateCandidate does, without building its result.
+ * evaluateCandidate does, without building its result; written into `out`.
  */
-export function rankingMargin(prepared: PreparedLoadCase, candidate: CandidateMaterial): { margin: number; group: number } {
-  SCRATCH_WARNINGS.length = 0;
-  const mm = toModeMaterial(candidate, allowablesFor(candidate, prepared.conditions, SCRATCH_WARNINGS));
+export function rankingMargin(prepared: PreparedLoadCase, candidate: CandidateMaterial, out: RankingKey = { margin: 0, group: 0 }): RankingKey {
+  const a = allowablesFor(candidate, prepared.conditions, null);
+  const mm = SCRATCH_MM;
+  mm.E = candidate.youngsModulus;
+  mm.nu = candidate.poissonsRatio;
+  mm.tension = a.tension;
+  mm.compression = a.compression;
+  mm.shear = a.shear;
+  mm.tensionOnYield = a.tensionOnYield;
+  mm.compressionOnYield = a.compressionOnYield;
+  mm.shearBasis = a.shearBasis;
   const { model, component, pressure: p } = prepared;
   const t = model.thickness(component);
   const rating = ratingRoute(prepared, candidate);
   const tableMargin = rating ? ratingMargin(rating, p, t) : null;
-  const group = prepared.humanOccupancy && isWindowComponent(component) && tableMargin === null ? 1 : 0;
-  if (tableMargin !== null) return { margin: tableMargin, group };
+  out.group = prepared.humanOccupancy && isWindowComponent(component) && tableMargin === null ? 1 : 0;
+  if (tableMargin !== null) {
+    out.margin = tableMargin;
+    return out;
+  }
   model.fill(component, t, p, mm, STRESS, ALLOWABLE);
   let govSf = Infinity;
   for (let i = 0; i < model.modes.length; i++) {
     const sf = ALLOWABLE[i] / STRESS[i];
     if (sf < govSf) govSf = sf;
   }
-  return { margin: govSf / targetFor(prepared, candidate) - 1, group };
+  out.margin = govSf / targetFor(prepared, candidate) - 1;
+  return out;
 }
 
 /** Evaluates one candidate at the load case's own thickness. */
@@ -166,7 +193,9 @@ export function evaluateCandidate(prepared: PreparedLoadCase, candidate: Candida
   // Sizing: a rating table that covers the candidate, else the analytical modes.
   let margin = modes[gov].margin;
   let sizedBy: SizedBy | null = required === null ? null : { kind: 'mode', mode: model.modes[sizing] };
-  const rating = ratingRoute(prepared, candidate);
+  // A copy: this candidate's cross-check is written into it; the table reading is shared.
+  const read = ratingRoute(prepared, candidate);
+  const rating: RatingResult | null = read ? { ...read } : null;
   const window = isWindowComponent(component);
   if (rating) {
     const tableMargin = ratingMargin(rating, p, t);

@@ -86,9 +86,24 @@ export interface LeanEvaluation extends Omit<EvaluateResult, 'results'> {
   results: LeanCandidate[];
 }
 
+/** Powers of ten that are exact doubles (10^0 … 10^22). */
+const POW10 = Array.from({ length: 23 }, (_, i) => 10 ** i);
+
+/**
+ * `v` to `digits` significant digits, by arithmetic (no string round trip: this runs for every
+ * number of every answer). Dividing or multiplying a whole number by an exact power of ten is
+ * correctly rounded, so the result prints as the short decimal.
+ */
+function roundNumber(v: number, digits: number): number {
+  if (Number.isInteger(v) || !Number.isFinite(v)) return v;
+  const e = digits - 1 - Math.floor(Math.log10(Math.abs(v)));
+  if (e >= 0) return e < POW10.length ? Math.round(v * POW10[e]) / POW10[e] : Number(v.toPrecision(digits));
+  return -e < POW10.length ? Math.round(v / POW10[-e]) * POW10[-e] : v;
+}
+
 /** Rounds what is not a whole number to `digits` significant digits, deep; ids and counts stay exact. */
 function rounded<T>(value: T, digits: number): T {
-  if (typeof value === 'number') return (Number.isInteger(value) || !Number.isFinite(value) ? value : Number(value.toPrecision(digits))) as T;
+  if (typeof value === 'number') return roundNumber(value, digits) as T;
   if (Array.isArray(value)) return value.map((v) => rounded(v, digits)) as T;
   if (value && typeof value === 'object') {
     const out: Record<string, unknown> = {};
@@ -98,12 +113,27 @@ function rounded<T>(value: T, digits: number): T {
   return value;
 }
 
+/**
+ * The rounded copy and dictionary key of an object the engine shares between answers (a
+ * candidate's factors come from its remembered allowables, its input statuses from the catalogue
+ * snapshot; neither is changed once made), so repeated answers do not round and serialize them again.
+ */
+const PACKED = new WeakMap<object, { digits: number; value: object; key: string }>();
+
+function packedObject<T extends object>(o: T, digits: number): { value: T; key: string } {
+  const hit = PACKED.get(o);
+  if (hit && hit.digits === digits) return hit as unknown as { value: T; key: string };
+  const value = rounded(o, digits);
+  const entry = { digits, value, key: JSON.stringify(value) };
+  PACKED.set(o, entry);
+  return entry as { value: T; key: string };
+}
+
 class Dictionary<T> {
   readonly items: T[] = [];
   private readonly index = new Map<string, number>();
   constructor(private readonly keyOf: (item: T) => string) {}
-  ref(item: T): number {
-    const key = this.keyOf(item);
+  ref(item: T, key: string = this.keyOf(item)): number {
     let i = this.index.get(key);
     if (i === undefined) {
       i = this.items.length;
@@ -144,6 +174,10 @@ export function packEvaluation(result: EvaluateResult, digits = LEAN_DIGITS): Le
     const { source, interpolation, outside, ...numbers } = rating;
     return { ...r(numbers), source: texts.ref(source), interpolation: texts.ref(interpolation), ...(outside !== undefined ? { outside: texts.ref(outside) } : {}) };
   };
+  const shared = (o: AppliedFactors | InputStatus) => {
+    const p = packedObject(o, digits);
+    return objects.ref(p.value, p.key);
+  };
   const results = result.results.map((c) =>
     trimmed<LeanCandidate>([
       c.name,
@@ -158,10 +192,10 @@ export function packEvaluation(result: EvaluateResult, digits = LEAN_DIGITS): Le
       r(c.massPerArea),
       r(c.weightToDisplacement),
       r(c.targetSafetyFactor),
-      objects.ref(r(c.factors)),
+      shared(c.factors),
       c.modes.map(modeRow),
       c.warnings.map((w) => texts.ref(w)),
-      c.inputs ? objects.ref(c.inputs) : null,
+      c.inputs ? shared(c.inputs) : null,
       c.coverage ?? null,
       c.deflection === undefined ? null : r(c.deflection),
       c.rating ? ratingOf(c.rating) : null,

@@ -7,7 +7,7 @@ import { DEFAULT_PROOF_FACTOR } from '../schemas/evaluate';
 import { fmt, type Conditions } from './allowables';
 import type { ComponentModel } from './components/common';
 import { modelFor } from './components/index';
-import { defaultTargetSafetyFactor, WATER_DENSITY } from './defaults';
+import { DEFAULT_TARGET_SAFETY_FACTORS, FALLBACK_TARGET_SAFETY_FACTOR, WATER_DENSITY } from './defaults';
 import { pressureFromDepth } from './pressure';
 import type { CandidateMaterial } from './types';
 import type { Family } from '../schemas/catalogue';
@@ -27,6 +27,8 @@ export interface PreparedLoadCase {
   targetSafetyFactor: number | undefined;
   /** The load case's own targets for some families; the others keep their common-practice default. */
   familyTargets: Partial<Record<Family, number>>;
+  /** Every family's target under this load case (its own, else the default), looked up per candidate. */
+  targetByFamily: Record<Family, number>;
   component: Component;
   model: ComponentModel<Component>;
   /** For human occupancy (window candidates no rule covers then warn and may rank lower). */
@@ -98,6 +100,7 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
     },
     targetSafetyFactor: target,
     familyTargets,
+    targetByFamily: { ...DEFAULT_TARGET_SAFETY_FACTORS, ...familyTargets },
     component: c,
     model: modelFor(c),
     humanOccupancy: loadCase.humanOccupancy === true,
@@ -107,5 +110,5 @@ export function prepareLoadCase(loadCase: LoadCaseInput): PreparedLoadCase {
 
 /** The target safety factor a candidate is held to under a prepared load case. */
 export function targetFor(prepared: PreparedLoadCase, candidate: CandidateMaterial): number {
-  return prepared.targetSafetyFactor ?? (candidate.family ? prepared.familyTargets[candidate.family] : undefined) ?? defaultTargetSafetyFactor(candidate.family);
+  return prepared.targetSafetyFactor ?? (candidate.family ? prepared.targetByFamily[candidate.family] : FALLBACK_TARGET_SAFETY_FACTOR);
 }

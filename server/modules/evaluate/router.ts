@@ -14,8 +14,9 @@ import { packEvaluation } from '../../../shared/engine/lean';
 export function evaluateRouter(): Router {
   const router = Router();
   // Engineers re-run the same load case often (reloads, ranking switches, shared links): the
-  // serialized answer is kept per request until the catalogue changes.
-  const cache = jsonResponseCache(128 * 2 ** 20);
+  // serialized answer is kept per request until the catalogue changes, from the second time it is
+  // asked for (most new load cases are asked once).
+  const cache = jsonResponseCache(128 * 2 ** 20, { keepOnSecondRequest: true });
   // Per account, so one caller's loop cannot slow everyone else; kept in the worker (a shared
   // store would cost a database write per evaluation), each worker allowing its share.
   const config = env();
