@@ -39,7 +39,7 @@ export async function load(server: BenchServer, path: string, options: { method?
 
 /**
  * Every request a different thickness, so no answer comes from the cache: the cost of really
- * evaluating the whole catalogue per request (reported for comparison; not a budget).
+ * evaluating the whole catalogue per request, the figure an engineer feels (budgeted against health).
  */
 export async function loadUncachedEvaluate(server: BenchServer, seconds: number): Promise<LoadResult> {
   const base = JSON.parse(EVALUATE_BODY);
@@ -66,4 +66,22 @@ export async function loadUncachedEvaluate(server: BenchServer, seconds: number)
     requestsPerSecond: Math.round(result.requests.average),
     errors: result.errors + result.timeouts + result.non2xx,
   };
+}
+
+/** Size of one evaluation answer with 100 results: the lean form (the default) and the full form, as JSON. */
+export async function evaluatePayloadBytes(server: BenchServer): Promise<{ results: number; leanBytes: number; fullBytes: number }> {
+  const base = JSON.parse(EVALUATE_BODY);
+  const post = async (form: 'lean' | 'full') => {
+    const res = await fetch(`${server.baseUrl}/api/evaluate`, {
+      method: 'POST',
+      headers: { cookie: server.cookie, 'content-type': 'application/json' },
+      body: JSON.stringify({ ...base, limit: 100, form }),
+    });
+    if (!res.ok) throw new Error(`evaluate (${form}) answered ${res.status}`);
+    const text = await res.text();
+    return { bytes: Buffer.byteLength(text), results: (JSON.parse(text) as { results: unknown[] }).results.length };
+  };
+  const lean = await post('lean');
+  const full = await post('full');
+  return { results: lean.results, leanBytes: lean.bytes, fullBytes: full.bytes };
 }

@@ -18,7 +18,8 @@ export interface BenchServer {
 /** Starts the real server (production mode) on a free loopback port and signs in the bench engineer. */
 export async function startBenchServer(databaseUrl: string): Promise<BenchServer> {
   // Started as npm start starts it: the same Node flags (package.json config.serverNodeFlags).
-  const flags = serverNodeFlags().split(' ').filter(Boolean);
+  // BENCH_NODE_FLAGS adds flags for a look inside, e.g. '--cpu-prof --cpu-prof-dir=/tmp/prof' (workers inherit them).
+  const flags = [...serverNodeFlags().split(' '), ...(process.env.BENCH_NODE_FLAGS ?? '').split(' ')].filter(Boolean);
   const child: ChildProcess = spawn(process.execPath, [...flags, '--import', 'tsx', 'server/index.ts'], {
     env: {
       ...process.env,
@@ -69,9 +70,25 @@ export async function startBenchServer(databaseUrl: string): Promise<BenchServer
 }
 
 /** Resident memory of a process in bytes (Linux /proc). */
-export async function rssOf(pid: number): Promise<number> {
+async function rssOfOne(pid: number): Promise<number> {
   const { readFile } = await import('node:fs/promises');
-  const status = await readFile(`/proc/${pid}/status`, 'utf8');
+  const status = await readFile(`/proc/${pid}/status`, 'utf8').catch(() => '');
   const kb = Number(status.match(/VmRSS:\s+(\d+)\s+kB/)?.[1] ?? 0);
   return kb * 1024;
+}
+
+/** The process's children (Linux /proc, every thread's list). */
+async function childrenOf(pid: number): Promise<number[]> {
+  const { readdir, readFile } = await import('node:fs/promises');
+  const tasks = await readdir(`/proc/${pid}/task`).catch(() => [] as string[]);
+  const lists = await Promise.all(tasks.map((t) => readFile(`/proc/${pid}/task/${t}/children`, 'utf8').catch(() => '')));
+  return [...new Set(lists.join(' ').split(/\s+/).filter(Boolean).map(Number))];
+}
+
+/** Resident memory of a process and all its descendants (the cluster primary and its workers), in bytes. */
+export async function rssOf(pid: number): Promise<number> {
+  const children = await childrenOf(pid);
+  const own = await rssOfOne(pid);
+  const below = await Promise.all(children.map((c) => rssOf(c)));
+  return own + below.reduce((a, b) => a + b, 0);
 }

@@ -20,8 +20,9 @@ fi
 node_modules/.bin/tsx server/db/cli.ts setup
 ensure_client_build
 
-# Node flags for the server live in package.json (config.serverNodeFlags): a small young
-# generation keeps garbage-collection pauses short under load (see the README's Performance).
+# Node flags for the server live in package.json (config.serverNodeFlags): a 16 MB young
+# generation, so an evaluation's short-lived objects die young instead of being collected every
+# few requests (see the README's Performance; the bench starts the server with the same flags).
 NODE_FLAGS=$(node -p "require('./package.json').config.serverNodeFlags")
 # shellcheck disable=SC2086
 node $NODE_FLAGS --import tsx server/index.ts &
