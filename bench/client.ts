@@ -13,7 +13,12 @@ export async function initialJsGzipBytes(distDir = 'dist'): Promise<{ bytes: num
     ...[...html.matchAll(/<link[^>]+rel="modulepreload"[^>]+href="([^"]+\.js)"/g)].map((m) => m[1]),
   ];
   let bytes = 0;
-  for (const f of files) bytes += gzipSync(await readFile(path.join(distDir, f))).length;
+  for (const f of files) {
+    const body = await readFile(path.join(distDir, f));
+    // Only React's development build prints this: a build made with NODE_ENV other than production.
+    if (body.includes('Download the React DevTools')) throw new Error(`${f} is a development build: rebuild with NODE_ENV=production (scripts/lib.sh ensure_client_build)`);
+    bytes += gzipSync(body).length;
+  }
   return { bytes, files };
 }
 

@@ -30,9 +30,12 @@ ensure_deps() {
 # Build the client when dist/ is missing or older than any client source.
 ensure_client_build() {
   local stamp="$ROOT/dist/index.html"
-  if [ ! -f "$stamp" ] || [ -n "$(cd "$ROOT" && find src shared index.html vite.config.ts tailwind.config.ts public -newer "$stamp" -print -quit 2>/dev/null)" ]; then
+  # Always the production build: Vite takes NODE_ENV from the environment, and npm start
+  # (development by default) or npm test (test) would otherwise ship React's development build,
+  # half again as large and slower. A build made before this rule has no marker and is redone.
+  if [ ! -f "$stamp" ] || [ ! -f "$ROOT/dist/.production-build" ] || [ -n "$(cd "$ROOT" && find src shared index.html vite.config.ts tailwind.config.ts public -newer "$stamp" -print -quit 2>/dev/null)" ]; then
     log "building the client"
-    (cd "$ROOT" && npx vite build --logLevel warn)
+    (cd "$ROOT" && NODE_ENV=production npx vite build --logLevel warn && touch dist/.production-build)
   fi
 }
 
