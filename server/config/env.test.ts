@@ -1,6 +1,6 @@
 // The object-store and mail variables: defaults, the fake's key outside production, refusals.
 import { afterEach, describe, expect, it } from 'vitest';
-import { env, resetEnvCache } from './env';
+import { changeFeedUrl, env, resetEnvCache } from './env';
 
 const NAMES = [
   'NODE_ENV',
@@ -20,6 +20,9 @@ const NAMES = [
   'MAIL_CATCHER_DIR',
   'APP_URL',
   'TRUST_PROXY',
+  'DATABASE_URL',
+  'DATABASE_POOL_MAX',
+  'CHANGE_FEED_DATABASE_URL',
 ];
 const saved = Object.fromEntries(NAMES.map((n) => [n, process.env[n]]));
 
@@ -120,5 +123,25 @@ describe('storage and mail variables', () => {
     [{ SMTP_USER: 'only-the-user' }, 'SMTP_PASS'],
   ])('refuses %j, naming %s', (vars, name) => {
     expect(() => withEnv({ NODE_ENV: 'development', ...vars })()).toThrow(name);
+  });
+});
+
+describe('database variables for a pooled deployment', () => {
+  it('listens on DATABASE_URL unless the change feed is given its own direct connection', () => {
+    withEnv({ NODE_ENV: 'development', DATABASE_URL: 'postgres://isobath@pooler.harrow-sound.example:6432/isobath' });
+    expect(changeFeedUrl()).toBe('postgres://isobath@pooler.harrow-sound.example:6432/isobath');
+    withEnv({
+      NODE_ENV: 'development',
+      DATABASE_URL: 'postgres://isobath@pooler.harrow-sound.example:6432/isobath',
+      CHANGE_FEED_DATABASE_URL: 'postgres://isobath@db-primary.harrow-sound.example:5432/isobath',
+    });
+    expect(changeFeedUrl()).toBe('postgres://isobath@db-primary.harrow-sound.example:5432/isobath');
+  });
+
+  it('takes the pool size per worker, 10 by default, and refuses nonsense', () => {
+    expect(withEnv({ NODE_ENV: 'development' })().DATABASE_POOL_MAX).toBe(10);
+    expect(withEnv({ NODE_ENV: 'development', DATABASE_POOL_MAX: '4' })().DATABASE_POOL_MAX).toBe(4);
+    expect(() => withEnv({ NODE_ENV: 'development', DATABASE_POOL_MAX: '0' })()).toThrow('DATABASE_POOL_MAX');
+    expect(() => withEnv({ NODE_ENV: 'development', CHANGE_FEED_DATABASE_URL: 'not a url' })()).toThrow('CHANGE_FEED_DATABASE_URL');
   });
 });

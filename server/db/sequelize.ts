@@ -11,7 +11,7 @@ export function sequelize(): Sequelize {
       logging: false,
       // A couple of connections stay open so the first request after a quiet spell does not pay for
       // a new connection and its SCRAM handshake.
-      pool: { max: 10, min: 2, idle: 60_000, acquire: 5_000 },
+      pool: { max: env().DATABASE_POOL_MAX, min: Math.min(2, env().DATABASE_POOL_MAX), idle: 60_000, acquire: 5_000 },
       dialectOptions: { connectionTimeoutMillis: 3_000, statement_timeout: 15_000 },
       define: { underscored: true },
     });

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import pg from 'pg';
 import type { Transaction } from 'sequelize';
-import { env } from '../config/env';
+import { changeFeedUrl } from '../config/env';
 import { sequelize } from '../db/sequelize';
 
 /**
@@ -108,7 +108,7 @@ function lost(): void {
 
 function connect(): Promise<void> {
   if (connecting) return connecting;
-  const c = new pg.Client({ connectionString: env().DATABASE_URL, application_name: `isobath-change-feed:${process.pid}`, connectionTimeoutMillis: 3_000, keepAlive: true });
+  const c = new pg.Client({ connectionString: changeFeedUrl(), application_name: `isobath-change-feed:${process.pid}`, connectionTimeoutMillis: 3_000, keepAlive: true });
   connecting = (async () => {
     let failed = false;
     c.on('error', () => {
