@@ -29,7 +29,8 @@ export const referenceKeys = {
 };
 
 /**
- * Roots of the catalogue feature's keys (its list and material pages). A desk step can change
- * what they show, so they are invalidated by prefix without importing across features.
+ * Roots of other features' keys that read the published catalogue: the catalogue's list and
+ * material pages, and Evaluate's rankings (their inputs marks) and candidate sets. A desk step can
+ * change what they show, so they are invalidated by prefix without importing across features.
  */
-export const CATALOGUE_KEY_ROOTS = [['property-sets'], ['materials']] as const;
+export const CATALOGUE_KEY_ROOTS = [['property-sets'], ['materials'], ['evaluate']] as const;
