@@ -119,7 +119,18 @@ describe('value confirmations in chromium', () => {
     };
     await propose(approveKey, LOCATION);
     await propose(rejectKey, REJECT_LOCATION);
-    await propose(staleKey, STALE_LOCATION);
+
+    // A proposal for the same value sent meanwhile (by a script, as a colleague might): the
+    // server's refusal shows on the form, and the list shows the one that came first.
+    await page.getByRole('button', { name: 'Confirm a value…' }).click();
+    await form.getByLabel('Value').selectOption(staleKey);
+    await form.getByLabel('Where the source shows it').fill('Figure 4');
+    const meanwhile = await page.request.post(`${baseUrl}/api/library/sets/${set.id}/confirmations`, { data: { key: staleKey, location: STALE_LOCATION } });
+    expect(meanwhile.status()).toBe(201);
+    await form.getByRole('button', { name: 'Propose the confirmation' }).click();
+    await form.getByText('A confirmation of this value is already waiting for review.').waitFor();
+    await expect.poll(() => page.getByTestId(`confirmation-${staleKey}`).textContent()).toContain(STALE_LOCATION);
+    await form.getByRole('button', { name: 'Cancel' }).click();
 
     const row = page.getByTestId(`confirmation-${approveKey}`);
     expect(await row.textContent()).toMatch(new RegExp(`${LOCATION}.*Tamsin Oyelaran \\(you\\).*proposed`));
