@@ -5,6 +5,7 @@ import { allowedSteps, stepCommentSchema, type StepAvailability, type StepRule, 
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { TextAreaField } from '@/components/ui/text-area';
+import { StaleBanner } from '@/components/stale-banner';
 import { ApiError, isStale } from '@/lib/api-client';
 import { mapServerErrors } from '@/lib/field-errors';
 
@@ -25,7 +26,10 @@ function commentLabel(step: StepRule<string, string>): string {
   return step.comment === 'optional' ? 'Comment (optional)' : 'Comment for the author';
 }
 
-/** The step dialog: what the step does, who is told, the words it asks for, and the server's answer. */
+/**
+ * The step dialog: what the step does, who is told, the words it asks for, and the server's
+ * answer; a record changed meanwhile (409) shows as a StaleBanner with a reload, the words kept.
+ */
 function StepDialog<S extends string, N extends string>({
   step,
   open,
@@ -68,18 +72,7 @@ function StepDialog<S extends string, N extends string>({
       confirmLabel={step.label}
       tone={step.tone === 'danger' ? 'danger' : 'primary'}
       busy={busy || form.formState.isSubmitting}
-      error={
-        error ? (
-          <>
-            <p>{error.message}</p>
-            {error.stale && onReload ? (
-              <button type="button" className="mt-1 font-bold text-sounding underline" onClick={onReload}>
-                Reload to see the change
-              </button>
-            ) : null}
-          </>
-        ) : undefined
-      }
+      error={error && !(error.stale && onReload) ? <p>{error.message}</p> : undefined}
       onClose={onClose}
       onConfirm={() => void submit()}
     >
@@ -88,6 +81,19 @@ function StepDialog<S extends string, N extends string>({
       {step.to === 'new-version' ? <p>A new draft copies this version; this one stays published until the revision is approved.</p> : null}
       {step.comment !== 'none' ? (
         <TextAreaField label={commentLabel(step)} error={form.formState.errors.comment?.message} data-autofocus rows={4} {...form.register('comment')} />
+      ) : null}
+      {error?.stale && onReload ? (
+        <StaleBanner
+          testId="step-stale"
+          message={error.message}
+          onReload={onReload}
+          reloadLabel="Reload to see the change"
+          detail={
+            step.comment === 'none'
+              ? 'Nothing was done. Reload to see what changed, then decide again.'
+              : 'Your comment is still here: copy it if you need it, then reload to see what changed.'
+          }
+        />
       ) : null}
     </ConfirmDialog>
   );

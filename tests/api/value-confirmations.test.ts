@@ -54,6 +54,14 @@ describe('value confirmations', () => {
     expect([after.poissonsRatio, after.version]).toEqual([before.poissonsRatio, before.version]);
     const audit = await AuditEntry.findAll({ where: { entityType: 'property-set', entityId: String(id), action: 'confirm-value' } });
     expect(audit).toHaveLength(1);
+    // The administrator's audit log filters by the confirmation itself: its proposal and its approval.
+    const admin = await signIn(handle.app, 'admin');
+    const log = await admin.get(`/api/admin/audit?entityType=value-confirmation&entityId=${proposed.body.id}`);
+    expect(log.status, JSON.stringify(log.body)).toBe(200);
+    expect(log.body.items.map((e: { action: string; actor: { name: string } }) => [e.action, e.actor.name])).toEqual([
+      ['approve', 'Lowena Hosking'],
+      ['propose', 'Tamsin Oyelaran'],
+    ]);
     // A decided confirmation takes no more steps.
     const again = await second.post(`/api/library/confirmations/${proposed.body.id}/steps`).send({ step: 'reject', lockVersion: ok.body.lockVersion, comment: 'Changed my mind.' });
     expect(again.status).toBe(409);

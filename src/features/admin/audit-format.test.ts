@@ -23,6 +23,7 @@ describe('audit log formatting', () => {
     expect(entityLabel('reference-version')).toBe('Reference change');
     expect(entityHref('material', null)).toBeNull();
     expect(entityLabel('import')).toBe('CSV import');
+    expect(entityLabel('value-confirmation')).toBe('Value confirmation');
     expect(entityLabel('widget')).toBe('widget');
   });
 });

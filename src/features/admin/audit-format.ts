@@ -9,6 +9,7 @@ const ENTITY_LABELS: Record<string, string> = {
   user: 'User',
   project: 'Project',
   shortlist: 'Shortlist',
+  'value-confirmation': 'Value confirmation',
 };
 
 export const entityLabel = (type: string) => ENTITY_LABELS[type] ?? type;

@@ -1,4 +1,5 @@
 import type { PropertySetStatus } from '@shared/schemas/catalogue';
+import type { ConfirmationStatus } from '@shared/workflows/confirmation';
 
 // Words the record and its PDF use too live in shared/labels.ts.
 export { REFERENCE_KIND_LABELS, VALUE_BASIS_LABELS } from '@shared/labels';
@@ -24,3 +25,16 @@ export function formatBytes(bytes: number): string {
   if (bytes < 1024 * 1024) return `${(bytes / 1024).toFixed(0)} kB`;
   return `${(bytes / (1024 * 1024)).toFixed(1)} MB`;
 }
+
+/** A value confirmation's status, in the desk's words. */
+export const CONFIRMATION_STATUS_LABELS: Record<ConfirmationStatus, string> = {
+  proposed: 'proposed',
+  approved: 'approved',
+  rejected: 'rejected',
+};
+
+export const CONFIRMATION_STATUS_TONE: Record<ConfirmationStatus, 'sounding' | 'pass' | 'fail'> = {
+  proposed: 'sounding',
+  approved: 'pass',
+  rejected: 'fail',
+};

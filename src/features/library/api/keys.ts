@@ -28,8 +28,21 @@ export const referenceKeys = {
   proposed: (status?: 'draft' | 'in-review') => [...referenceKeys.all, 'proposed', { status }] as const,
 };
 
+/** GET /api/library/confirmations filters: the review queue (status), or one set's confirmations. */
+export interface ConfirmationFilters {
+  status?: 'proposed' | 'approved' | 'rejected';
+  propertySetId?: number;
+}
+
+/** Proposed confirmations of published sets' values, and their decisions. */
+export const confirmationKeys = {
+  all: ['value-confirmations'] as const,
+  list: (filters: ConfirmationFilters) => [...confirmationKeys.all, 'list', filters] as const,
+};
+
 /**
- * Roots of the catalogue feature's keys (its list and material pages). A desk step can change
- * what they show, so they are invalidated by prefix without importing across features.
+ * Roots of other features' keys that read the published catalogue: the catalogue's list and
+ * material pages, and Evaluate's rankings (their inputs marks) and candidate sets. A desk step can
+ * change what they show, so they are invalidated by prefix without importing across features.
  */
-export const CATALOGUE_KEY_ROOTS = [['property-sets'], ['materials']] as const;
+export const CATALOGUE_KEY_ROOTS = [['property-sets'], ['materials'], ['evaluate']] as const;

@@ -14,6 +14,8 @@ import { PublishedActions, ReviewPanel } from './review-panel';
 import { SetEditor } from './set-editor';
 import { SetHistory } from './set-history';
 import { SetValues } from './set-values';
+import { SetConfirmations } from './set-confirmations';
+import { ValueStatusNote } from '@/components/inputs-mark';
 import { ColumnHeads } from '@/components/ui/column-heads';
 import { Notice } from '@/components/ui/form-error';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
@@ -31,7 +33,15 @@ function DependenceList({ set }: { set: LibrarySetDto }) {
       {rows.map(([label, field, points]) => (
         <div key={field} className="contents">
           <dt className="text-ink-soft">{label}</dt>
-          <dd>{formatChangeValue(field, points, system)}</dd>
+          <dd>
+            {formatChangeValue(field, points, system)}
+            {points.length ? (
+              <>
+                {' '}
+                <ValueStatusNote provenance={set.provenance} field={field} />
+              </>
+            ) : null}
+          </dd>
         </div>
       ))}
     </dl>
@@ -92,6 +102,7 @@ function SetView({ set, me, onReload }: { set: LibrarySetDto; me: SessionUserDto
               <SetValues set={set} />
             </Panel>
           )}
+          {set.status === 'published' || set.status === 'retired' ? <SetConfirmations set={set} me={me} onReloadSet={onReload} /> : null}
           <Panel title="Dependence data">
             <DependenceList set={set} />
           </Panel>
