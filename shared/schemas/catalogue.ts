@@ -62,7 +62,7 @@ const fraction = finite.refine((v) => v >= 0 && v <= 1, 'must be between 0 and 1
 const temperatureC = finite.refine((v) => v >= -273.15, 'must not be below absolute zero (-273.15 °C)');
 
 /** Strength factor (multiplier on the reference-condition strength) against a variable. */
-export const temperaturePointSchema = z.object({ temperature: finite, factor: positive });
+export const temperaturePointSchema = z.object({ temperature: temperatureC, factor: positive });
 export const hoursPointSchema = z.object({ hours: finite.refine((v) => v >= 0, 'must be zero or more'), factor: positive });
 export const cyclesPointSchema = z.object({ cycles: finite.refine((v) => v >= 0, 'must be zero or more'), factor: positive });
 export type TemperaturePoint = z.infer<typeof temperaturePointSchema>;

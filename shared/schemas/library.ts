@@ -231,7 +231,18 @@ export interface ImportPreviewDto {
   issues: ImportIssueDto[];
   issueCount: number;
   /** The first rows as they would be saved (SI), for the preview table. */
-  sample: { row: number; material: string; family: string; condition: string; reference: string; tensileStrength: number; compressiveStrength: number; shearStrength: number }[];
+  sample: {
+    row: number;
+    material: string;
+    family: string;
+    condition: string;
+    reference: string;
+    tensileStrength: number;
+    compressiveStrength: number;
+    shearStrength: number;
+    /** How many of the row's values are confirmed, of how many, and whether any is demo data. */
+    status: { confirmed: number; total: number; demo: boolean };
+  }[];
   newMaterials: string[];
   newReferences: string[];
 }
@@ -287,7 +298,7 @@ export interface OutboxMailDto {
 export const outboxQuerySchema = z.strictObject({ status: z.enum(['pending', 'sent', 'failed']).optional() });
 
 /** The CSV import's columns, each declared once (name, draft path, unit, required, help). */
-export { PROPERTY_SET_COLUMNS as IMPORT_COLUMNS } from '../import/property-set-columns';
+export { PROPERTY_SET_COLUMNS as IMPORT_COLUMNS, PER_VALUE_PARTS as IMPORT_PER_VALUE_PARTS } from '../import/property-set-columns';
 
 export const IMPORT_MAX_BYTES = 20 * 1024 * 1024;
 export const IMPORT_MAX_ROWS = 50_000;

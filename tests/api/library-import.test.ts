@@ -128,6 +128,7 @@ describe('a valid file', () => {
       tensileStrength: 70e6,
       compressiveStrength: 110e6,
       shearStrength: 60e6,
+      status: { confirmed: 0, total: 10, demo: false },
     });
     expect(preview.sample[1].tensileStrength).toBe(85.5e6);
     expect(preview.newMaterials).toEqual(['Harrow Sound trial glass-ceramic HS-4']);
@@ -288,22 +289,146 @@ describe('issues in one round, structured', () => {
 
 describe('the column list', () => {
   it('stores every column of an imported row at its draft path, converted to SI', async () => {
-    const cells = row(41, { tensile_yield_mpa: 65, reference_identifier: 'HSMW-TR-0241' });
+    const cells = row(41, { tensile_yield_mpa: 65, shear_yield_mpa: 37.5, reference_identifier: 'HSMW-TR-0241' });
     const res = await upload(librarian, '/api/library/import', csv([cells]));
     expect(res.status, JSON.stringify(res.body)).toBe(201);
     const set = (await librarian.get(`/api/library/sets/${res.body.ids[0]}`)).body as LibrarySetDto;
     const at = (path: string) => path.split('.').reduce<unknown>((node, key) => (node as Record<string, unknown> | null)?.[key], set);
+    let checked = 0;
     IMPORT_COLUMNS.forEach((column, i) => {
       const unit = unitOfColumn(column);
       const cell = cells[i];
-      for (const { path } of targetsOf(column)) {
+      if (!cell) return;
+      for (const { path, onlyWith } of targetsOf(column)) {
+        if (onlyWith && at(onlyWith) == null) continue;
         if (column.cell === 'number') expect(at(path) as number, `${column.name} → ${path}`).toBeCloseTo(unit ? unit.toSI(Number(cell)) : Number(cell), 6);
         else if (column.cell === 'integer') expect(at(path), `${column.name} → ${path}`).toBe(Number(cell));
         else if (column.cell === 'yes-no') expect(at(path), `${column.name} → ${path}`).toBe(cell === 'yes');
         else expect(at(path), `${column.name} → ${path}`).toBe(cell);
+        checked++;
       }
     });
+    expect(checked).toBeGreaterThan(25);
     expect(set.youngsModulus).toBe(3.1e9);
+    expect(set.shearYield).toBe(37.5e6);
+  });
+});
+
+describe('statuses, test details and points', () => {
+  // Row 1: confirmed against its test report, one value derived, one from another source, each
+  // strength with its own method; row 2: demo data with a confirmed exception.
+  const rows = () => [
+    row(51, {
+      reference_identifier: 'HSMW-TR-0251',
+      test_method: 'ASTM D638',
+      test_temperature_c: 23,
+      compressive_strength_test_method: 'ASTM D695',
+      compressive_yield_test_method: 'ASTM D695',
+      shear_strength_test_method: 'ASTM D732',
+      shear_strength_test_temperature_c: -2,
+      density_basis: 'typical',
+      density_test_method: 'ASTM D792',
+      status: 'confirmed',
+      status_location: 'Table 2',
+      compressive_yield_status: 'derived',
+      compressive_yield_rule: 'taken as 0.95 of the compressive strength',
+      luminous_transmittance_location: 'Figure 3',
+      luminous_transmittance_source: 'HSMW-TR-0250, optical annex',
+      temperature_factors: '-20:1.15; 23:1; 50:0.8',
+      sustained_load_factors: '0:1; 1000:0.75; 100000:0.6',
+      cyclic_factors: '1:1; 1000:0.85; 10000:0.7',
+      temperature_factors_location: 'Figure 5',
+      sustained_load_factors_status: 'recalled',
+      cyclic_factors_status: 'demo',
+    }),
+    row(52, { reference_identifier: 'HSMW-TR-0252', status: 'demo', youngs_modulus_status: 'confirmed', youngs_modulus_location: 'Table 4, p. 7', cyclic_factors: '1:1; 500:0.9' }),
+  ];
+
+  it('imports them and gives each back from GET /api/library/sets/:id exactly as the file said, in SI', async () => {
+    const res = await upload(librarian, '/api/library/import', csv(rows()));
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const [first, second] = await Promise.all(res.body.ids.map(async (id: number) => (await librarian.get(`/api/library/sets/${id}`)).body as LibrarySetDto));
+
+    const strength = (testMethod: string, temperature = 23) => ({ basis: 'minimum', testMethod, temperature });
+    expect(first.valueDetails).toEqual({
+      density: { basis: 'typical', testMethod: 'ASTM D792' },
+      tensileStrength: strength('ASTM D638'),
+      compressiveStrength: strength('ASTM D695'),
+      compressiveYield: strength('ASTM D695'),
+      shearStrength: strength('ASTM D732', -2),
+    });
+    const confirmed = { status: 'confirmed', location: 'Table 2' };
+    expect(first.provenance).toEqual({
+      density: confirmed,
+      youngsModulus: confirmed,
+      poissonsRatio: confirmed,
+      tensileStrength: confirmed,
+      compressiveStrength: confirmed,
+      compressiveYield: { status: 'derived', rule: 'taken as 0.95 of the compressive strength' },
+      shearStrength: confirmed,
+      elongation: confirmed,
+      luminousTransmittance: { status: 'confirmed', location: 'Figure 3', source: 'HSMW-TR-0250, optical annex' },
+      serviceTemperature: confirmed,
+      temperatureFactors: { status: 'confirmed', location: 'Figure 5' },
+      sustainedLoadFactors: { status: 'recalled' },
+      cyclicFactors: { status: 'demo' },
+    });
+    expect(first.temperatureFactors).toEqual([
+      { temperature: -20, factor: 1.15 },
+      { temperature: 23, factor: 1 },
+      { temperature: 50, factor: 0.8 },
+    ]);
+    expect(first.sustainedLoadFactors).toEqual([
+      { hours: 0, factor: 1 },
+      { hours: 1000, factor: 0.75 },
+      { hours: 100000, factor: 0.6 },
+    ]);
+    expect(first.cyclicFactors).toEqual([
+      { cycles: 1, factor: 1 },
+      { cycles: 1000, factor: 0.85 },
+      { cycles: 10000, factor: 0.7 },
+    ]);
+
+    expect(second.provenance.youngsModulus).toEqual({ status: 'confirmed', location: 'Table 4, p. 7' });
+    const others = Object.entries(second.provenance!).filter(([k]) => k !== 'youngsModulus');
+    expect(others.map(([k]) => k).sort()).toEqual(['compressiveStrength', 'compressiveYield', 'cyclicFactors', 'density', 'elongation', 'luminousTransmittance', 'poissonsRatio', 'serviceTemperature', 'shearStrength', 'tensileStrength']);
+    for (const [k, entry] of others) expect(entry, k).toEqual({ status: 'demo' });
+    expect(second.valueDetails.tensileStrength).toEqual({ basis: 'minimum' });
+    expect(second.sustainedLoadFactors).toEqual([]);
+  });
+
+  it('previews how many values of each row are confirmed, and whether it is demo data', async () => {
+    const res = await upload(librarian, '/api/library/import/preview', csv(rows()));
+    expect(res.status).toBe(200);
+    expect((res.body as ImportPreviewDto).sample.map((s) => s.status)).toEqual([
+      { confirmed: 10, total: 13, demo: true },
+      { confirmed: 1, total: 11, demo: true },
+    ]);
+  });
+
+  it('refuses a confirmed value without a location with 400 naming the row and column, and writes nothing', async () => {
+    const file = csv([rows()[0], row(53, { status: 'demo', shear_strength_status: 'confirmed' }), row(54, { status: 'confirmed' }), row(55, { status: 'derived', status_rule: 'x' })]);
+    const before = await counts();
+    const res = await upload(librarian, '/api/library/import', file);
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('import_invalid');
+    expect(res.body.error.fields).toEqual({
+      'rows.2.shear_strength_location': 'is required for a confirmed value (table, page, figure or clause)',
+      'rows.3.status_location': 'is required for a confirmed value (table, page, figure or clause)',
+      'rows.4.status_rule': 'must have at least 2 characters',
+    });
+    expect(res.body.error.issueCount).toBe(3);
+    expect(await counts()).toEqual(before);
+  });
+
+  it('refuses malformed point lists with the row, the column and the part that is not a point', async () => {
+    const file = csv([row(56), row(57), row(58), row(59, { temperature_factors: '-20:1.15; 23-1; 50:0.8', cyclic_factors: '1000:0' })]);
+    const res = await upload(librarian, '/api/library/import/preview', file);
+    expect(res.status).toBe(200);
+    expect((res.body as ImportPreviewDto).issues).toEqual([
+      { row: 4, field: 'temperature_factors', message: "'23-1' is not temperature:factor (write the points as temperature:factor, separated by semicolons)" },
+      { row: 4, field: 'cyclic_factors', message: 'point 1: factor must be greater than zero' },
+    ]);
   });
 });
 

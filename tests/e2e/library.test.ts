@@ -193,6 +193,34 @@ describe('library desk journey in chromium', () => {
     expect(await page.getByTestId('import-refused').textContent()).toMatch(/cannot be imported/);
   });
 
+  it('lists each value’s own columns on the import page, and previews the template’s rows as demo data with their statuses', async () => {
+    const { page, baseUrl } = s;
+    await s.context.clearCookies();
+    await signInThroughForm(page, baseUrl, 'librarian');
+    await page.goto(`${baseUrl}/library/import`);
+
+    const rowColumns = page.getByRole('table', { name: 'Template columns' });
+    const own = page.getByRole('table', { name: 'Columns of one value' });
+    await own.waitFor();
+    for (const name of ['status', 'status_location', 'test_method', 'test_temperature_c', 'temperature_factors', 'cyclic_factors']) {
+      expect(await rowColumns.getByRole('rowheader', { name: new RegExp(`^${name}\\b`) }).count(), name).toBe(1);
+    }
+    for (const suffix of ['basis', 'test_method', 'test_temperature_c', 'status', 'location', 'source', 'rule']) {
+      expect(await own.getByRole('rowheader', { name: new RegExp(`^<value>_${suffix}\\b`) }).count(), suffix).toBe(1);
+    }
+    const ownText = (await own.textContent()) ?? '';
+    for (const stem of ['tensile_strength', 'shear_yield', 'service_temperature', 'sustained_load_factors']) expect(ownText).toContain(stem);
+
+    // The template the page links to, checked as it is: two rows, both demo data, none confirmed.
+    const template = await page.request.get(`${baseUrl}/api/library/import/template.csv`);
+    expect(template.status()).toBe(200);
+    await page.getByLabel('CSV file').setInputFiles({ name: 'template.csv', mimeType: 'text/csv', buffer: Buffer.from(await template.text(), 'utf8') });
+    await page.getByText('Every row is valid.').waitFor();
+    const sample = page.getByRole('table', { name: 'Sample rows' });
+    const cells = await sample.locator('tbody tr td:last-child').allTextContents();
+    expect(cells).toEqual(['0 of 13demo data', '0 of 11demo data']);
+  });
+
   it('shows the row issues of an import the server refused, when the catalogue changed after the check', async () => {
     const { page, baseUrl } = s;
     await s.context.clearCookies();

@@ -5,6 +5,7 @@ import type { Transaction } from 'sequelize';
 import { Material, Reference } from '../../../db/models';
 import { materialInputSchema, type Family, type MaterialInput, type ReferenceInput } from '../../../../shared/schemas/catalogue';
 import type { DraftData, ImportIssueDto, ImportPreviewDto } from '../../../../shared/schemas/library';
+import { inputStatus, presentKeys } from '../../../../shared/schemas/provenance';
 import { rowMapper } from './map-rows';
 import type { CsvTable } from './read-file';
 
@@ -109,6 +110,7 @@ export function previewOf(a: Analysis): ImportPreviewDto {
       tensileStrength: draft.tensileStrength,
       compressiveStrength: draft.compressiveStrength,
       shearStrength: draft.shearStrength,
+      status: (({ confirmed, total, demo }) => ({ confirmed, total, demo }))(inputStatus(draft.provenance, presentKeys(draft))),
     })),
     newMaterials: [...a.newMaterials.values()].map((m) => m.name).slice(0, MAX_ISSUES),
     newReferences: [...a.newReferences.values()].map((r) => r.title).slice(0, MAX_ISSUES),

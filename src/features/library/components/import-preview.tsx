@@ -10,7 +10,7 @@ import { numeric, PlainTable } from '@/components/ui/column-heads';
 function SampleTable({ sample }: { sample: ImportPreviewDto['sample'] }) {
   const { format, label } = useUnits();
   return (
-    <PlainTable label="Sample rows" columns={[numeric('Row'), 'Material', 'Condition', 'Source', numeric(`Tensile (${label('stress')})`), numeric(`Compressive (${label('stress')})`), numeric(`Shear (${label('stress')})`)]}>
+    <PlainTable label="Sample rows" columns={[numeric('Row'), 'Material', 'Condition', 'Source', numeric(`Tensile (${label('stress')})`), numeric(`Compressive (${label('stress')})`), numeric(`Shear (${label('stress')})`), 'Values confirmed']}>
       {sample.map((s) => (
         <tr key={s.row} className="border-t border-chart-line/60 align-top">
           <td className="py-1 pr-3 text-right">{s.row}</td>
@@ -22,7 +22,11 @@ function SampleTable({ sample }: { sample: ImportPreviewDto['sample'] }) {
           <td className="py-1 pr-3 text-xs">{s.reference}</td>
           <td className="py-1 pr-3 text-right">{format('stress', s.tensileStrength, { unit: false })}</td>
           <td className="py-1 pr-3 text-right">{format('stress', s.compressiveStrength, { unit: false })}</td>
-          <td className="py-1 text-right">{format('stress', s.shearStrength, { unit: false })}</td>
+          <td className="py-1 pr-3 text-right">{format('stress', s.shearStrength, { unit: false })}</td>
+          <td className="whitespace-nowrap py-1 text-xs">
+            {s.status.confirmed} of {s.status.total}
+            {s.status.demo ? <span className="block text-ink-soft">demo data</span> : null}
+          </td>
         </tr>
       ))}
     </PlainTable>
