@@ -478,8 +478,14 @@ describe('value status (provenance) of the seed check', () => {
     // A source other than the set's own reference is named by title and public address; where the
     // seed check could not record one (a file found through a code search), the source says so.
     for (const { set, key, entry } of entries) {
-      if (entry.source) expect(entry.source, `${label(set)}: ${key}`).toMatch(/https?:\/\/|github\.com\/|catalogue reference|not recorded|quoted/);
+      if (entry.source) expect(entry.source, `${label(set)}: ${key}`).toMatch(/https?:\/\/|github\.com\/|catalogue reference|not recorded|quoted|does not cite/);
     }
+  });
+
+  it('names no supplier: no address of a supplier or distributor site in any note, location or source', () => {
+    // The sites the seed check read, whose names are company names; they stay out of the catalogue.
+    const suppliers = /tridentplastics|tricormetals|proglas|yearlong|mfgproto|samson-supply|eagle-plastics|woohoceramic|k-mac-plastics|usplastic|jetminmetal|ashlandaluminum|castinew/i;
+    expect(JSON.stringify(catalogue)).not.toMatch(suppliers);
   });
 
   it('holds no demo data: the invented Harrow Sound records belong to tests and the demo project only', () => {
@@ -488,7 +494,7 @@ describe('value status (provenance) of the seed check', () => {
     for (const r of catalogue.references) expect(`${r.title} ${r.authors ?? ''} ${r.note ?? ''}`, r.key).not.toMatch(/harrow|demo data/i);
   });
 
-  it('confirms more than half of all values, counted as the research counts them', () => {
+  it('confirms the values data/README.md counts, family by family, counted as the research counts them', () => {
     // Each present scalar once, the service range once, each non-empty dependence curve once
     // (presentKeys); confirmed and derived values count, recalled ones (no entry) do not.
     const byFamily = new Map<Family, { total: number; confirmed: number; derived: number }>();
@@ -508,7 +514,21 @@ describe('value status (provenance) of the seed check', () => {
       return `  ${family.padEnd(17)} ${String(f.confirmed + f.derived).padStart(3)} of ${String(f.total).padStart(3)} (${pct(f)}; confirmed ${f.confirmed}, derived ${f.derived})`;
     });
     console.log(`Seed values confirmed or derived: ${all.confirmed + all.derived} of ${all.total} (${pct(all)}; confirmed ${all.confirmed}, derived ${all.derived})\n${lines.join('\n')}`);
-    expect((all.confirmed + all.derived) / all.total).toBeGreaterThan(0.5);
+    // The table "How much is confirmed" of data/README.md: change both together. Values checked
+    // only against a supplier's data sheet are recalled (the catalogue names no supplier).
+    expect(Object.fromEntries(FAMILIES.map((family) => [family, byFamily.get(family)]))).toEqual({
+      acrylic: { total: 42, confirmed: 9, derived: 1 },
+      polycarbonate: { total: 24, confirmed: 0, derived: 2 },
+      glass: { total: 65, confirmed: 20, derived: 10 },
+      'glass-ceramic': { total: 22, confirmed: 2, derived: 3 },
+      'sapphire-alumina': { total: 23, confirmed: 4, derived: 4 },
+      'titanium-alloy': { total: 51, confirmed: 20, derived: 11 },
+      steel: { total: 61, confirmed: 17, derived: 16 },
+      'aluminium-alloy': { total: 50, confirmed: 28, derived: 7 },
+      'fibre-composite': { total: 29, confirmed: 0, derived: 0 },
+      'syntactic-foam': { total: 28, confirmed: 0, derived: 0 },
+    });
+    expect(all).toEqual({ total: 395, confirmed: 100, derived: 54 });
   });
 
   // The corrections of the seed check, each pinned with the public source it was read in.
@@ -568,10 +588,13 @@ describe('value status (provenance) of the seed check', () => {
     expect(referenceByKey.get('nist-srd150-alumina')?.identifier).toMatch(/Standard Reference Database 150/);
   });
 
-  it('a public polycarbonate data sheet, ASTM D732: shear yield 41.4 MPa (6,000 psi), confirmed in both polycarbonate sets', () => {
-    // Source: a distributor's machine-grade polycarbonate data sheet: "Shear Strength at Yield (ASTM D732) 6000 psi".
+  it('polycarbonate shear yield 41.4 MPa (6,000 psi, ASTM D732) in both polycarbonate sets, recalled: only a supplier data sheet showed it', () => {
+    // Read in a distributor's machine-grade polycarbonate data sheet ("Shear Strength at Yield
+    // (ASTM D732) 6000 psi"); the catalogue names no supplier, so the value stays recalled, with
+    // the location kept for whoever confirms it against the set's reference.
     for (const reference of ['asm-emh2-plastics-1988', 'harper-plastics-handbook-2002']) {
-      expect(entry('polycarbonate', reference, 'shearYield')).toMatchObject({ status: 'confirmed', location: expect.stringContaining('6,000 psi') });
+      expect(onlySet('polycarbonate', reference).shearYield).toBeCloseTo(41.4e6, -4);
+      expect(entry('polycarbonate', reference, 'shearYield')).toMatchObject({ status: 'recalled', location: expect.stringContaining('6,000 psi'), source: expect.stringContaining('does not cite') });
     }
   });
 
