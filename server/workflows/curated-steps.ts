@@ -53,6 +53,8 @@ export interface CuratedKind<M extends CuratedRow> {
   checkPublishable?(row: M, transaction: Transaction): Promise<void>;
   /** Work of its own when the record is published, in the approval's transaction (before it is saved). */
   onPublish?(row: M, actor: Actor, transaction: Transaction): Promise<void>;
+  /** Work of its own when a published record leaves the catalogue (retired or superseded), in that step's transaction. */
+  onRetire?(row: M, reason: string, actor: Actor, transaction: Transaction): Promise<void>;
   /** The attributes of a new draft revising `row` (content only: the runner sets the workflow columns). */
   revisionOf(row: M): Record<string, unknown>;
   /** After any committed step (e.g. drop the catalogue snapshot). */
@@ -101,8 +103,10 @@ async function publish<M extends CuratedRow>(kind: CuratedKind<M>, row: M, actor
     const old = await lockCurrent(kind.model, transaction, row.supersedesId, null, capital(kind.noun));
     const oldBefore = auditSnapshot(old);
     // Retire the old version first: a lineage has at most one published version (unique index).
-    old.set({ supersededById: row.id, ...(old.status === 'published' ? { status: 'retired', retiredAt: now } : {}) } as never);
+    const wasPublished = old.status === 'published';
+    old.set({ supersededById: row.id, ...(wasPublished ? { status: 'retired', retiredAt: now } : {}) } as never);
     await old.save({ transaction });
+    if (wasPublished) await kind.onRetire?.(old, `the ${kind.noun} was superseded by version ${row.version}`, actor, transaction);
     await recordAudit(transaction, { actorId: actor.id, action: 'supersede', entityType: kind.entityType, entityId: old.id, before: oldBefore, after: auditSnapshot(old) });
   }
   await kind.onPublish?.(row, actor, transaction);
@@ -157,6 +161,7 @@ function workflowOf<M extends CuratedRow>(kind: CuratedKind<M>): WorkflowKind<Cu
           return;
         case 'retire':
           row.set({ status: 'retired', retiredAt: now } as never);
+          await kind.onRetire?.(row, `the ${kind.noun} was retired${comment ? ` (${comment})` : ''}`, actor, transaction);
       }
     },
     afterCommit: kind.afterCommit,

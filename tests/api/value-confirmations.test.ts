@@ -92,4 +92,35 @@ describe('value confirmations', () => {
     expect(draft.status, JSON.stringify(draft.body)).toBe(201);
     expect((await librarian.post(`/api/library/sets/${draft.body.id}/confirmations`).send({ key: 'density', location: 'p. 1' })).status).toBe(409);
   });
+
+  it('closes the proposals still waiting on a set that is retired or superseded, with the reason, audited', async () => {
+    const lock = async (id: number) => (await second.get(`/api/library/sets/${id}`)).body.lockVersion as number;
+    // Retired with a reason.
+    const retiredId = await setWithUnconfirmed('density', 3);
+    const p1 = await librarian.post(`/api/library/sets/${retiredId}/confirmations`).send({ key: 'density', location: 'Table 1, row 2' });
+    expect(p1.status).toBe(201);
+    const retired = await second.post(`/api/library/sets/${retiredId}/retire`).send({ lockVersion: await lock(retiredId), reason: 'Replaced by the lot-certified set.' });
+    expect(retired.status, JSON.stringify(retired.body)).toBe(200);
+    const closed = (await second.get(`/api/library/confirmations?propertySetId=${retiredId}`)).body.items.find((c: { id: number }) => c.id === p1.body.id);
+    expect(closed).toMatchObject({ status: 'rejected', decidedBy: { name: 'Lowena Hosking' } });
+    expect(closed.comment).toMatch(/^Closed without a decision: the property set was retired \(Replaced by the lot-certified set\.\)/);
+    expect(await AuditEntry.count({ where: { entityType: 'value-confirmation', entityId: String(p1.body.id), action: 'close' } })).toBe(1);
+
+    // Superseded: a revision approved by another librarian retires the old version and closes its proposals.
+    const oldId = await setWithUnconfirmed('density', 3);
+    const p2 = await librarian.post(`/api/library/sets/${oldId}/confirmations`).send({ key: 'density', location: 'Table 1, row 3' });
+    expect(p2.status).toBe(201);
+    const draft = await librarian.post(`/api/library/sets/${oldId}/revise`).send({ lockVersion: await lock(oldId) });
+    expect(draft.status, JSON.stringify(draft.body)).toBe(201);
+    expect((await librarian.post(`/api/library/sets/${draft.body.id}/submit`).send({ lockVersion: draft.body.lockVersion })).status).toBe(200);
+    const approved = await second.post(`/api/library/sets/${draft.body.id}/approve`).send({ lockVersion: await lock(draft.body.id) });
+    expect(approved.status, JSON.stringify(approved.body)).toBe(200);
+    const superseded = (await second.get(`/api/library/confirmations?propertySetId=${oldId}`)).body.items.find((c: { id: number }) => c.id === p2.body.id);
+    expect(superseded.status).toBe('rejected');
+    expect(superseded.comment).toContain(`the property set was superseded by version ${approved.body.version}`);
+    // Nothing waits any more on a set that cannot be decided.
+    const queue = (await second.get('/api/library/confirmations?status=proposed')).body.items.map((c: { propertySetId: number }) => c.propertySetId);
+    expect(queue).not.toContain(retiredId);
+    expect(queue).not.toContain(oldId);
+  });
 });

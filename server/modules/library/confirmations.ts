@@ -2,7 +2,7 @@
 // a librarian proposes where the source shows it; a different person approves, which marks the
 // value confirmed on the set (who proposed, who approved, when), or rejects it with a comment.
 // The set's values never change here: only what is known about them.
-import { Op, UniqueConstraintError } from 'sequelize';
+import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
 import { PropertySet, Reference, User, ValueConfirmation, Material } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { badRequest, conflict, notFound } from '../../errors';
@@ -138,4 +138,21 @@ const confirmationKind: WorkflowKind<ConfirmationStatus, ConfirmationStepName, V
 export async function stepConfirmation(id: number, input: ConfirmationStepInput, actor: Actor): Promise<ValueConfirmationDto> {
   await runStep(confirmationKind, id, input.step, { lockVersion: input.lockVersion, comment: 'comment' in input ? input.comment : undefined }, actor);
   return load(id);
+}
+
+/**
+ * When a published set leaves the catalogue (retired, or superseded by a new version), the
+ * confirmations still waiting on it can no longer be decided (approval needs a published set):
+ * they are closed as rejected with the reason, in the same transaction, each audited. A value that
+ * still stands in the source is proposed again on the current version.
+ */
+export async function closeOpenConfirmations(propertySetId: number, reason: string, actor: Actor, transaction: Transaction): Promise<void> {
+  const open = await ValueConfirmation.findAll({ where: { propertySetId, status: 'proposed' }, order: [['id', 'ASC']], lock: transaction.LOCK.UPDATE, transaction });
+  const now = new Date();
+  for (const c of open) {
+    const before = auditSnapshot(c);
+    c.set({ status: 'rejected', decidedById: actor.id, decidedAt: now, comment: `Closed without a decision: ${reason}. Propose it again on the current version if the value still stands in the source.` });
+    await c.save({ transaction });
+    await recordAudit(transaction, { actorId: actor.id, action: 'close', entityType: 'value-confirmation', entityId: c.id, before, after: auditSnapshot(c) });
+  }
 }

@@ -17,6 +17,7 @@ import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
 import { referenceFields } from '../references/service';
 import { citedVersionId } from '../references/versions';
 import { keepApprovals, stampConfirmations } from './provenance';
+import { closeOpenConfirmations } from './confirmations';
 
 export type { Actor } from '../../workflows/curated-steps';
 
@@ -243,6 +244,8 @@ const propertySetKind: CuratedKind<PropertySet> = {
     const author = authorId ? await User.findByPk(authorId, { attributes: ['id', 'name'], transaction }) : null;
     row.set({ provenance: stampConfirmations(row.provenance ?? {}, author ? { id: author.id, name: author.name } : { id: 0, name: 'unknown' }, { id: actor.id, name: actor.name }, new Date()) });
   },
+  // Confirmations still waiting on a set that leaves the catalogue can no longer be decided.
+  onRetire: (row, reason, actor, transaction) => closeOpenConfirmations(row.id, reason, actor, transaction),
   // Publishing or retiring changes the catalogue every process serves.
   afterCommit: () => invalidateCatalogueSnapshot(),
 };
