@@ -5,7 +5,7 @@ import type { DesignRecordContent, DesignRecordDto } from '@shared/schemas/proje
 import { FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
 import { Button } from '@/components/ui/button';
-import { ErrorState, Spinner, Tag } from '@/components/ui/states';
+import { QueryStatus, Spinner, Tag } from '@/components/ui/states';
 import { formatDateTime } from '@/lib/dates';
 import { useUnits } from '@/lib/unit-system';
 import { RECORD_SECTIONS, REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
@@ -336,7 +336,6 @@ function RecordView({ record, canExport }: { record: DesignRecordDto; canExport:
 
 export function RecordPage({ id, canExport }: { id: number; canExport: boolean }) {
   const record = useDesignRecord(id);
-  if (record.isPending) return <Spinner label="Loading the design record…" />;
-  if (record.isError) return <ErrorState error={record.error} onRetry={() => void record.refetch()} />;
+  if (record.isPending || record.isError) return <QueryStatus query={record} loading="Loading the design record…" />;
   return <RecordView record={record.data} canExport={canExport} />;
 }
