@@ -1,4 +1,5 @@
-import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
+import { useSaveMutation } from '@/lib/query-client';
 import { api } from '@/lib/api-client';
 import type { ReferenceInput } from '@shared/schemas/catalogue';
 import type { ReferenceListDto, ReferencePageDto, ReferenceVersionStepInput, PendingReferenceVersionDto } from '@shared/schemas/library';
@@ -15,24 +16,17 @@ export const documentUrl = (referenceId: number) => `/api/references/${reference
 /** Where one document version is downloaded. */
 export const documentVersionUrl = (referenceId: number, version: number) => `/api/references/${referenceId}/documents/${version}`;
 
-/**
- * A mutation answered with the saved reference page: the page goes into the cache, and the lists,
- * the proposed changes and the sets that show the reference refresh.
- */
-function useReferenceMutation<V>(mutationFn: (vars: V) => Promise<ReferencePageDto>) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn,
-    onSuccess: (ref: ReferencePageDto) => {
-      qc.setQueryData(referenceKeys.detail(ref.id), ref);
-      void qc.invalidateQueries({ queryKey: referenceKeys.lists() });
-      void qc.invalidateQueries({ queryKey: [...referenceKeys.all, 'proposed'] });
-      // Sets show their reference, so the catalogue and desk views refresh too.
-      void qc.invalidateQueries({ queryKey: librarySetKeys.all });
-      for (const root of CATALOGUE_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
-    },
-  });
+/** The saved reference page goes into the cache; the lists, the proposed changes and the sets that show it refresh. */
+function referenceSaved(qc: QueryClient, ref: ReferencePageDto) {
+  qc.setQueryData(referenceKeys.detail(ref.id), ref);
+  void qc.invalidateQueries({ queryKey: referenceKeys.lists() });
+  void qc.invalidateQueries({ queryKey: [...referenceKeys.all, 'proposed'] });
+  // Sets show their reference, so the catalogue and desk views refresh too.
+  void qc.invalidateQueries({ queryKey: librarySetKeys.all });
+  for (const root of CATALOGUE_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
 }
+
+const useReferenceMutation = <V>(mutationFn: (vars: V) => Promise<ReferencePageDto>) => useSaveMutation(mutationFn, referenceSaved);
 
 export const useCreateReference = () => useReferenceMutation((input: ReferenceInput) => api.post<ReferencePageDto>('/references', input));
 

@@ -1,4 +1,5 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
+import { useSaveMutation } from '@/lib/query-client';
 import { api, upload } from '@/lib/api-client';
 import type { RatingTableCsvDto, RatingTableData, RatingTableDraftInput, RatingTableDto, RatingTableListDto, RatingTableStepInput } from '@shared/schemas/rating-tables';
 import { queryKeys } from '@/lib/query-keys';
@@ -23,18 +24,14 @@ export const useRatingTable = (id: number) => useQuery(ratingTableQueryOptions(i
 /** Evaluations and the catalogue read published tables: a step refreshes them all. */
 const EVALUATION_KEY_ROOTS = [['evaluate'], ['property-sets'], ['materials']] as const;
 
-/** A mutation answered with the saved table: it goes into the cache, and the lists and evaluations refresh. */
-function useRatingTableMutation<V>(mutationFn: (vars: V) => Promise<RatingTableDto>) {
-  const qc = useQueryClient();
-  return useMutation({
-    mutationFn,
-    onSuccess: (table: RatingTableDto) => {
-      qc.setQueryData(ratingTableKeys.detail(table.id), table);
-      void qc.invalidateQueries({ queryKey: ratingTableKeys.lists() });
-      for (const root of EVALUATION_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
-    },
-  });
+/** The saved table goes into the cache; the lists and what evaluates with published tables refresh. */
+function ratingTableSaved(qc: QueryClient, table: RatingTableDto) {
+  qc.setQueryData(ratingTableKeys.detail(table.id), table);
+  void qc.invalidateQueries({ queryKey: ratingTableKeys.lists() });
+  for (const root of EVALUATION_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
 }
+
+const useRatingTableMutation = <V>(mutationFn: (vars: V) => Promise<RatingTableDto>) => useSaveMutation(mutationFn, ratingTableSaved);
 
 export const useCreateRatingTable = () => useRatingTableMutation((draft: RatingTableDraftInput) => api.post<RatingTableDto>('/rating-tables', draft));
 
