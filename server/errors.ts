@@ -26,6 +26,22 @@ export class AppError extends Error {
   }
 }
 
+/**
+ * An outside service (the mail server, the object store) could not be reached (503) or refused the
+ * request (502); `cause` keeps what it said, for the log.
+ */
+export class OutsideServiceError<C extends ErrorCode = ErrorCode> extends AppError {
+  declare readonly code: C;
+  constructor(
+    status: 502 | 503,
+    code: C,
+    message: string,
+    readonly cause?: unknown,
+  ) {
+    super(status, code, message);
+  }
+}
+
 export const badRequest = (message: string, fields?: FieldErrors, code: ErrorCode = 'invalid_input', rows?: RowIssues) =>
   new AppError(400, code, message, fields, rows);
 export const unauthorized = (message = 'Sign in to continue.') => new AppError(401, 'unauthenticated', message);

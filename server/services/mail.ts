@@ -6,19 +6,11 @@ import path from 'node:path';
 import nodemailer, { type SMTPSentMessageInfo, type Transporter } from 'nodemailer';
 import { z } from 'zod';
 import { ROOT_DIR, env } from '../config/env';
-import { AppError, badRequest, fieldErrorsFromZod, notFound } from '../errors';
+import { OutsideServiceError, badRequest, fieldErrorsFromZod, notFound } from '../errors';
 
 /** The SMTP server could not be reached (503) or refused the message (502). */
-export class MailError extends AppError {
-  constructor(
-    status: 502 | 503,
-    code: 'mail_unavailable' | 'mail_failed',
-    message: string,
-    readonly cause?: unknown,
-  ) {
-    super(status, code, message);
-    this.name = 'MailError';
-  }
+export class MailError extends OutsideServiceError<'mail_unavailable' | 'mail_failed'> {
+  override name = 'MailError';
 }
 
 const sendMailSchema = z.strictObject({

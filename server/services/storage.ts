@@ -13,7 +13,7 @@ import {
   type BucketLocationConstraint,
 } from '@aws-sdk/client-s3';
 import { env } from '../config/env';
-import { AppError } from '../errors';
+import { AppError, OutsideServiceError } from '../errors';
 
 /** The stored object asked for is not in the bucket. */
 export class DocumentNotFoundError extends AppError {
@@ -35,16 +35,8 @@ export class InvalidDocumentKeyError extends AppError {
 }
 
 /** The object store could not be reached (503) or refused the request (502). Logged where raised. */
-export class StorageError extends AppError {
-  constructor(
-    status: 502 | 503,
-    code: 'storage_unavailable' | 'storage_failed',
-    message: string,
-    readonly cause?: unknown,
-  ) {
-    super(status, code, message);
-    this.name = 'StorageError';
-  }
+export class StorageError extends OutsideServiceError<'storage_unavailable' | 'storage_failed'> {
+  override name = 'StorageError';
 }
 
 export interface PutDocumentInput {
@@ -200,42 +192,42 @@ async function removePartial(key: string): Promise<void> {
   }
 }
 
-/** Opens a stored document for reading. Throws DocumentNotFoundError when it is not there. */
-export async function getDocument(key: string): Promise<StoredDocument> {
+/** One request to the store about a document: the key checked first, a failure as storageFailure words it. */
+async function onDocument<T>(action: string, key: string, request: (client: S3Client) => Promise<T>): Promise<T> {
   assertDocumentKey(key);
   try {
-    const out = await storageClient().send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
+    return await request(storageClient());
+  } catch (err) {
+    throw storageFailure(err, action, key);
+  }
+}
+
+/** Opens a stored document for reading. Throws DocumentNotFoundError when it is not there. */
+export async function getDocument(key: string): Promise<StoredDocument> {
+  return onDocument('get', key, async (client) => {
+    const out = await client.send(new GetObjectCommand({ Bucket: bucket(), Key: key }));
     if (!(out.Body instanceof Readable)) throw new Error('the store returned no readable body');
     return {
       stream: out.Body,
       contentType: out.ContentType ?? 'application/octet-stream',
       contentLength: out.ContentLength,
     };
-  } catch (err) {
-    throw storageFailure(err, 'get', key);
-  }
+  });
 }
 
 /** Deletes a stored document. Idempotent: deleting a missing key succeeds, as in S3 itself. */
 export async function deleteDocument(key: string): Promise<void> {
-  assertDocumentKey(key);
-  try {
-    await storageClient().send(new DeleteObjectCommand({ Bucket: bucket(), Key: key }));
-  } catch (err) {
-    throw storageFailure(err, 'delete', key);
-  }
+  await onDocument('delete', key, (client) => client.send(new DeleteObjectCommand({ Bucket: bucket(), Key: key })));
 }
 
 /** True when an object is stored under `key`. */
 export async function documentExists(key: string): Promise<boolean> {
-  assertDocumentKey(key);
   try {
-    await storageClient().send(new HeadObjectCommand({ Bucket: bucket(), Key: key }));
+    await onDocument('head', key, (client) => client.send(new HeadObjectCommand({ Bucket: bucket(), Key: key })));
     return true;
   } catch (err) {
-    const failure = storageFailure(err, 'head', key);
-    if (failure instanceof DocumentNotFoundError) return false;
-    throw failure;
+    if (err instanceof DocumentNotFoundError) return false;
+    throw err;
   }
 }
 

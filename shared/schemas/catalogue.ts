@@ -143,8 +143,8 @@ export const propertySetQuerySchema = z
   });
 export type PropertySetQuery = z.infer<typeof propertySetQuerySchema>;
 
-export interface ReferenceDto {
-  id: number;
+/** A reference's citation fields, as the reference and each of its versions hold them. */
+export interface ReferenceCitationDto {
   kind: ReferenceKind;
   title: string;
   authors: string | null;
@@ -152,6 +152,10 @@ export interface ReferenceDto {
   identifier: string | null;
   location: string | null;
   note: string | null;
+}
+
+export interface ReferenceDto extends ReferenceCitationDto {
+  id: number;
   /**
    * True when an uploaded document (PDF) can be downloaded from /api/references/:id/document.
    * Optional so older fixtures need not carry it; the server should always send it.
@@ -180,6 +184,17 @@ export interface MaterialDto {
 export interface UserRefDto {
   id: number;
   name: string;
+}
+
+/** Who drafted, last edited and approved a reviewed record, and when it was submitted and published. */
+export interface ReviewTrailDto {
+  draftedBy: UserRefDto | null;
+  lastEditedBy: UserRefDto | null;
+  approvedBy: UserRefDto | null;
+  /** The reviewer's comment when it was sent back to its author. */
+  returnedComment: string | null;
+  submittedAt: string | null;
+  publishedAt: string | null;
 }
 
 export interface PropertySetDto {

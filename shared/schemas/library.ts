@@ -9,7 +9,9 @@ import {
   propertyValuesSchema,
   referenceInputSchema,
   type PropertySetDto,
+  type ReferenceCitationDto,
   type ReferenceDto,
+  type ReviewTrailDto,
 } from './catalogue';
 import type { ItemsDto, ListDto } from './responses';
 
@@ -143,31 +145,16 @@ export interface ReferenceDetailDto extends ReferenceDto {
   inUse: boolean;
 }
 
-/** A reference's citation fields as one version holds them. */
-export interface ReferenceCitationDto {
-  kind: ReferenceDto['kind'];
-  title: string;
-  authors: string | null;
-  year: number | null;
-  identifier: string | null;
-  location: string | null;
-  note: string | null;
-}
+export type { ReferenceCitationDto };
 
 /** One version of a reference's citation: published, retired (superseded), or a proposed change. */
-export interface ReferenceVersionDto {
+export interface ReferenceVersionDto extends ReviewTrailDto {
   id: number;
   referenceId: number;
   version: number;
   status: 'draft' | 'in-review' | 'published' | 'retired';
   citation: ReferenceCitationDto;
   lockVersion: number;
-  draftedBy: { id: number; name: string } | null;
-  lastEditedBy: { id: number; name: string } | null;
-  approvedBy: { id: number; name: string } | null;
-  returnedComment: string | null;
-  submittedAt: string | null;
-  publishedAt: string | null;
   retiredAt: string | null;
   updatedAt: string;
   /** What it changes against the version it supersedes (field, before, after). */

@@ -10,6 +10,7 @@
  */
 import { z } from 'zod';
 import { oneLineText } from './text';
+import type { ReviewTrailDto } from './catalogue';
 
 const finite = (label: string) =>
   z.number({ error: (iss) => (iss.input === undefined ? `${label} is required.` : `${label} must be a number.`) }).refine(Number.isFinite, `${label} must be a finite number.`);
@@ -184,7 +185,7 @@ export const ratingTableQuerySchema = z.strictObject({
 
 export const ratingTableCsvQuerySchema = z.strictObject({ form: z.enum(['minimum-ratio', 'critical-pressure']).default('minimum-ratio') });
 
-export interface RatingTableDto {
+export interface RatingTableDto extends ReviewTrailDto {
   id: number;
   status: 'draft' | 'in-review' | 'published' | 'retired';
   version: number;
@@ -195,12 +196,6 @@ export interface RatingTableDto {
   /** The property sets (their current version in each covered lineage); empty list = every set of the material. */
   covers: { lineageId: number; propertySetId: number; condition: string }[];
   content: RatingTableContent;
-  draftedBy: { id: number; name: string } | null;
-  lastEditedBy: { id: number; name: string } | null;
-  approvedBy: { id: number; name: string } | null;
-  returnedComment: string | null;
-  submittedAt: string | null;
-  publishedAt: string | null;
   supersedesId: number | null;
   supersededById: number | null;
   updatedAt: string;

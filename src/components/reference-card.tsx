@@ -1,7 +1,21 @@
 import { Link } from 'react-router-dom';
-import type { ReferenceDto } from '@shared/schemas/catalogue';
+import type { ReferenceCitationDto, ReferenceDto } from '@shared/schemas/catalogue';
 import { REFERENCE_KIND_LABELS } from '@shared/labels';
 import { Tag } from '@/components/ui/states';
+
+/** A citation's title, its authors, year and where in the source, and its note: the card's and the record's words. */
+export function CitationLines({ reference }: { reference: ReferenceCitationDto }) {
+  return (
+    <>
+      <p className="font-bold">{reference.title}</p>
+      <p className="text-ink-soft">
+        {[reference.authors, reference.year].filter(Boolean).join(', ')}
+        {reference.location ? ` — ${reference.location}` : ''}
+      </p>
+      {reference.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{reference.note}</p> : null}
+    </>
+  );
+}
 
 /** The full citation of a property set's source, with its PDF when one is stored. */
 export function ReferenceCard({
@@ -20,12 +34,7 @@ export function ReferenceCard({
         <Tag tone="brass">{REFERENCE_KIND_LABELS[reference.kind]}</Tag>
         {reference.identifier ? <span className="font-mono text-xs">{reference.identifier}</span> : null}
       </div>
-      <p className="font-bold">{reference.title}</p>
-      <p className="text-ink-soft">
-        {[reference.authors, reference.year].filter(Boolean).join(', ')}
-        {reference.location ? ` — ${reference.location}` : ''}
-      </p>
-      {reference.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{reference.note}</p> : null}
+      <CitationLines reference={reference} />
       {reference.version !== undefined ? (
         <p className="text-xs text-ink-soft" data-testid={`${testId}-version`}>
           Citation version {reference.version}

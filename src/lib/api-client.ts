@@ -26,6 +26,9 @@ export class ApiError extends Error {
 }
 
 /** The server's 409 `stale`: someone saved the record after this form read it (optimistic locking). */
+/** What a failed request says, in the API's words; one the server never answered says so. */
+export const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
+
 export const isStale = (err: unknown): err is ApiError => err instanceof ApiError && err.status === 409 && err.code === 'stale';
 
 type Query = Record<string, string | number | boolean | undefined | null>;

@@ -1,4 +1,4 @@
-import { QueryClient } from '@tanstack/react-query';
+import { QueryClient, useMutation, useQueryClient } from '@tanstack/react-query';
 import { ApiError } from './api-client';
 
 export const queryClient = new QueryClient({
@@ -11,3 +11,12 @@ export const queryClient = new QueryClient({
     },
   },
 });
+
+/**
+ * A mutation answered with what was saved: `saved` puts it into the cache and refreshes what shows
+ * it (the answer comes after the server's commit, so nothing is refreshed before it).
+ */
+export function useSaveMutation<V, D>(mutationFn: (vars: V) => Promise<D>, saved: (qc: QueryClient, data: D) => void) {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn, onSuccess: (data: D) => saved(qc, data) });
+}

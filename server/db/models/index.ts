@@ -12,50 +12,36 @@ import { initProjectModels } from './projects';
 import { initRatingTableModels } from './rating-tables';
 import { initValueConfirmationModels } from './value-confirmations';
 import { initReferenceModels, ReferenceVersion } from './references';
-import { CuratedModel, curatedAssociations, curatedColumns, lockVersionColumn, serialId, timestamps } from './columns';
+import { CuratedModel, TimestampedModel, VersionedModel, citationColumns, createdOnlyTable, curatedAssociations, curatedColumns, serialId, timestampedColumns, versionedColumns, versionedTable } from './columns';
 import type {
   CyclesPoint,
   Family,
   HoursPoint,
   Quantity,
-  ReferenceKind,
+  ReferenceCitationDto,
   TemperaturePoint,
   ValueDetail,
 } from '../../../shared/schemas/catalogue';
 import type { Role } from '../../../shared/schemas/auth';
 import type { Provenance } from '../../../shared/schemas/provenance';
 
-export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
-  declare id: CreationOptional<number>;
+export class User extends TimestampedModel<InferAttributes<User>, InferCreationAttributes<User>> {
   declare email: string;
   declare name: string;
   declare role: Role;
   declare passwordHash: string | null;
   declare active: CreationOptional<boolean>;
   declare lastLoginAt: Date | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
-export class Material extends Model<InferAttributes<Material>, InferCreationAttributes<Material>> {
-  declare id: CreationOptional<number>;
+export class Material extends TimestampedModel<InferAttributes<Material>, InferCreationAttributes<Material>> {
   declare name: string;
   declare family: Family;
   declare transparent: boolean;
   declare description: string | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
 
-export class Reference extends Model<InferAttributes<Reference>, InferCreationAttributes<Reference>> {
-  declare id: CreationOptional<number>;
-  declare kind: ReferenceKind;
-  declare title: string;
-  declare authors: string | null;
-  declare year: number | null;
-  declare identifier: string | null;
-  declare location: string | null;
-  declare note: string | null;
+export class Reference extends VersionedModel<InferAttributes<Reference>, InferCreationAttributes<Reference>> {
   declare createdById: ForeignKey<User['id']> | null;
   /** Object-store key of the uploaded document (null: none); name, size and time go with it. */
   declare documentKey: CreationOptional<string | null>;
@@ -66,10 +52,10 @@ export class Reference extends Model<InferAttributes<Reference>, InferCreationAt
   declare documentVersion: CreationOptional<number | null>;
   /** The published version of the citation, whose content these columns hold (reference_versions). */
   declare version: CreationOptional<number>;
-  declare lockVersion: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
 }
+
+// The citation's fields (kind, title, authors, year, identifier, location, note), as each version has them.
+export interface Reference extends ReferenceCitationDto {}
 
 export class PropertySet extends CuratedModel<InferAttributes<PropertySet>, InferCreationAttributes<PropertySet>> {
   declare condition: string;
@@ -115,39 +101,28 @@ export function initModels(): void {
   if (initialised) return;
   const db = sequelize();
   User.init(
-    {
-      ...serialId(),
+    timestampedColumns({
       email: { type: DataTypes.TEXT, allowNull: false, unique: true },
       name: { type: DataTypes.TEXT, allowNull: false },
       role: { type: DataTypes.TEXT, allowNull: false },
       passwordHash: { type: DataTypes.TEXT },
       active: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
       lastLoginAt: { type: DataTypes.DATE },
-      ...timestamps(),
-    },
+    }),
     { sequelize: db, tableName: 'users' },
   );
   Material.init(
-    {
-      ...serialId(),
+    timestampedColumns({
       name: { type: DataTypes.TEXT, allowNull: false, unique: true },
       family: { type: DataTypes.TEXT, allowNull: false },
       transparent: { type: DataTypes.BOOLEAN, allowNull: false },
       description: { type: DataTypes.TEXT },
-      ...timestamps(),
-    },
+    }),
     { sequelize: db, tableName: 'materials' },
   );
   Reference.init(
-    {
-      ...serialId(),
-      kind: { type: DataTypes.TEXT, allowNull: false },
-      title: { type: DataTypes.TEXT, allowNull: false },
-      authors: { type: DataTypes.TEXT },
-      year: { type: DataTypes.INTEGER },
-      identifier: { type: DataTypes.TEXT },
-      location: { type: DataTypes.TEXT },
-      note: { type: DataTypes.TEXT },
+    versionedColumns({
+      ...citationColumns(),
       createdById: { type: DataTypes.INTEGER },
       documentKey: { type: DataTypes.TEXT },
       documentName: { type: DataTypes.TEXT },
@@ -162,10 +137,8 @@ export function initModels(): void {
       documentUploadedAt: { type: DataTypes.DATE },
       documentVersion: { type: DataTypes.INTEGER },
       version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
-      ...lockVersionColumn(),
-      ...timestamps(),
-    },
-    { sequelize: db, tableName: 'data_references', version: 'lockVersion' },
+    }),
+    versionedTable(db, 'data_references'),
   );
   initReferenceModels(db);
   PropertySet.init(
@@ -192,7 +165,7 @@ export function initModels(): void {
       provenance: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },
       ...curatedColumns(),
     },
-    { sequelize: db, tableName: 'property_sets', version: 'lockVersion' },
+    versionedTable(db, 'property_sets'),
   );
   AuditEntry.init(
     {
@@ -205,7 +178,7 @@ export function initModels(): void {
       after: { type: DataTypes.JSONB },
       createdAt: { type: DataTypes.DATE, allowNull: false },
     },
-    { sequelize: db, tableName: 'audit_log', updatedAt: false },
+    createdOnlyTable(db, 'audit_log'),
   );
 
   curatedAssociations(PropertySet, { Material, Reference, ReferenceVersion, User });

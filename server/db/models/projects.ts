@@ -11,16 +11,12 @@ import type { LoadCase } from '../../../shared/schemas/evaluate';
 import type { DesignRecordContent, ShortlistRoundDto, ShortlistStatus, ShortlistSubmission } from '../../../shared/schemas/projects';
 import type { Role } from '../../../shared/schemas/auth';
 import { PropertySet, User } from './index';
-import { lockVersionColumn, serialId, stamp, timestamps } from './columns';
+import { CreatedOnlyModel, OneTimeTokenModel, VersionedModel, createdOnlyColumns, createdOnlyTable, oneTimeTokenColumns, stamp, versionedColumns, versionedTable } from './columns';
 
-export class Project extends Model<InferAttributes<Project>, InferCreationAttributes<Project>> {
-  declare id: CreationOptional<number>;
+export class Project extends VersionedModel<InferAttributes<Project>, InferCreationAttributes<Project>> {
   declare name: string;
   declare description: string;
   declare ownerId: number;
-  declare lockVersion: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare owner?: NonAttribute<User>;
   declare members?: NonAttribute<User[]>;
 }
@@ -32,22 +28,17 @@ export class ProjectMember extends Model<InferAttributes<ProjectMember>, InferCr
   declare createdAt: CreationOptional<Date>;
 }
 
-export class LoadCaseRecord extends Model<InferAttributes<LoadCaseRecord>, InferCreationAttributes<LoadCaseRecord>> {
-  declare id: CreationOptional<number>;
+export class LoadCaseRecord extends VersionedModel<InferAttributes<LoadCaseRecord>, InferCreationAttributes<LoadCaseRecord>> {
   declare projectId: number;
   declare name: string;
   declare loadCase: LoadCase;
   declare filters: Record<string, unknown> | null;
   declare notes: string;
   declare createdById: number | null;
-  declare lockVersion: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare createdBy?: NonAttribute<User | null>;
 }
 
-export class Shortlist extends Model<InferAttributes<Shortlist>, InferCreationAttributes<Shortlist>> {
-  declare id: CreationOptional<number>;
+export class Shortlist extends VersionedModel<InferAttributes<Shortlist>, InferCreationAttributes<Shortlist>> {
   declare projectId: number;
   declare loadCaseId: number;
   declare name: string;
@@ -62,70 +53,48 @@ export class Shortlist extends Model<InferAttributes<Shortlist>, InferCreationAt
   declare submission: CreationOptional<ShortlistSubmission | null>;
   /** Every round of submit → return or check, oldest first. */
   declare rounds: CreationOptional<ShortlistRoundDto[]>;
-  declare lockVersion: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare author?: NonAttribute<User>;
   declare checker?: NonAttribute<User | null>;
   declare loadCaseRecord?: NonAttribute<LoadCaseRecord>;
   declare items?: NonAttribute<ShortlistItem[]>;
 }
 
-export class ShortlistItem extends Model<InferAttributes<ShortlistItem>, InferCreationAttributes<ShortlistItem>> {
-  declare id: CreationOptional<number>;
+export class ShortlistItem extends VersionedModel<InferAttributes<ShortlistItem>, InferCreationAttributes<ShortlistItem>> {
   declare shortlistId: number;
   declare propertySetId: number;
   declare position: number;
   declare note: string;
-  declare lockVersion: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare propertySet?: NonAttribute<PropertySet>;
 }
 
-export class DesignRecord extends Model<InferAttributes<DesignRecord>, InferCreationAttributes<DesignRecord>> {
-  declare id: CreationOptional<number>;
+export class DesignRecord extends CreatedOnlyModel<InferAttributes<DesignRecord>, InferCreationAttributes<DesignRecord>> {
   declare shortlistId: number;
   declare projectId: number;
   declare content: DesignRecordContent;
-  declare createdAt: CreationOptional<Date>;
 }
 
-export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
-  declare id: CreationOptional<number>;
+export class Invitation extends OneTimeTokenModel<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
   declare email: string;
   declare role: Role;
-  declare tokenHash: string;
-  declare expiresAt: Date;
-  declare usedAt: Date | null;
   declare invitedById: number | null;
   declare revokedAt: CreationOptional<Date | null>;
   declare revokedById: CreationOptional<number | null>;
   declare sentAt: CreationOptional<Date | null>;
-  declare createdAt: CreationOptional<Date>;
 }
 
-export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCreationAttributes<PasswordReset>> {
-  declare id: CreationOptional<number>;
+export class PasswordReset extends OneTimeTokenModel<InferAttributes<PasswordReset>, InferCreationAttributes<PasswordReset>> {
   declare userId: number;
-  declare tokenHash: string;
-  declare expiresAt: Date;
-  declare usedAt: Date | null;
-  declare createdAt: CreationOptional<Date>;
 }
 
 
 export function initProjectModels(db: Sequelize): void {
   Project.init(
-    {
-      ...serialId(),
+    versionedColumns({
       name: { type: DataTypes.TEXT, allowNull: false },
       description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       ownerId: { type: DataTypes.INTEGER, allowNull: false },
-      ...lockVersionColumn(),
-      ...timestamps(),
-    },
-    { sequelize: db, tableName: 'projects', version: 'lockVersion' },
+    }),
+    versionedTable(db, 'projects'),
   );
   ProjectMember.init(
     {
@@ -134,25 +103,21 @@ export function initProjectModels(db: Sequelize): void {
       addedById: { type: DataTypes.INTEGER },
       createdAt: stamp(),
     },
-    { sequelize: db, tableName: 'project_members', updatedAt: false },
+    createdOnlyTable(db, 'project_members'),
   );
   LoadCaseRecord.init(
-    {
-      ...serialId(),
+    versionedColumns({
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.TEXT, allowNull: false },
       loadCase: { type: DataTypes.JSONB, allowNull: false },
       filters: { type: DataTypes.JSONB },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
       createdById: { type: DataTypes.INTEGER },
-      ...lockVersionColumn(),
-      ...timestamps(),
-    },
-    { sequelize: db, tableName: 'load_cases', version: 'lockVersion' },
+    }),
+    versionedTable(db, 'load_cases'),
   );
   Shortlist.init(
-    {
-      ...serialId(),
+    versionedColumns({
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       loadCaseId: { type: DataTypes.INTEGER, allowNull: false },
       name: { type: DataTypes.TEXT, allowNull: false },
@@ -165,59 +130,44 @@ export function initProjectModels(db: Sequelize): void {
       checkComment: { type: DataTypes.TEXT },
       submission: { type: DataTypes.JSONB },
       rounds: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
-      ...lockVersionColumn(),
-      ...timestamps(),
-    },
-    { sequelize: db, tableName: 'shortlists', version: 'lockVersion' },
+    }),
+    versionedTable(db, 'shortlists'),
   );
   ShortlistItem.init(
-    {
-      ...serialId(),
+    versionedColumns({
       shortlistId: { type: DataTypes.INTEGER, allowNull: false },
       propertySetId: { type: DataTypes.INTEGER, allowNull: false },
       position: { type: DataTypes.INTEGER, allowNull: false },
       note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-      ...lockVersionColumn(),
-      ...timestamps(),
-    },
-    { sequelize: db, tableName: 'shortlist_items', version: 'lockVersion' },
+    }),
+    versionedTable(db, 'shortlist_items'),
   );
   DesignRecord.init(
-    {
-      ...serialId(),
+    createdOnlyColumns({
       shortlistId: { type: DataTypes.INTEGER, allowNull: false, unique: true },
       projectId: { type: DataTypes.INTEGER, allowNull: false },
       content: { type: DataTypes.JSONB, allowNull: false },
-      createdAt: stamp(),
-    },
-    { sequelize: db, tableName: 'design_records', updatedAt: false },
+    }),
+    createdOnlyTable(db, 'design_records'),
   );
   Invitation.init(
-    {
-      ...serialId(),
+    createdOnlyColumns({
       email: { type: DataTypes.TEXT, allowNull: false },
       role: { type: DataTypes.TEXT, allowNull: false },
-      tokenHash: { type: DataTypes.TEXT, allowNull: false, unique: true },
-      expiresAt: { type: DataTypes.DATE, allowNull: false },
-      usedAt: { type: DataTypes.DATE },
+      ...oneTimeTokenColumns(),
       invitedById: { type: DataTypes.INTEGER },
       revokedAt: { type: DataTypes.DATE },
       revokedById: { type: DataTypes.INTEGER },
       sentAt: { type: DataTypes.DATE },
-      createdAt: stamp(),
-    },
-    { sequelize: db, tableName: 'invitations', updatedAt: false },
+    }),
+    createdOnlyTable(db, 'invitations'),
   );
   PasswordReset.init(
-    {
-      ...serialId(),
+    createdOnlyColumns({
       userId: { type: DataTypes.INTEGER, allowNull: false },
-      tokenHash: { type: DataTypes.TEXT, allowNull: false, unique: true },
-      expiresAt: { type: DataTypes.DATE, allowNull: false },
-      usedAt: { type: DataTypes.DATE },
-      createdAt: stamp(),
-    },
-    { sequelize: db, tableName: 'password_resets', updatedAt: false },
+      ...oneTimeTokenColumns(),
+    }),
+    createdOnlyTable(db, 'password_resets'),
   );
 
   Project.belongsTo(User, { as: 'owner', foreignKey: 'ownerId' });

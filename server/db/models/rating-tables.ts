@@ -2,7 +2,7 @@ import { DataTypes, type CreationOptional, type InferAttributes, type InferCreat
 import type { RatingGeometryValue, RatingTableContent, RatingTableData } from '../../../shared/schemas/rating-tables';
 import { Material, Reference, User } from './index';
 import { ReferenceVersion } from './references';
-import { CuratedModel, curatedAssociations, curatedColumns, serialId } from './columns';
+import { CuratedModel, curatedAssociations, curatedColumns, serialId, versionedTable } from './columns';
 
 export class RatingTable extends CuratedModel<InferAttributes<RatingTable>, InferCreationAttributes<RatingTable>> {
   declare coversLineageIds: CreationOptional<number[]>;
@@ -29,7 +29,7 @@ export function initRatingTableModels(db: Sequelize): void {
       data: { type: DataTypes.JSONB, allowNull: false },
       ...curatedColumns(),
     },
-    { sequelize: db, tableName: 'rating_tables', version: 'lockVersion' },
+    versionedTable(db, 'rating_tables'),
   );
   curatedAssociations(RatingTable, { Material, Reference, ReferenceVersion, User });
 }

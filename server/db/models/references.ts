@@ -1,46 +1,21 @@
 // The versions of a reference (reviewed like a curated record) and its uploaded documents (one
 // row per upload, never deleted). See migrations 0009 and 0010.
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
-import type { CuratedStatus } from '../../../shared/workflows/curated';
-import type { ReferenceKind } from '../../../shared/schemas/catalogue';
+import type { ReferenceCitationDto } from '../../../shared/schemas/catalogue';
 import { Reference, User } from './index';
-import { serialId, stamp, workflowColumns } from './columns';
+import { WorkflowModel, citationColumns, serialId, stamp, versionedTable, workflowAssociations, workflowColumns } from './columns';
 
 /**
  * One version of a reference's citation. Its `referenceId` is the reference it is a version of
  * (so the curated step table's "cites a reference" always holds); `version` counts per reference.
  */
-export class ReferenceVersion extends Model<InferAttributes<ReferenceVersion>, InferCreationAttributes<ReferenceVersion>> {
-  declare id: CreationOptional<number>;
+export class ReferenceVersion extends WorkflowModel<InferAttributes<ReferenceVersion>, InferCreationAttributes<ReferenceVersion>> {
   declare referenceId: number;
   declare version: number;
-  declare kind: ReferenceKind;
-  declare title: string;
-  declare authors: string | null;
-  declare year: number | null;
-  declare identifier: string | null;
-  declare location: string | null;
-  declare note: string | null;
-  declare status: CreationOptional<CuratedStatus>;
-  declare lineageId: number | null;
-  declare supersedesId: number | null;
-  declare supersededById: CreationOptional<number | null>;
-  declare draftedById: number | null;
-  declare lastEditedById: CreationOptional<number | null>;
-  declare approvedById: CreationOptional<number | null>;
-  declare returnedComment: CreationOptional<string | null>;
-  declare submittedAt: CreationOptional<Date | null>;
-  declare publishedAt: CreationOptional<Date | null>;
-  declare retiredAt: CreationOptional<Date | null>;
-  declare lockVersion: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
   declare reference?: NonAttribute<Reference>;
-  declare draftedBy?: NonAttribute<User | null>;
-  declare lastEditedBy?: NonAttribute<User | null>;
-  declare approvedBy?: NonAttribute<User | null>;
 }
+// The citation's fields (kind, title, authors, year, identifier, location, note), as the reference has them.
+export interface ReferenceVersion extends ReferenceCitationDto {}
 
 /** One uploaded document of a reference: version n of its documents, with its object-store key. */
 export class ReferenceDocument extends Model<InferAttributes<ReferenceDocument>, InferCreationAttributes<ReferenceDocument>> {
@@ -62,16 +37,10 @@ export function initReferenceModels(db: Sequelize): void {
       ...serialId(),
       referenceId: { type: DataTypes.INTEGER, allowNull: false },
       version: { type: DataTypes.INTEGER, allowNull: false },
-      kind: { type: DataTypes.TEXT, allowNull: false },
-      title: { type: DataTypes.TEXT, allowNull: false },
-      authors: { type: DataTypes.TEXT },
-      year: { type: DataTypes.INTEGER },
-      identifier: { type: DataTypes.TEXT },
-      location: { type: DataTypes.TEXT },
-      note: { type: DataTypes.TEXT },
+      ...citationColumns(),
       ...workflowColumns(),
     },
-    { sequelize: db, tableName: 'reference_versions', version: 'lockVersion' },
+    versionedTable(db, 'reference_versions'),
   );
   ReferenceDocument.init(
     {
@@ -94,8 +63,6 @@ export function initReferenceModels(db: Sequelize): void {
     { sequelize: db, tableName: 'reference_documents', timestamps: false },
   );
   ReferenceVersion.belongsTo(Reference, { as: 'reference', foreignKey: 'referenceId' });
-  ReferenceVersion.belongsTo(User, { as: 'draftedBy', foreignKey: 'draftedById' });
-  ReferenceVersion.belongsTo(User, { as: 'lastEditedBy', foreignKey: 'lastEditedById' });
-  ReferenceVersion.belongsTo(User, { as: 'approvedBy', foreignKey: 'approvedById' });
+  workflowAssociations(ReferenceVersion, User);
   ReferenceDocument.belongsTo(User, { as: 'uploadedBy', foreignKey: 'uploadedById' });
 }

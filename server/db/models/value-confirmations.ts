@@ -1,11 +1,10 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import { DataTypes, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { ConfirmationStatus } from '../../../shared/workflows/confirmation';
 import type { ProvenanceKey } from '../../../shared/schemas/provenance';
 import { PropertySet, User } from './index';
-import { lockVersionColumn, serialId, timestamps } from './columns';
+import { VersionedModel, versionedColumns, versionedTable } from './columns';
 
-export class ValueConfirmation extends Model<InferAttributes<ValueConfirmation>, InferCreationAttributes<ValueConfirmation>> {
-  declare id: CreationOptional<number>;
+export class ValueConfirmation extends VersionedModel<InferAttributes<ValueConfirmation>, InferCreationAttributes<ValueConfirmation>> {
   declare propertySetId: number;
   declare valueKey: ProvenanceKey;
   declare location: string;
@@ -16,9 +15,6 @@ export class ValueConfirmation extends Model<InferAttributes<ValueConfirmation>,
   declare decidedById: CreationOptional<number | null>;
   declare decidedAt: CreationOptional<Date | null>;
   declare comment: CreationOptional<string | null>;
-  declare lockVersion: CreationOptional<number>;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
   declare propertySet?: NonAttribute<PropertySet>;
   declare proposedBy?: NonAttribute<User>;
   declare decidedBy?: NonAttribute<User | null>;
@@ -26,8 +22,7 @@ export class ValueConfirmation extends Model<InferAttributes<ValueConfirmation>,
 
 export function initValueConfirmationModels(db: Sequelize): void {
   ValueConfirmation.init(
-    {
-      ...serialId(),
+    versionedColumns({
       propertySetId: { type: DataTypes.INTEGER, allowNull: false },
       valueKey: { type: DataTypes.TEXT, allowNull: false },
       location: { type: DataTypes.TEXT, allowNull: false },
@@ -38,10 +33,8 @@ export function initValueConfirmationModels(db: Sequelize): void {
       decidedById: { type: DataTypes.INTEGER },
       decidedAt: { type: DataTypes.DATE },
       comment: { type: DataTypes.TEXT },
-      ...lockVersionColumn(),
-      ...timestamps(),
-    },
-    { sequelize: db, tableName: 'value_confirmations', version: 'lockVersion' },
+    }),
+    versionedTable(db, 'value_confirmations'),
   );
   ValueConfirmation.belongsTo(PropertySet, { as: 'propertySet', foreignKey: 'propertySetId' });
   ValueConfirmation.belongsTo(User, { as: 'proposedBy', foreignKey: 'proposedById' });

@@ -15,7 +15,7 @@ import type { DraftData, LibrarySetDto, LibrarySetListDto, SetChangesDto, ValueC
 import { createMaterialIn, include, librarySetDto, referenceDto } from '../property-sets/service';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
 import { referenceFields } from '../references/service';
-import { citedVersionId } from '../references/versions';
+import { keepCitedVersion } from '../references/versions';
 import { keepApprovals, stampConfirmations } from './provenance';
 import { closeOpenConfirmations } from './confirmations';
 
@@ -238,8 +238,7 @@ const propertySetKind: CuratedKind<PropertySet> = {
     cyclicFactors: ps.cyclicFactors,
   }),
   async onPublish(row, actor, transaction) {
-    // A published set keeps the version of its reference it was approved with, until revised.
-    row.set({ referenceVersionId: row.referenceId ? await citedVersionId(row.referenceId, transaction) : null });
+    await keepCitedVersion(row, transaction);
     const authorId = row.lastEditedById ?? row.draftedById;
     const author = authorId ? await User.findByPk(authorId, { attributes: ['id', 'name'], transaction }) : null;
     row.set({ provenance: stampConfirmations(row.provenance ?? {}, author ? { id: author.id, name: author.name } : { id: 0, name: 'unknown' }, { id: actor.id, name: actor.name }, new Date()) });

@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { authorize } from '../../auth/authorize';
-import { can } from '../../../shared/schemas/auth';
+import { bodyOf, draftViewerOf } from '../../auth/actor';
 import { propertySetQuerySchema } from '../../../shared/schemas/catalogue';
 import { materialCreateSchema } from '../../../shared/schemas/library';
 import { parse, parseId } from '../../middleware/validate';
@@ -16,8 +16,6 @@ const pageSchema = z.object({
 
 const listCache = jsonResponseCache(64 * 2 ** 20);
 
-const callerOf = (req: Express.Request) => ({ canDraft: can(req.user?.role, 'catalogue:draft') });
-
 export function propertySetsRouter(): Router {
   const router = Router();
   router.get('/', authorize('catalogue:read'), async (req, res) => {
@@ -25,7 +23,7 @@ export function propertySetsRouter(): Router {
     const page = parse(pageSchema, { limit, offset }, 'query');
     const query = parse(propertySetQuerySchema, rest, 'query');
     if ((query.status ?? 'published') !== 'published') {
-      res.json(await listPropertySets({ ...query, ...page }, callerOf(req)));
+      res.json(await listPropertySets({ ...query, ...page }, draftViewerOf(req)));
       return;
     }
     // The published catalogue comes from the in-memory snapshot; the serialized answer is kept
@@ -38,7 +36,7 @@ export function propertySetsRouter(): Router {
     await sendCached(req, res, body);
   });
   router.get('/:id', authorize('catalogue:read'), async (req, res) => {
-    res.json(await getPropertySet(parseId(req.params.id), callerOf(req)));
+    res.json(await getPropertySet(parseId(req.params.id), draftViewerOf(req)));
   });
   return router;
 }
@@ -52,11 +50,11 @@ export function materialsRouter(): Router {
     res.json(await listMaterials());
   });
   router.post('/', authorize('catalogue:draft'), async (req, res) => {
-    const input = parse(materialCreateSchema, req.body ?? {}, 'material');
+    const input = parse(materialCreateSchema, bodyOf(req), 'material');
     res.status(201).json(await createMaterial(input, req.user!.id));
   });
   router.get('/:id', authorize('catalogue:read'), async (req, res) => {
-    res.json(await getMaterial(parseId(req.params.id), callerOf(req)));
+    res.json(await getMaterial(parseId(req.params.id), draftViewerOf(req)));
   });
   return router;
 }

@@ -1,5 +1,5 @@
 import { Op, UniqueConstraintError, type Transaction, type WhereOptions, type Includeable } from 'sequelize';
-import { Material, PropertySet, Reference, ReferenceVersion, User } from '../../db/models';
+import { Material, PropertySet, Reference, ReferenceVersion } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { recordAudit } from '../../services/audit';
 import { mechanicalValues } from '../../../shared/engine/candidates';
@@ -16,6 +16,7 @@ import type {
   ReferenceDto,
 } from '../../../shared/schemas/catalogue';
 import { conflict, forbidden, notFound } from '../../errors';
+import { curatedIdentity, reviewTrailInclude, userRef } from '../../workflows/review-trail';
 
 /** Statuses a caller may read: drafts and reviews stay on the library desk. */
 export function readableStatuses(canDraft: boolean): PropertySetStatus[] {
@@ -51,14 +52,9 @@ export function referenceDto(r: Reference, cited?: ReferenceVersion | null): Ref
 /** The include that brings the version of its reference a published record cites. */
 export const citedVersionInclude = () => ({ model: ReferenceVersion, as: 'citedVersion' });
 
-const userRef = (u: User | null | undefined) => (u ? { id: u.id, name: u.name } : null);
-
 export function propertySetDto(ps: PropertySet): PropertySetDto {
   return {
-    id: ps.id,
-    status: ps.status,
-    version: ps.version,
-    lineageId: ps.lineageId ?? ps.id,
+    ...curatedIdentity(ps),
     condition: ps.condition,
     material: materialDto(ps.material!),
     reference: ps.reference ? referenceDto(ps.reference, ps.citedVersion) : null,
@@ -100,9 +96,7 @@ export function include(materialWhere?: WhereOptions<Material>): Includeable[] {
     { model: Material, as: 'material', required: true, ...(materialWhere ? { where: materialWhere } : {}) },
     { model: Reference, as: 'reference' },
     citedVersionInclude(),
-    { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
-    { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
-    { model: User, as: 'lastEditedBy', attributes: ['id', 'name'] },
+    ...reviewTrailInclude(),
   ];
 }
 

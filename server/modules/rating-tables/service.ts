@@ -2,16 +2,17 @@
 // (server/workflows/curated-steps.ts), reading, and the published tables the engine sizes
 // windows with.
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
-import { Material, PropertySet, RatingTable, Reference, ReferenceVersion, User } from '../../db/models';
+import { Material, PropertySet, RatingTable, Reference, ReferenceVersion } from '../../db/models';
 import { sequelize } from '../../db/sequelize';
 import { badRequest, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
 import { auditSnapshot, draftWorkflowColumns, lockCurrent, runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
 import type { RatingTable as EngineRatingTable } from '../../../shared/engine';
 import { ratingTableContentSchema, type RatingTableDraft, type RatingTableDto, type RatingTableListDto, type RatingTableStepInput } from '../../../shared/schemas/rating-tables';
+import { curatedIdentity, reviewTrailDto, reviewTrailInclude } from '../../workflows/review-trail';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
 import { citedVersionInclude, referenceDto } from '../property-sets/service';
-import { citedVersionId } from '../references/versions';
+import { keepCitedVersion } from '../references/versions';
 
 export interface Caller {
   canDraft: boolean;
@@ -21,12 +22,8 @@ const include = () => [
   { model: Material, as: 'material', required: true },
   { model: Reference, as: 'reference' },
   citedVersionInclude(),
-  { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
-  { model: User, as: 'lastEditedBy', attributes: ['id', 'name'] },
-  { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
+  ...reviewTrailInclude(),
 ];
-
-const userRef = (u: User | null | undefined) => (u ? { id: u.id, name: u.name } : null);
 
 /** The citation as one line, for results and records: the version a published table was approved with. */
 export function citation(r: Reference | null | undefined, cited?: ReferenceVersion | null): string {
@@ -53,10 +50,7 @@ async function coveredSets(rows: RatingTable[], transaction?: Transaction): Prom
 export function ratingTableDto(r: RatingTable, covered: Map<number, { propertySetId: number; condition: string }>): RatingTableDto {
   const ref = r.reference;
   return {
-    id: r.id,
-    status: r.status,
-    version: r.version,
-    lineageId: r.lineageId ?? r.id,
+    ...curatedIdentity(r),
     lockVersion: r.lockVersion,
     material: { id: r.material!.id, name: r.material!.name, family: r.material!.family },
     reference: ref ? referenceDto(ref, r.citedVersion) : null,
@@ -70,12 +64,7 @@ export function ratingTableDto(r: RatingTable, covered: Map<number, { propertySe
       note: r.note,
       data: r.data,
     },
-    draftedBy: userRef(r.draftedBy),
-    lastEditedBy: userRef(r.lastEditedBy),
-    approvedBy: userRef(r.approvedBy),
-    returnedComment: r.returnedComment ?? null,
-    submittedAt: r.submittedAt ? r.submittedAt.toISOString() : null,
-    publishedAt: r.publishedAt ? r.publishedAt.toISOString() : null,
+    ...reviewTrailDto(r),
     supersedesId: r.supersedesId,
     supersededById: r.supersededById,
     updatedAt: r.updatedAt.toISOString(),
@@ -191,10 +180,7 @@ const ratingTableKind: CuratedKind<RatingTable> = {
     note: row.note,
     data: row.data,
   }),
-  // A published table keeps the version of its reference it was approved with.
-  async onPublish(row, _actor, transaction) {
-    row.set({ referenceVersionId: row.referenceId ? await citedVersionId(row.referenceId, transaction) : null });
-  },
+  onPublish: (row, _actor, transaction) => keepCitedVersion(row, transaction),
   afterCommit: () => invalidateCatalogueSnapshot(),
 };
 

@@ -2,7 +2,7 @@ import { Router, type RequestHandler, type Response } from 'express';
 import { z } from 'zod';
 import { pipeline } from 'node:stream/promises';
 import { authorize } from '../../auth/authorize';
-import { actorOf } from '../../auth/actor';
+import { actorOf, bodyOf, draftViewerOf } from '../../auth/actor';
 import { parse, parseId } from '../../middleware/validate';
 import { singleFile } from '../../middleware/upload';
 import {
@@ -12,12 +12,10 @@ import {
   referenceUpdateSchema,
   referenceVersionStepSchema,
 } from '../../../shared/schemas/library';
-import { can } from '../../../shared/schemas/auth';
 import { createReference, getReference, listDocuments, listReferences, openDocument, updateReference, uploadDocument, type DocumentDownload } from './service';
 import { stepReferenceVersion, updateProposedVersion } from './versions';
 
 const actor = actorOf;
-const viewer = (req: Express.Request) => ({ canDraft: can(req.user?.role, 'catalogue:draft') });
 const noQuery = z.strictObject({});
 
 /** Streams a document as a PDF attachment. */
@@ -47,34 +45,34 @@ export function referencesRouter(): Router {
   const router = Router();
 
   router.get('/', authorize('catalogue:read'), async (req, res) => {
-    res.json(await listReferences(parse(referenceQuerySchema, req.query, 'query'), viewer(req)));
+    res.json(await listReferences(parse(referenceQuerySchema, req.query, 'query'), draftViewerOf(req)));
   });
   router.get('/:id', authorize('catalogue:read'), async (req, res) => {
-    res.json(await getReference(parseId(req.params.id), viewer(req)));
+    res.json(await getReference(parseId(req.params.id), draftViewerOf(req)));
   });
   router.post('/', authorize('catalogue:draft'), async (req, res) => {
-    res.status(201).json(await createReference(parse(referenceCreateSchema, req.body ?? {}, 'reference'), actor(req)));
+    res.status(201).json(await createReference(parse(referenceCreateSchema, bodyOf(req), 'reference'), actor(req)));
   });
   // In use: 202, the change is a proposed version waiting for review; otherwise 200, saved.
   router.put('/:id', authorize('catalogue:draft'), async (req, res) => {
     const id = parseId(req.params.id);
-    const { lockVersion, reference } = parse(referenceUpdateSchema, req.body ?? {}, 'reference');
+    const { lockVersion, reference } = parse(referenceUpdateSchema, bodyOf(req), 'reference');
     const result = await updateReference(id, lockVersion, reference, actor(req));
     res.status(result.proposed ? 202 : 200).json(result.reference);
   });
   router.put('/:id/versions/:version', authorize('catalogue:draft'), async (req, res) => {
     const id = parseId(req.params.id);
     const version = parseId(req.params.version, 'version');
-    const { lockVersion, reference } = parse(referenceUpdateSchema, req.body ?? {}, 'reference');
+    const { lockVersion, reference } = parse(referenceUpdateSchema, bodyOf(req), 'reference');
     await updateProposedVersion(id, version, lockVersion, reference, actor(req));
-    res.json(await getReference(id, viewer(req)));
+    res.json(await getReference(id, draftViewerOf(req)));
   });
   // One route for the review steps; the workflow table says which role and person may take each.
   router.post('/:id/versions/:version/steps', authorize('catalogue:draft'), async (req, res) => {
     const id = parseId(req.params.id);
     const version = parseId(req.params.version, 'version');
-    await stepReferenceVersion(id, version, parse(referenceVersionStepSchema, req.body ?? {}, 'step'), actor(req));
-    res.json(await getReference(id, viewer(req)));
+    await stepReferenceVersion(id, version, parse(referenceVersionStepSchema, bodyOf(req), 'step'), actor(req));
+    res.json(await getReference(id, draftViewerOf(req)));
   });
 
   // The id is checked before the body is read, so a bad address does not cost an upload.
@@ -86,15 +84,15 @@ export function referencesRouter(): Router {
     res.json(await uploadDocument(parseId(req.params.id), req.file!, actor(req)));
   });
   router.get('/:id/document', authorize('catalogue:read'), async (req, res) => {
-    await sendDocument(res, await openDocument(parseId(req.params.id), undefined, viewer(req)));
+    await sendDocument(res, await openDocument(parseId(req.params.id), undefined, draftViewerOf(req)));
   });
   router.get('/:id/documents', authorize('catalogue:read'), async (req, res) => {
     parse(noQuery, req.query, 'query');
-    res.json(await listDocuments(parseId(req.params.id), viewer(req)));
+    res.json(await listDocuments(parseId(req.params.id), draftViewerOf(req)));
   });
   router.get('/:id/documents/:version', authorize('catalogue:read'), async (req, res) => {
     const id = parseId(req.params.id);
-    await sendDocument(res, await openDocument(id, parseId(req.params.version, 'version'), viewer(req)));
+    await sendDocument(res, await openDocument(id, parseId(req.params.version, 'version'), draftViewerOf(req)));
   });
 
   return router;

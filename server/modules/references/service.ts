@@ -19,7 +19,7 @@ import type { ReferenceDetailDto, ReferenceDocumentDto, ReferenceListDto, Refere
 import type { ItemsDto } from '../../../shared/schemas/responses';
 import { referenceDto } from '../property-sets/service';
 import { invalidateCatalogueSnapshot } from '../property-sets/snapshot';
-import { IN_USE_SQL, inUseIds, proposeChange, versionsOf } from './versions';
+import { IN_USE_SQL, citationFromInput, inUseIds, proposeChange, versionsOf } from './versions';
 
 export interface Actor {
   id: number;
@@ -115,16 +115,8 @@ export async function getReference(id: number, viewer: Viewer): Promise<Referenc
   };
 }
 
-/** A reference's own fields from an input (the desk, the CSV import and the reference page write them alike). */
-export const referenceFields = (input: Pick<ReferenceInput, 'kind' | 'title'> & Partial<ReferenceInput>) => ({
-  kind: input.kind,
-  title: input.title,
-  authors: input.authors ?? null,
-  year: input.year ?? null,
-  identifier: input.identifier ?? null,
-  location: input.location ?? null,
-  note: input.note ?? null,
-});
+/** A reference's own fields from an input: its citation (see citationFromInput). */
+export const referenceFields = citationFromInput;
 
 export async function createReference(input: ReferenceInput, actor: Actor): Promise<ReferencePageDto> {
   const id = await sequelize().transaction(async (transaction) => {

@@ -4,11 +4,13 @@
 // reference-version.ts, run by the curated step runner). Approving it copies the new content onto
 // the reference, which drafts cite; published and retired records keep the version they cite.
 import { Op, UniqueConstraintError, type Transaction } from 'sequelize';
-import { Reference, ReferenceVersion, User } from '../../db/models';
+import { Reference, ReferenceVersion } from '../../db/models';
+import type { CuratedModel } from '../../db/models/columns';
 import { sequelize } from '../../db/sequelize';
 import { badRequest, conflict, notFound } from '../../errors';
 import { recordAudit } from '../../services/audit';
 import { auditSnapshot, lockCurrent } from '../../services/optimistic-lock';
+import { reviewTrailDto, reviewTrailInclude } from '../../workflows/review-trail';
 import { runCuratedStep, type Actor, type CuratedKind } from '../../workflows/curated-steps';
 import { REFERENCE_VERSION_STEPS } from '../../../shared/workflows/reference-version';
 import type { ReferenceInput } from '../../../shared/schemas/catalogue';
@@ -29,8 +31,11 @@ export const citationOf = (r: Reference | ReferenceVersion): ReferenceCitationDt
   note: r.note,
 });
 
-/** An input's citation fields as stored (absent: null). */
-export const citationFromInput = (input: ReferenceInput): ReferenceCitationDto => ({
+/**
+ * An input's citation fields as stored (absent: null): a reference's own fields and a version's
+ * alike (the desk, the CSV import, the reference page and a proposed change write them so).
+ */
+export const citationFromInput = (input: Pick<ReferenceInput, 'kind' | 'title'> & Partial<ReferenceInput>): ReferenceCitationDto => ({
   kind: input.kind,
   title: input.title,
   authors: input.authors ?? null,
@@ -44,8 +49,6 @@ export function citationChanges(before: ReferenceCitationDto, after: ReferenceCi
   return CITATION_FIELDS.filter((f) => before[f] !== after[f]).map((field) => ({ field, before: before[field], after: after[field] }));
 }
 
-const userRef = (u: User | null | undefined) => (u ? { id: u.id, name: u.name } : null);
-
 export function versionDto(row: ReferenceVersion, previous: ReferenceVersion | null | undefined): ReferenceVersionDto {
   return {
     id: row.id,
@@ -54,29 +57,19 @@ export function versionDto(row: ReferenceVersion, previous: ReferenceVersion | n
     status: row.status,
     citation: citationOf(row),
     lockVersion: row.lockVersion,
-    draftedBy: userRef(row.draftedBy),
-    lastEditedBy: userRef(row.lastEditedBy),
-    approvedBy: userRef(row.approvedBy),
-    returnedComment: row.returnedComment ?? null,
-    submittedAt: row.submittedAt?.toISOString() ?? null,
-    publishedAt: row.publishedAt?.toISOString() ?? null,
+    ...reviewTrailDto(row),
     retiredAt: row.retiredAt?.toISOString() ?? null,
     updatedAt: row.updatedAt.toISOString(),
     changes: previous ? citationChanges(citationOf(previous), citationOf(row)) : [],
   };
 }
 
-const people = () => [
-  { model: User, as: 'draftedBy', attributes: ['id', 'name'] },
-  { model: User, as: 'lastEditedBy', attributes: ['id', 'name'] },
-  { model: User, as: 'approvedBy', attributes: ['id', 'name'] },
-];
 
 /** Every version of a reference, newest first; proposed changes only for those who may draft. */
 export async function versionsOf(referenceId: number, canDraft: boolean): Promise<ReferenceVersionDto[]> {
   const rows = await ReferenceVersion.findAll({
     where: { referenceId, ...(canDraft ? {} : { status: ['published', 'retired'] }) },
-    include: people(),
+    include: reviewTrailInclude(),
     order: [['version', 'DESC']],
   });
   const byId = new Map(rows.map((r) => [r.id, r]));
@@ -92,6 +85,11 @@ export async function inUseIds(ids: number[], transaction?: Transaction): Promis
 
 /** SQL for the ids of references in use, for a WHERE … IN. */
 export const IN_USE_SQL = `(SELECT reference_id FROM reference_versions WHERE status = 'published')`;
+
+/** On publishing a record that cites a reference: it keeps the version it was approved with (citedVersionId), until revised. */
+export async function keepCitedVersion(row: CuratedModel, transaction: Transaction): Promise<void> {
+  row.set({ referenceVersionId: row.referenceId ? await citedVersionId(row.referenceId, transaction) : null });
+}
 
 /**
  * The id of the version row of `referenceId`'s current citation, which a record being published
@@ -219,7 +217,7 @@ export async function stepReferenceVersion(referenceId: number, version: number,
 export async function listProposedVersions(query: { status?: 'draft' | 'in-review' }): Promise<PendingReferenceVersionDto[]> {
   const rows = await ReferenceVersion.findAll({
     where: { status: query.status ? [query.status] : ['draft', 'in-review'] },
-    include: [...people(), { model: Reference, as: 'reference', required: true }],
+    include: [...reviewTrailInclude(), { model: Reference, as: 'reference', required: true }],
     order: [
       ['submittedAt', 'ASC NULLS LAST'],
       ['id', 'ASC'],

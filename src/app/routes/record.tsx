@@ -1,16 +1,12 @@
-import { useParams, type LoaderFunctionArgs } from 'react-router-dom';
+import { useParams } from 'react-router-dom';
 import { queryClient } from '@/lib/query-client';
 import { useCan } from '@/features/auth/api/session';
 import { designRecordQueryOptions } from '@/features/projects/api/shortlists';
 import { RecordPage } from '@/features/projects/components/record-page';
-import { requirePermission } from './permission';
+import { detailLoader } from './detail-loader';
 import { routeId } from './route-id';
 
-export async function loader({ params }: LoaderFunctionArgs) {
-  await requirePermission('project:read');
-  void queryClient.prefetchQuery(designRecordQueryOptions(routeId(params.id)));
-  return null;
-}
+export const loader = detailLoader('project:read', (id) => void queryClient.prefetchQuery(designRecordQueryOptions(id)));
 
 export function Component() {
   const canExport = useCan('design-record:export');

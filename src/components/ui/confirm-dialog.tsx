@@ -1,4 +1,5 @@
 import { useEffect, useId, useRef, type ReactNode } from 'react';
+import { errorText } from '@/lib/api-client';
 import { Button } from './button';
 
 /**
@@ -93,3 +94,6 @@ export function ConfirmDialog({
     </dialog>
   );
 }
+
+/** The busy state and error of the mutation a dialog runs, to spread into <ConfirmDialog>. */
+export const mutationState = (m: { isPending: boolean; isError: boolean; error: unknown }) => ({ busy: m.isPending, error: m.isError ? errorText(m.error) : undefined });

@@ -35,6 +35,14 @@ export function ErrorState({ error, onRetry }: { error: unknown; onRetry?: () =>
   );
 }
 
+/**
+ * What a query shows until its data is there: a spinner saying what loads, or the error with a
+ * retry. Render it when `query.isPending || query.isError`, so the code after it has the data.
+ */
+export function QueryStatus({ query, loading }: { query: { isPending: boolean; error: unknown; refetch: () => unknown }; loading: string }) {
+  return query.isPending ? <Spinner label={loading} /> : <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
+}
+
 export function Panel({ title, actions, children, className = '' }: { title?: ReactNode; actions?: ReactNode; children: ReactNode; className?: string }) {
   return (
     <section className={`rounded-plate bg-chart-raised shadow-plate ${className}`}>

@@ -2,9 +2,9 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { ROLE_LABELS, type SessionUserDto } from '@shared/schemas/auth';
-import { Button } from '@/components/ui/button';
+import { SubmitButton } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
-import { FormError } from '@/components/ui/form-error';
+import { FormError, Notice } from '@/components/ui/form-error';
 import { Panel } from '@/components/ui/states';
 import { setServerErrors } from '@/lib/field-errors';
 import { useChangePassword } from '../api/account';
@@ -43,14 +43,10 @@ function ChangePassword() {
         errors={{ password: errors.newPassword?.message, repeat: errors.repeat?.message }}
       />
       <FormError message={errors.root?.message} />
-      {done ? (
-        <p role="status" className="text-sm font-bold text-verdict-pass">
-          {done}
-        </p>
-      ) : null}
-      <Button type="submit" disabled={change.isPending} className="self-start">
-        {change.isPending ? 'Changing…' : 'Change password'}
-      </Button>
+      <Notice message={done} />
+      <SubmitButton busy={change.isPending} busyLabel="Changing…" className="self-start">
+        Change password
+      </SubmitButton>
     </form>
   );
 }

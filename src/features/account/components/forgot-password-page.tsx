@@ -2,7 +2,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { passwordResetRequestSchema } from '@shared/schemas/projects';
-import { Button } from '@/components/ui/button';
+import { SubmitButton } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { FormError } from '@/components/ui/form-error';
 import { setServerErrors } from '@/lib/field-errors';
@@ -44,9 +44,9 @@ export function ForgotPasswordPage() {
       <form aria-label="Ask for a reset link" noValidate className="flex flex-col gap-3" onSubmit={submit}>
         <TextField label="E-mail" type="email" autoComplete="username" autoFocus error={errors.email?.message} {...form.register('email')} />
         <FormError message={errors.root?.message} />
-        <Button type="submit" disabled={request.isPending}>
-          {request.isPending ? 'Sending…' : 'Send the link'}
-        </Button>
+        <SubmitButton busy={request.isPending} busyLabel="Sending…">
+          Send the link
+        </SubmitButton>
       </form>
     </PublicCard>
   );

@@ -1,7 +1,7 @@
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useSearchParams } from 'react-router-dom';
-import { Button } from '@/components/ui/button';
+import { SubmitButton } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { LinkButton } from '@/components/ui/link-button';
 import { ApiError } from '@/lib/api-client';
@@ -63,9 +63,9 @@ export function ResetPasswordPage() {
             Ask for a new link
           </Link>
         ) : null}
-        <Button type="submit" disabled={reset.isPending}>
-          {reset.isPending ? 'Saving…' : 'Save the new password'}
-        </Button>
+        <SubmitButton busy={reset.isPending} busyLabel="Saving…">
+          Save the new password
+        </SubmitButton>
       </form>
     </PublicCard>
   );

@@ -2,7 +2,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link, useSearchParams } from 'react-router-dom';
 import type { SessionUserDto } from '@shared/schemas/auth';
-import { Button } from '@/components/ui/button';
+import { SubmitButton } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { FormError } from '@/components/ui/form-error';
 import { ApiError } from '@/lib/api-client';
@@ -57,9 +57,9 @@ export function WelcomePage({ onSignedIn }: { onSignedIn: (user: SessionUserDto)
             Already set up? <Link to="/sign-in" className="font-bold text-sounding underline">Sign in</Link>.
           </p>
         ) : null}
-        <Button type="submit" disabled={accept.isPending}>
-          {accept.isPending ? 'Setting up…' : 'Set up my account'}
-        </Button>
+        <SubmitButton busy={accept.isPending} busyLabel="Setting up…">
+          Set up my account
+        </SubmitButton>
       </form>
     </PublicCard>
   );

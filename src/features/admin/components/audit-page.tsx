@@ -3,7 +3,7 @@ import { Link, useSearchParams } from 'react-router-dom';
 import { auditQuerySchema, type AuditEntryDto } from '@shared/schemas/library';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
-import { EmptyState, ErrorState, Spinner } from '@/components/ui/states';
+import { EmptyState, QueryStatus } from '@/components/ui/states';
 import { useAuditLog } from '../api/admin';
 import { changedKeys, entityHref, entityLabel, formatState } from '../audit-format';
 import { AdminNav } from './admin-nav';
@@ -112,10 +112,8 @@ export function AuditPage() {
         </Button>
       </form>
 
-      {query.isPending ? (
-        <Spinner label="Loading the audit log…" />
-      ) : query.isError ? (
-        <ErrorState error={query.error} onRetry={() => void query.refetch()} />
+      {query.isPending || query.isError ? (
+        <QueryStatus query={query} loading="Loading the audit log…" />
       ) : entries.length === 0 ? (
         <EmptyState title="No entries">
           {entityType || entityId ? 'Nothing recorded for this filter. Choose “All” to see every entry.' : 'Nothing has been changed yet.'}

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import { EmptyState, Panel, QueryStatus, Tag } from '@/components/ui/states';
 import type { OutboxMailDto } from '@shared/schemas/library';
 import { useCaughtMail, useOutbox } from '../api/admin';
 import { AdminNav } from './admin-nav';
@@ -16,8 +16,7 @@ const STATUS: Record<OutboxMailDto['status'], { label: string; tone: 'pass' | 'b
 
 /** What Isobath sends through its mail server, and how each message fared (with any real server too). */
 function Outgoing({ outbox }: { outbox: ReturnType<typeof useOutbox> }) {
-  if (outbox.isPending) return <Spinner label="Loading outgoing mail…" />;
-  if (outbox.isError) return <ErrorState error={outbox.error} onRetry={() => void outbox.refetch()} />;
+  if (outbox.isPending || outbox.isError) return <QueryStatus query={outbox} loading="Loading outgoing mail…" />;
   if (!outbox.data.length) return <EmptyState title="Nothing sent lately">Invitations, reset links and review notices appear here as they go out.</EmptyState>;
   const trouble = outbox.data.filter((m) => m.status !== 'sent').length;
   return (
@@ -70,10 +69,8 @@ export function MailPage() {
       <Panel title="Outgoing mail">
         <Outgoing outbox={outbox} />
       </Panel>
-      {query.isPending ? (
-        <Spinner label="Loading caught mail…" />
-      ) : query.isError ? (
-        <ErrorState error={query.error} onRetry={() => void query.refetch()} />
+      {query.isPending || query.isError ? (
+        <QueryStatus query={query} loading="Loading caught mail…" />
       ) : !query.data.enabled ? (
         <EmptyState title="Mail goes to a real mail server">
           This installation sends e-mail through its SMTP server, so messages are not kept here. Look in the recipients’ mailboxes, or the mail server’s log.

@@ -3,20 +3,18 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { ROLES, ROLE_LABELS, type Role } from '@shared/schemas/auth';
 import { invitationCreateSchema } from '@shared/schemas/projects';
-import { Button } from '@/components/ui/button';
-import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { Button, SubmitButton } from '@/components/ui/button';
+import { ConfirmDialog, mutationState } from '@/components/ui/confirm-dialog';
 import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
-import { FormError } from '@/components/ui/form-error';
-import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
-import { ApiError } from '@/lib/api-client';
+import { FormError, Notice } from '@/components/ui/form-error';
+import { EmptyState, Panel, QueryStatus, Tag } from '@/components/ui/states';
+import { ApiError, errorText } from '@/lib/api-client';
 import { formatDateTime } from '@/lib/dates';
 import { setServerErrors } from '@/lib/field-errors';
 import type { AdminUserDto, InvitationDto, InvitationState, MailDeliveryDto, SignInLockDto } from '@shared/schemas/projects';
 import { useClearSignInLock, useInvitationStep, useInvitations, useInvite, useSignInLocks, useUpdateUser, useUsers } from '../api/users';
 import { AdminNav } from './admin-nav';
 import { ColumnHeads } from '@/components/ui/column-heads';
-
-const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 
 const STATE_TONE: Record<InvitationState, 'sounding' | 'pass' | 'neutral'> = { waiting: 'sounding', accepted: 'pass', expired: 'neutral', revoked: 'neutral' };
 const STATE_LABEL: Record<InvitationState, string> = { waiting: 'waiting', accepted: 'accepted', expired: 'expired', revoked: 'revoked' };
@@ -77,9 +75,8 @@ function UserRow({ user, self, onToggle }: { user: AdminUserDto; self: boolean; 
           open={proposed !== null}
           title={`Make ${user.name} ${proposed ? ROLE_LABELS[proposed].toLowerCase() : ''}?`}
           confirmLabel="Change the role"
-          busy={update.isPending}
+          {...mutationState(update)}
           busyLabel="Changing…"
-          error={update.isError ? errorText(update.error) : undefined}
           onConfirm={confirm}
           onClose={() => {
             setProposed(null);
@@ -136,16 +133,12 @@ function InviteForm() {
         <SelectField label="Role" error={errors.role?.message} {...form.register('role')}>
           <LabelledOptions values={ROLES} labels={ROLE_LABELS} />
         </SelectField>
-        <Button type="submit" className="sm:mt-5" disabled={invite.isPending}>
-          {invite.isPending ? 'Sending…' : 'Send invitation'}
-        </Button>
+        <SubmitButton busy={invite.isPending} busyLabel="Sending…" className="sm:mt-5">
+          Send invitation
+        </SubmitButton>
       </div>
       <FormError message={errors.root?.message} />
-      {sent ? (
-        <p role="status" className="text-sm text-verdict-pass">
-          {sent}
-        </p>
-      ) : null}
+      <Notice message={sent} />
       <p className="text-xs text-ink-soft">They receive a one-time link to choose their name and password; it expires after 72 hours.</p>
     </form>
   );
@@ -175,8 +168,7 @@ function Invitations() {
   const invitations = useInvitations();
   const step = useInvitationStep();
   const [action, setAction] = useState<InvitationAction | null>(null);
-  if (invitations.isPending) return <Spinner label="Loading invitations…" />;
-  if (invitations.isError) return <ErrorState error={invitations.error} onRetry={() => void invitations.refetch()} />;
+  if (invitations.isPending || invitations.isError) return <QueryStatus query={invitations} loading="Loading invitations…" />;
   if (!invitations.data.length) return <EmptyState title="No invitations yet">Invite a colleague above; the invitation shows here until it is accepted or expires.</EmptyState>;
   const ask = (invitation: InvitationDto, s: 'revoke' | 'resend') => {
     step.reset();
@@ -221,9 +213,8 @@ function Invitations() {
         title={action?.step === 'revoke' ? `Revoke the invitation to ${action.invitation.email}?` : `Send the invitation to ${action?.invitation.email ?? ''} again?`}
         confirmLabel={action?.step === 'revoke' ? 'Revoke' : 'Send again'}
         tone={action?.step === 'revoke' ? 'danger' : 'primary'}
-        busy={step.isPending}
+        {...mutationState(step)}
         busyLabel={action?.step === 'revoke' ? 'Revoking…' : 'Sending…'}
-        error={step.isError ? errorText(step.error) : undefined}
         onClose={() => setAction(null)}
         onConfirm={() => action && step.mutate({ id: action.invitation.id, step: action.step }, { onSuccess: () => setAction(null) })}
       >
@@ -241,8 +232,7 @@ function SignInLocks() {
   const locks = useSignInLocks();
   const clear = useClearSignInLock();
   const [clearing, setClearing] = useState<SignInLockDto | null>(null);
-  if (locks.isPending) return <Spinner label="Loading sign-in locks…" />;
-  if (locks.isError) return <ErrorState error={locks.error} onRetry={() => void locks.refetch()} />;
+  if (locks.isPending || locks.isError) return <QueryStatus query={locks} loading="Loading sign-in locks…" />;
   if (!locks.data.length) return <EmptyState title="No failed sign-ins">Failed sign-ins are counted here per address, and per address and account name, until a quiet period passes.</EmptyState>;
   return (
     <div className="overflow-x-auto">
@@ -277,9 +267,8 @@ function SignInLocks() {
         open={clearing !== null}
         title={clearing?.email ? `Let ${clearing.email} sign in from ${clearing.address} again?` : `Let ${clearing?.address ?? ''} sign in again?`}
         confirmLabel="Clear the lock"
-        busy={clear.isPending}
+        {...mutationState(clear)}
         busyLabel="Clearing…"
-        error={clear.isError ? errorText(clear.error) : undefined}
         onClose={() => setClearing(null)}
         onConfirm={() => clearing && clear.mutate(clearing.id, { onSuccess: () => setClearing(null) })}
       >
@@ -306,10 +295,8 @@ export function TeamPage({ meId }: { meId: number }) {
         <p className="text-sm text-ink-soft">Everyone with an Isobath account, their role, and who has been invited.</p>
       </div>
       <Panel title="People">
-        {users.isPending ? (
-          <Spinner label="Loading people…" />
-        ) : users.isError ? (
-          <ErrorState error={users.error} onRetry={() => void users.refetch()} />
+        {users.isPending || users.isError ? (
+          <QueryStatus query={users} loading="Loading people…" />
         ) : (
           <div className="overflow-x-auto">
             <table className="w-full text-sm" aria-label="People">
@@ -349,9 +336,8 @@ export function TeamPage({ meId }: { meId: number }) {
         title={toggling?.active ? `Deactivate ${toggling.name}?` : `Reactivate ${toggling?.name ?? ''}?`}
         confirmLabel={toggling?.active ? 'Deactivate' : 'Reactivate'}
         tone={toggling?.active ? 'danger' : 'primary'}
-        busy={update.isPending}
+        {...mutationState(update)}
         busyLabel="Saving…"
-        error={update.isError ? errorText(update.error) : undefined}
         onClose={() => setToggling(null)}
         onConfirm={() => toggling && update.mutate({ id: toggling.id, active: !toggling.active }, { onSuccess: () => setToggling(null) })}
       >

@@ -1,6 +1,6 @@
 import { useMemo, useState } from 'react';
 import { TextField } from '@/components/ui/field';
-import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
+import { EmptyState, Panel, QueryStatus } from '@/components/ui/states';
 import { OPENAPI_URL, useOpenApi } from '../api/openapi';
 import { describeAccess, filterGroups, groupOperations, type OperationView } from '../openapi-model';
 
@@ -121,10 +121,8 @@ export function ApiDocsPage() {
         </p>
       </div>
       <HowToCall />
-      {doc.isPending ? (
-        <Spinner label="Loading the API description…" />
-      ) : doc.isError ? (
-        <ErrorState error={doc.error} onRetry={() => void doc.refetch()} />
+      {doc.isPending || doc.isError ? (
+        <QueryStatus query={doc} loading="Loading the API description…" />
       ) : doc.data === null ? (
         <EmptyState title="This server does not publish its API description yet">
           The list of operations appears here once the server offers <code className="font-mono text-xs">{OPENAPI_URL}</code>. Until then, the calls above work as described.

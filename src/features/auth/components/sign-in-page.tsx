@@ -4,7 +4,7 @@ import { Link, useNavigate, useSearchParams } from 'react-router-dom';
 import { loginSchema, type LoginInput } from '@shared/schemas/auth';
 import { useSignIn } from '../api/session';
 import { TextField } from '@/components/ui/field';
-import { Button } from '@/components/ui/button';
+import { SubmitButton } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { setServerErrors } from '@/lib/field-errors';
 import { PublicCard } from '@/components/public-card';
@@ -33,9 +33,9 @@ export function SignInPage() {
         <TextField label="E-mail" type="email" autoComplete="username" autoFocus error={errors.email?.message} {...form.register('email')} />
         <TextField label="Password" type="password" autoComplete="current-password" error={errors.password?.message} {...form.register('password')} />
         <FormError message={errors.root?.message} />
-        <Button type="submit" disabled={isSubmitting}>
-          {isSubmitting ? 'Signing in…' : 'Sign in'}
-        </Button>
+        <SubmitButton busy={isSubmitting} busyLabel="Signing in…">
+          Sign in
+        </SubmitButton>
       </form>
       <p className="mt-4 text-center text-sm">
         <Link to="/forgot-password" className="text-sounding underline hover:text-sounding-dark">

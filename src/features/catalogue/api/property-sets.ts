@@ -1,6 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import { api } from '@/lib/api-client';
 import type { Family, MaterialDetailDto, PropertySetListDto } from '@shared/schemas/catalogue';
+import { queryKeys } from '@/lib/query-keys';
 
 export interface CatalogueFilters {
   family?: Family;
@@ -9,17 +10,9 @@ export interface CatalogueFilters {
   tmax?: number;
 }
 
-export const propertySetKeys = {
-  all: ['property-sets'] as const,
-  lists: () => [...propertySetKeys.all, 'list'] as const,
-  list: (filters: CatalogueFilters) => [...propertySetKeys.lists(), filters] as const,
-  detail: (id: number) => [...propertySetKeys.all, 'detail', id] as const,
-};
+export const propertySetKeys = queryKeys<CatalogueFilters>('property-sets');
 
-export const materialKeys = {
-  all: ['materials'] as const,
-  detail: (id: number) => [...materialKeys.all, 'detail', id] as const,
-};
+export const materialKeys = queryKeys('materials');
 
 export const fetchPropertySets = (filters: CatalogueFilters) =>
   api.get<PropertySetListDto>('/property-sets', { ...filters });

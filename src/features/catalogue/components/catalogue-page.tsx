@@ -9,7 +9,7 @@ import { COMPONENT_LABELS } from '@shared/labels';
 import { formatPressureAll, fromDisplay, PRESSURE_UNITS, roundForInput, toDisplay, unitOf } from '@/lib/units';
 import { CatalogueTable } from './catalogue-table';
 import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
-import { EmptyState, ErrorState, Spinner } from '@/components/ui/states';
+import { EmptyState, QueryStatus } from '@/components/ui/states';
 import { Button } from '@/components/ui/button';
 import { useUnits } from '@/lib/unit-system';
 import { TemperatureInput } from './temperature-input';
@@ -162,10 +162,8 @@ export function CataloguePage({ canEvaluate = false }: { canEvaluate?: boolean }
         ) : null}
       </div>
 
-      {query.isPending ? (
-        <Spinner label="Loading the catalogue…" />
-      ) : query.isError ? (
-        <ErrorState error={query.error} onRetry={() => void query.refetch()} />
+      {query.isPending || query.isError ? (
+        <QueryStatus query={query} loading="Loading the catalogue…" />
       ) : shown.length === 0 ? (
         <EmptyState title="No property sets match these filters">
           Widen the service temperature range, choose another family, or clear the search.

@@ -7,7 +7,7 @@ import { ReferenceCard } from '@/components/reference-card';
 import { ValueStatusNote } from '@/components/inputs-mark';
 import { VALUE_BASIS_LABELS } from '@shared/labels';
 import { engineInputKeys, inputStatus, inputStatusText, PROVENANCE_LABELS } from '@shared/schemas/provenance';
-import { ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import { Panel, QueryStatus, Spinner, Tag } from '@/components/ui/states';
 import { useUnits } from '@/lib/unit-system';
 import { formatDate } from '@/lib/dates';
 import { toDisplay } from '@/lib/units';
@@ -121,8 +121,7 @@ export function MaterialPage() {
   const id = Number(useParams().id);
   const [params, setParams] = useSearchParams();
   const query = useMaterial(id);
-  if (query.isPending) return <Spinner label="Loading material…" />;
-  if (query.isError) return <ErrorState error={query.error} onRetry={() => void query.refetch()} />;
+  if (query.isPending || query.isError) return <QueryStatus query={query} loading="Loading material…" />;
   const material = query.data;
   const selectedId = Number(params.get('set')) || material.propertySets[0]?.id;
   const selected = material.propertySets.find((s) => s.id === selectedId) ?? material.propertySets[0];
@@ -168,8 +167,7 @@ export function MaterialPage() {
 /** The published rating tables of the material: the window data that size its windows. */
 function MaterialRatingTables({ materialId }: { materialId: number }) {
   const tables = useRatingTables({ materialId, status: 'published' });
-  if (tables.isPending) return <Spinner label="Loading rating tables…" />;
-  if (tables.isError) return <ErrorState error={tables.error} onRetry={() => void tables.refetch()} />;
+  if (tables.isPending || tables.isError) return <QueryStatus query={tables} loading="Loading rating tables…" />;
   if (!tables.data.items.length) return null;
   return (
     <section aria-label="Rating tables" className="flex flex-col gap-3">

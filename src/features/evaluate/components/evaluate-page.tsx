@@ -1,7 +1,7 @@
-import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState } from 'react';
+import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Link, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
-import { candidateFromPropertySet, type CandidateResult } from '@shared/engine';
+import { candidateFromPropertySet, type CandidateMaterial, type CandidateResult } from '@shared/engine';
 import type { EvaluateRequest, ExclusionDto, ExclusionReason, SORT_KEYS } from '@shared/schemas/evaluate';
 import type { LoadCaseDto, ShortlistDto } from '@shared/schemas/projects';
 import { Cautions } from '@/components/cautions';
@@ -31,16 +31,26 @@ const SORT_LABELS: Record<SortKey, string> = {
   weightToDisplacement: 'Weight to displacement (hulls)',
 };
 
-function SelectedCandidate({ request, result }: { request: EvaluateRequest; result: CandidateResult }) {
+/**
+ * A drawing of the selected catalogue candidate (its set loaded as an engine candidate), or why
+ * there is none yet; `what` names the drawing for a candidate outside the catalogue.
+ */
+function CandidateDrawing({ result, what, draw }: { result: CandidateResult; what: string; draw: (candidate: CandidateMaterial) => ReactNode }) {
   const set = useQuery({ ...candidateSetQueryOptions(result.propertySetId ?? 0), enabled: result.propertySetId !== undefined });
   const candidate = useMemo(() => (set.data ? candidateFromPropertySet(set.data) : null), [set.data]);
-  if (result.propertySetId === undefined) return <p className="text-sm text-ink-soft">Thickness sweeps are drawn for catalogue candidates.</p>;
+  if (result.propertySetId === undefined) return <p className="text-sm text-ink-soft">{what} are drawn for catalogue candidates.</p>;
   if (set.isPending) return <Spinner label="Loading the candidate's data…" />;
   if (set.isError || !candidate) return <ErrorState error={set.error} />;
+  return <Suspense fallback={<Spinner label="Drawing…" />}>{draw(candidate)}</Suspense>;
+}
+
+function SelectedCandidate({ request, result }: { request: EvaluateRequest; result: CandidateResult }) {
   return (
-    <Suspense fallback={<Spinner label="Drawing…" />}>
-      <ThicknessChart loadCase={request.loadCase} candidate={candidate} thickness={request.loadCase.component.thickness} requiredThickness={result.requiredThickness} />
-    </Suspense>
+    <CandidateDrawing
+      result={result}
+      what="Thickness sweeps"
+      draw={(candidate) => <ThicknessChart loadCase={request.loadCase} candidate={candidate} thickness={request.loadCase.component.thickness} requiredThickness={result.requiredThickness} />}
+    />
   );
 }
 
@@ -82,15 +92,12 @@ function sizedByWords(s: NonNullable<CandidateResult['sizedBy']>) {
 
 /** The mode map of the selected catalogue candidate; a click hands the point to the form. */
 function SelectedModeMap({ request, result, onPick }: { request: EvaluateRequest; result: CandidateResult; onPick: (p: MapPoint) => void }) {
-  const set = useQuery({ ...candidateSetQueryOptions(result.propertySetId ?? 0), enabled: result.propertySetId !== undefined });
-  const candidate = useMemo(() => (set.data ? candidateFromPropertySet(set.data) : null), [set.data]);
-  if (result.propertySetId === undefined) return <p className="text-sm text-ink-soft">Mode maps are drawn for catalogue candidates.</p>;
-  if (set.isPending) return <Spinner label="Loading the candidate's data…" />;
-  if (set.isError || !candidate) return <ErrorState error={set.error} />;
   return (
-    <Suspense fallback={<Spinner label="Drawing…" />}>
-      <ModeMap loadCase={request.loadCase} candidate={candidate} requiredThickness={result.requiredThickness} onPick={onPick} />
-    </Suspense>
+    <CandidateDrawing
+      result={result}
+      what="Mode maps"
+      draw={(candidate) => <ModeMap loadCase={request.loadCase} candidate={candidate} requiredThickness={result.requiredThickness} onPick={onPick} />}
+    />
   );
 }
 

@@ -6,7 +6,7 @@ import { COMPONENT_TYPES, type EvaluateRequest } from '@shared/schemas/evaluate'
 import { COMPONENT_LABELS, WINDOW_COMPONENTS } from '@shared/labels';
 import { pressureFromDepth, DEFAULT_TARGET_SAFETY_FACTORS } from '@shared/engine';
 import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
-import { Button } from '@/components/ui/button';
+import { Button, SubmitButton } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
 import { useUnits } from '@/lib/unit-system';
 import { defaultPressureUnit, formatPressureAll, fromDisplay, PRESSURE_UNITS, roundForInput, toDisplay, unitOf, type PressureUnit } from '@/lib/units';
@@ -405,9 +405,9 @@ export function LoadCaseFormPanel({
       </Fieldset>
 
       <FormError message={errors.root?.message} />
-      <Button type="submit" id="evaluate-submit" disabled={busy}>
-        {busy ? 'Evaluating…' : 'Evaluate candidates'}
-      </Button>
+      <SubmitButton busy={busy} busyLabel="Evaluating…" id="evaluate-submit">
+        Evaluate candidates
+      </SubmitButton>
       {onSave ? (
         <Button tone="quiet" onClick={() => void save()}>
           Save to a project…

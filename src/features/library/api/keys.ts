@@ -1,3 +1,5 @@
+import { queryKeys } from '@/lib/query-keys';
+
 /** GET /api/library/sets filters: no status = drafts and in-review; mine = drafted or last edited by me. */
 export interface LibraryQueueFilters {
   status?: 'draft' | 'in-review';
@@ -6,10 +8,7 @@ export interface LibraryQueueFilters {
 
 /** Query keys of the library desk: one factory per kind of data. */
 export const librarySetKeys = {
-  all: ['library-sets'] as const,
-  lists: () => [...librarySetKeys.all, 'list'] as const,
-  list: (filters: LibraryQueueFilters) => [...librarySetKeys.lists(), filters] as const,
-  detail: (id: number) => [...librarySetKeys.all, 'detail', id] as const,
+  ...queryKeys<LibraryQueueFilters>('library-sets'),
   changes: (id: number) => [...librarySetKeys.all, 'changes', id] as const,
   published: () => [...librarySetKeys.all, 'published'] as const,
 };
@@ -20,10 +19,8 @@ export const libraryMaterialKeys = {
 };
 
 export const referenceKeys = {
-  all: ['references'] as const,
-  lists: () => [...referenceKeys.all, 'list'] as const,
+  ...queryKeys('references'),
   list: (q: string) => [...referenceKeys.lists(), { q }] as const,
-  detail: (id: number) => [...referenceKeys.all, 'detail', id] as const,
   /** Proposed changes waiting on the desk (GET /api/library/reference-versions). */
   proposed: (status?: 'draft' | 'in-review') => [...referenceKeys.all, 'proposed', { status }] as const,
 };

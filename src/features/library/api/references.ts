@@ -1,4 +1,5 @@
-import { keepPreviousData, queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { keepPreviousData, queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
+import { useSaveMutation } from '@/lib/query-client';
 import { api } from '@/lib/api-client';
 import type { ReferenceInput } from '@shared/schemas/catalogue';
 import type { ReferenceListDto, ReferencePageDto, ReferenceVersionStepInput, PendingReferenceVersionDto } from '@shared/schemas/library';
@@ -15,61 +16,42 @@ export const documentUrl = (referenceId: number) => `/api/references/${reference
 /** Where one document version is downloaded. */
 export const documentVersionUrl = (referenceId: number, version: number) => `/api/references/${referenceId}/documents/${version}`;
 
-function useSettle() {
-  const qc = useQueryClient();
-  return (ref: ReferencePageDto) => {
-    qc.setQueryData(referenceKeys.detail(ref.id), ref);
-    void qc.invalidateQueries({ queryKey: referenceKeys.lists() });
-    void qc.invalidateQueries({ queryKey: [...referenceKeys.all, 'proposed'] });
-    // Sets show their reference, so the catalogue and desk views refresh too.
-    void qc.invalidateQueries({ queryKey: librarySetKeys.all });
-    for (const root of CATALOGUE_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
-  };
+/** The saved reference page goes into the cache; the lists, the proposed changes and the sets that show it refresh. */
+function referenceSaved(qc: QueryClient, ref: ReferencePageDto) {
+  qc.setQueryData(referenceKeys.detail(ref.id), ref);
+  void qc.invalidateQueries({ queryKey: referenceKeys.lists() });
+  void qc.invalidateQueries({ queryKey: [...referenceKeys.all, 'proposed'] });
+  // Sets show their reference, so the catalogue and desk views refresh too.
+  void qc.invalidateQueries({ queryKey: librarySetKeys.all });
+  for (const root of CATALOGUE_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
 }
 
-export function useCreateReference() {
-  const settle = useSettle();
-  return useMutation({ mutationFn: (input: ReferenceInput) => api.post<ReferencePageDto>('/references', input), onSuccess: settle });
-}
+const useReferenceMutation = <V>(mutationFn: (vars: V) => Promise<ReferencePageDto>) => useSaveMutation(mutationFn, referenceSaved);
+
+export const useCreateReference = () => useReferenceMutation((input: ReferenceInput) => api.post<ReferencePageDto>('/references', input));
 
 /** Saves a reference: in place when not in use; otherwise the server keeps it as a proposed new version. */
-export function useUpdateReference(id: number) {
-  const settle = useSettle();
-  return useMutation({
-    mutationFn: (body: { lockVersion: number; reference: ReferenceInput }) => api.put<ReferencePageDto>(`/references/${id}`, body),
-    onSuccess: settle,
-  });
-}
+export const useUpdateReference = (id: number) =>
+  useReferenceMutation((body: { lockVersion: number; reference: ReferenceInput }) => api.put<ReferencePageDto>(`/references/${id}`, body));
 
 /** Saves a proposed change (a version in draft) again. */
-export function useUpdateProposedVersion(id: number) {
-  const settle = useSettle();
-  return useMutation({
-    mutationFn: ({ version, ...body }: { version: number; lockVersion: number; reference: ReferenceInput }) => api.put<ReferencePageDto>(`/references/${id}/versions/${version}`, body),
-    onSuccess: settle,
-  });
-}
+export const useUpdateProposedVersion = (id: number) =>
+  useReferenceMutation(({ version, ...body }: { version: number; lockVersion: number; reference: ReferenceInput }) =>
+    api.put<ReferencePageDto>(`/references/${id}/versions/${version}`, body),
+  );
 
 /** Submits, approves or returns a proposed change. */
-export function useReferenceVersionStep(id: number) {
-  const settle = useSettle();
-  return useMutation({
-    mutationFn: ({ version, input }: { version: number; input: ReferenceVersionStepInput }) => api.post<ReferencePageDto>(`/references/${id}/versions/${version}/steps`, input),
-    onSuccess: settle,
-  });
-}
+export const useReferenceVersionStep = (id: number) =>
+  useReferenceMutation(({ version, input }: { version: number; input: ReferenceVersionStepInput }) =>
+    api.post<ReferencePageDto>(`/references/${id}/versions/${version}/steps`, input),
+  );
 
-export function useUploadDocument(id: number) {
-  const settle = useSettle();
-  return useMutation({
-    mutationFn: ({ file, onProgress, signal }: { file: File; onProgress: (loaded: number, total: number) => void; signal?: AbortSignal }) => {
-      const form = new FormData();
-      form.append('file', file, file.name);
-      return api.upload<ReferencePageDto>(`/references/${id}/document`, form, { onProgress, signal });
-    },
-    onSuccess: settle,
+export const useUploadDocument = (id: number) =>
+  useReferenceMutation(({ file, onProgress, signal }: { file: File; onProgress: (loaded: number, total: number) => void; signal?: AbortSignal }) => {
+    const form = new FormData();
+    form.append('file', file, file.name);
+    return api.upload<ReferencePageDto>(`/references/${id}/document`, form, { onProgress, signal });
   });
-}
 
 export const referenceQueryOptions = (id: number) =>
   queryOptions({ queryKey: referenceKeys.detail(id), queryFn: () => api.get<ReferencePageDto>(`/references/${id}`) });

@@ -1,6 +1,8 @@
 import { useEffect, useRef, useState } from 'react';
 import { DOCUMENT_MAX_BYTES, type ReferenceDocumentDto, type ReferencePageDto } from '@shared/schemas/library';
+import { Notice } from '@/components/ui/form-error';
 import { Button } from '@/components/ui/button';
+import { ColumnHeads } from '@/components/ui/column-heads';
 import { ApiError } from '@/lib/api-client';
 import { documentVersionUrl, useUploadDocument } from '../api/references';
 import { formatBytes, formatDateTime } from '../labels';
@@ -11,13 +13,7 @@ export function DocumentVersions({ referenceId, documents, title }: { referenceI
   if (!documents.length) return <p className="text-sm text-ink-soft">No document yet.</p>;
   return (
     <table className="w-full text-sm" aria-label="Document versions" data-testid="document-versions">
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th scope="col" className="py-1 pr-3">Version</th>
-          <th scope="col" className="py-1 pr-3">File</th>
-          <th scope="col" className="py-1 pr-3">Uploaded</th>
-        </tr>
-      </thead>
+      <ColumnHeads columns={['Version', 'File', { label: 'Uploaded', className: 'pr-3' }]} />
       <tbody>
         {documents.map((d, i) => (
           <tr key={d.version} className="border-t border-chart-line/60 align-top">
@@ -121,11 +117,7 @@ export function DocumentUpload({ reference }: { reference: ReferencePageDto }) {
           {upload.error instanceof ApiError ? upload.error.message : 'The upload failed.'}
         </p>
       ) : null}
-      {done !== null ? (
-        <p role="status" className="text-sm font-bold text-verdict-pass">
-          Document stored as version {done}.
-        </p>
-      ) : null}
+      <Notice message={done !== null ? `Document stored as version ${done}.` : null} />
     </div>
   );
 }

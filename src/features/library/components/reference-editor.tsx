@@ -3,7 +3,7 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { REFERENCE_KINDS, type ReferenceInput } from '@shared/schemas/catalogue';
 import type { ReferencePageDto } from '@shared/schemas/library';
-import { Button } from '@/components/ui/button';
+import { Button, SubmitButton } from '@/components/ui/button';
 import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { StaleBanner } from '@/components/stale-banner';
 import { FormError, Notice } from '@/components/ui/form-error';
@@ -130,9 +130,9 @@ export function ReferenceEditor({
       <FormError message={formState.errors.root?.message} />
       <Notice message={notice} />
       <div className="flex gap-2">
-        <Button type="submit" disabled={busy}>
-          {busy ? 'Saving…' : submitLabel}
-        </Button>
+        <SubmitButton busy={busy} busyLabel="Saving…">
+          {submitLabel}
+        </SubmitButton>
         {onClose ? (
           <Button tone="quiet" onClick={onClose}>
             Close

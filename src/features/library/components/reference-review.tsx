@@ -2,6 +2,7 @@ import type { ReferencePageDto, ReferenceVersionDto } from '@shared/schemas/libr
 import type { SessionUserDto } from '@shared/schemas/auth';
 import { allowedSteps, type CuratedStatus, type CuratedStepName, type WorkflowSubject } from '@shared/workflows/curated';
 import { REFERENCE_VERSION_STEPS } from '@shared/workflows/reference-version';
+import { ColumnHeads } from '@/components/ui/column-heads';
 import { Tag } from '@/components/ui/states';
 import { WorkflowSteps } from '@/components/workflow-steps';
 import { useReferenceVersionStep } from '../api/references';
@@ -22,13 +23,7 @@ export function CitationChanges({ version, label }: { version: ReferenceVersionD
   if (!version.changes.length) return <p className="text-sm text-ink-soft">No field differs from the version before.</p>;
   return (
     <table className="w-full text-sm" aria-label={label}>
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th scope="col" className="py-1 pr-3">Field</th>
-          <th scope="col" className="py-1 pr-3">Before</th>
-          <th scope="col" className="py-1">Proposed</th>
-        </tr>
-      </thead>
+      <ColumnHeads columns={['Field', 'Before', 'Proposed']} />
       <tbody>
         {version.changes.map((c) => (
           <tr key={c.field} className="border-t border-chart-line/60 align-top">

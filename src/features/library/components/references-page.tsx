@@ -5,7 +5,7 @@ import type { ReferenceDetailDto } from '@shared/schemas/library';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { TableView, useSortableTable } from '@/components/ui/table-view';
-import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import { EmptyState, ErrorState, Panel, QueryStatus, Spinner, Tag } from '@/components/ui/states';
 import { documentUrl, useReference, useReferences } from '../api/references';
 import { REFERENCE_KIND_LABELS, formatBytes } from '../labels';
 import { ReferenceDocuments } from './reference-documents';
@@ -119,10 +119,8 @@ export function ReferencesPage({ canDraft }: { canDraft: boolean }) {
           <p className="text-sm text-ink-soft" aria-live="polite">
             {list.data ? `${list.data.total} reference${list.data.total === 1 ? '' : 's'}${term ? ` match “${term}”` : ''}` : ' '}
           </p>
-          {list.isPending ? (
-            <Spinner label="Loading references…" />
-          ) : list.isError ? (
-            <ErrorState error={list.error} onRetry={() => void list.refetch()} />
+          {list.isPending || list.isError ? (
+            <QueryStatus query={list} loading="Loading references…" />
           ) : list.data.items.length === 0 ? (
             <EmptyState
               title={term ? 'No reference matches' : 'No references yet'}

@@ -23,8 +23,11 @@ export function isOwnWork(set: LibrarySetDto, me: SessionUserDto): boolean {
 
 type Props = { set: LibrarySetDto; me: SessionUserDto; onReload: () => void; onNotice: (message: string) => void };
 
-/** Runs a set's step and answers what the step returned (the new draft, for a revision). */
-function useStepRunner(set: LibrarySetDto) {
+/**
+ * Runs a set's step and answers what the step returned (the new draft, for a revision); `stepProps`
+ * are what both panels give their WorkflowSteps alike.
+ */
+function useStepRunner(set: LibrarySetDto, me: SessionUserDto, onReload: () => void) {
   const step = useSetStep();
   const run = (name: CuratedStepName, comment: string | undefined) => {
     const base = { id: set.id, lockVersion: set.lockVersion };
@@ -32,7 +35,8 @@ function useStepRunner(set: LibrarySetDto) {
     if (name === 'retire') return step.mutateAsync({ ...base, step: name, reason: comment ?? '' });
     return step.mutateAsync({ ...base, step: name });
   };
-  return { run, busy: step.isPending };
+  const stepProps = { subject: subjectOf(set), viewer: { id: me.id, role: me.role }, busy: step.isPending, onReload, empty: null };
+  return { run, stepProps };
 }
 
 /** Why the viewer cannot approve, in this desk's words, or null when they can. */
@@ -47,7 +51,7 @@ function approveBlocker(set: LibrarySetDto, me: SessionUserDto): string | null {
 /** Approve or return a set in review (four-eyes), with the reason shown when the caller may not. */
 export function ReviewPanel({ set, me, onReload, onNotice }: Props) {
   const navigate = useNavigate();
-  const { run, busy } = useStepRunner(set);
+  const { run, stepProps } = useStepRunner(set, me, onReload);
   const blocker = approveBlocker(set, me);
   const onStep = async (name: CuratedStepName, comment: string | undefined) => {
     await run(name, comment);
@@ -69,15 +73,11 @@ export function ReviewPanel({ set, me, onReload, onNotice }: Props) {
           <p className="text-ink-soft">Check each value against the source, then approve to publish it, or return it with a comment.</p>
         )}
         <WorkflowSteps
+          {...stepProps}
           steps={REVIEW_STEPS}
-          subject={subjectOf(set)}
-          viewer={{ id: me.id, role: me.role }}
-          busy={busy}
           onStep={onStep}
-          onReload={onReload}
           buttonLabels={{ approve: 'Approve…', return: 'Return to author…' }}
           reasons="none"
-          empty={null}
           describe={(step) =>
             step.name === 'approve' ? (
               <>
@@ -98,7 +98,7 @@ export function ReviewPanel({ set, me, onReload, onNotice }: Props) {
 /** A published set: start its next version, or retire it. */
 export function PublishedActions({ set, me, onReload, onNotice }: Props) {
   const navigate = useNavigate();
-  const { run, busy } = useStepRunner(set);
+  const { run, stepProps } = useStepRunner(set, me, onReload);
   const onStep = async (name: CuratedStepName, comment: string | undefined) => {
     const result = await run(name, comment);
     if (name === 'revise' && result) navigate(`/library/sets/${result.id}`);
@@ -109,14 +109,10 @@ export function PublishedActions({ set, me, onReload, onNotice }: Props) {
       <div className="flex flex-col gap-3 text-sm">
         <p className="text-ink-soft">Published values are never edited in place: a revision is a new draft (version {set.version + 1}) that replaces this one once approved.</p>
         <WorkflowSteps
+          {...stepProps}
           steps={PUBLISHED_STEPS}
-          subject={subjectOf(set)}
-          viewer={{ id: me.id, role: me.role }}
-          busy={busy}
           onStep={onStep}
-          onReload={onReload}
           buttonLabels={{ revise: 'Start a revision…', retire: 'Retire…' }}
-          empty={null}
           describe={(step) =>
             step.name === 'retire' ? <p>It leaves the catalogue and Evaluate. Design records that used it keep it, and it stays readable here.</p> : null
           }

@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useQueryClient } from '@tanstack/react-query';
 import { useLocation, useNavigate } from 'react-router-dom';
 import { get, useForm } from 'react-hook-form';
@@ -19,6 +19,10 @@ import { SetHistory } from './set-history';
 import { MaterialSection, ReferenceSection } from './set-source-fields';
 import { DependenceSection, ValuesSection } from './set-values-editor';
 import { StatusSection } from './set-status-editor';
+import type { SetEditorSectionProps } from './set-editor-fieldset';
+
+/** The editor's sections, top to bottom, each in its own panel. */
+const SECTIONS: ((props: SetEditorSectionProps) => ReactNode)[] = [MaterialSection, ReferenceSection, ValuesSection, DependenceSection, StatusSection];
 
 type Banner = { tone: 'error' | 'info'; message: string } | null;
 
@@ -148,21 +152,11 @@ export function SetEditor({ set }: { set?: LibrarySetDto }) {
               <p className="mt-1 whitespace-pre-line">{set.returnedComment}</p>
             </div>
           ) : null}
-          <Panel>
-            <MaterialSection form={form} err={err} />
-          </Panel>
-          <Panel>
-            <ReferenceSection form={form} err={err} />
-          </Panel>
-          <Panel>
-            <ValuesSection form={form} err={err} />
-          </Panel>
-          <Panel>
-            <DependenceSection form={form} err={err} />
-          </Panel>
-          <Panel>
-            <StatusSection form={form} err={err} />
-          </Panel>
+          {SECTIONS.map((Section, i) => (
+            <Panel key={i}>
+              <Section form={form} err={err} />
+            </Panel>
+          ))}
         </div>
 
         <aside className="flex flex-col gap-4 lg:sticky lg:top-4 lg:self-start" aria-label="Draft actions">

@@ -1,3 +1,5 @@
+import { queryKeys } from '@/lib/query-keys';
+
 /** Query keys of the projects feature: one factory per kind of data. */
 export const projectKeys = {
   all: ['projects'] as const,
@@ -10,16 +12,12 @@ export const projectKeys = {
 };
 
 export const shortlistKeys = {
-  all: ['shortlists'] as const,
-  detail: (id: number) => [...shortlistKeys.all, 'detail', id] as const,
+  ...queryKeys('shortlists'),
   /** Shortlists waiting for the signed-in checker. */
   awaitingCheck: () => [...shortlistKeys.all, 'awaiting-check'] as const,
 };
 
-export const recordKeys = {
-  all: ['design-records'] as const,
-  detail: (id: number) => [...recordKeys.all, 'detail', id] as const,
-};
+export const recordKeys = queryKeys('design-records');
 
 export const peopleKeys = {
   all: ['people'] as const,

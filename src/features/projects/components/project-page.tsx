@@ -5,12 +5,12 @@ import { z } from 'zod';
 import { Link } from 'react-router-dom';
 import { ROLE_LABELS } from '@shared/schemas/auth';
 import { memberAddSchema, type ProjectDto, type UserSummaryDto } from '@shared/schemas/projects';
-import { Button } from '@/components/ui/button';
-import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { Button, SubmitButton } from '@/components/ui/button';
+import { ConfirmDialog, mutationState } from '@/components/ui/confirm-dialog';
 import { SelectField } from '@/components/ui/field';
 import { LinkButton } from '@/components/ui/link-button';
-import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
-import { ApiError } from '@/lib/api-client';
+import { EmptyState, Panel, QueryStatus, Tag } from '@/components/ui/states';
+import { errorText } from '@/lib/api-client';
 import { formatDate, formatDateTime } from '@/lib/dates';
 import { setServerErrors } from '@/lib/field-errors';
 import { useUnits } from '@/lib/unit-system';
@@ -30,8 +30,6 @@ import { ShortlistStatusTag } from './bits';
 import { ProjectFormDialog } from './project-form-dialog';
 import { numeric, PlainTable } from '@/components/ui/column-heads';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
-
-const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 
 /** The member picker holds the chosen id as the select's text; the shared schema checks the number. */
 const memberFormSchema = z
@@ -103,9 +101,9 @@ function Members({ project, canManage }: { project: ProjectDto; canManage: boole
               </option>
             ))}
           </SelectField>
-          <Button type="submit" disabled={!chosen || add.isPending}>
-            {add.isPending ? 'Adding…' : 'Add'}
-          </Button>
+          <SubmitButton busy={add.isPending} busyLabel="Adding…" disabled={!chosen}>
+            Add
+          </SubmitButton>
         </form>
       ) : (
         <p className="mt-3 text-xs text-ink-soft">The project's owner or an administrator adds and removes members.</p>
@@ -115,9 +113,8 @@ function Members({ project, canManage }: { project: ProjectDto; canManage: boole
         title={`Remove ${removing?.name ?? ''} from the project?`}
         confirmLabel="Remove member"
         tone="danger"
-        busy={remove.isPending}
+        {...mutationState(remove)}
         busyLabel="Removing…"
-        error={remove.isError ? errorText(remove.error) : undefined}
         onClose={() => setRemoving(null)}
         onConfirm={() => removing && remove.mutate(removing.id, { onSuccess: () => setRemoving(null) })}
       >
@@ -130,8 +127,7 @@ function Members({ project, canManage }: { project: ProjectDto; canManage: boole
 function LoadCases({ projectId, canEvaluate }: { projectId: number; canEvaluate: boolean }) {
   const { system } = useUnits();
   const loadCases = useProjectLoadCases(projectId);
-  if (loadCases.isPending) return <Spinner label="Loading load cases…" />;
-  if (loadCases.isError) return <ErrorState error={loadCases.error} onRetry={() => void loadCases.refetch()} />;
+  if (loadCases.isPending || loadCases.isError) return <QueryStatus query={loadCases} loading="Loading load cases…" />;
   if (!loadCases.data.length) {
     return (
       <EmptyState title="No load cases yet" action={canEvaluate ? <LinkButton to="/evaluate">Go to Evaluate</LinkButton> : null}>
@@ -166,8 +162,7 @@ function LoadCases({ projectId, canEvaluate }: { projectId: number; canEvaluate:
 function Shortlists({ projectId }: { projectId: number }) {
   const shortlists = useProjectShortlists(projectId);
   const loadCases = useProjectLoadCases(projectId);
-  if (shortlists.isPending) return <Spinner label="Loading shortlists…" />;
-  if (shortlists.isError) return <ErrorState error={shortlists.error} onRetry={() => void shortlists.refetch()} />;
+  if (shortlists.isPending || shortlists.isError) return <QueryStatus query={shortlists} loading="Loading shortlists…" />;
   if (!shortlists.data.length) {
     return (
       <EmptyState title="No shortlists yet">
@@ -209,8 +204,7 @@ function Shortlists({ projectId }: { projectId: number }) {
 
 function Records({ projectId }: { projectId: number }) {
   const records = useProjectRecords(projectId);
-  if (records.isPending) return <Spinner label="Loading design records…" />;
-  if (records.isError) return <ErrorState error={records.error} onRetry={() => void records.refetch()} />;
+  if (records.isPending || records.isError) return <QueryStatus query={records} loading="Loading design records…" />;
   if (!records.data.length) {
     return <EmptyState title="No design records yet">A design record is frozen when a checker checks a submitted shortlist. It keeps the inputs, results and data versions as they were.</EmptyState>;
   }
@@ -238,8 +232,7 @@ export function ProjectPage({ id, me }: { id: number; me: Viewer }) {
   const update = useUpdateProject(id);
   const [editing, setEditing] = useState(false);
 
-  if (project.isPending) return <Spinner label="Loading the project…" />;
-  if (project.isError) return <ErrorState error={project.error} onRetry={() => void project.refetch()} />;
+  if (project.isPending || project.isError) return <QueryStatus query={project} loading="Loading the project…" />;
   const p = project.data;
   const canWrite = me.permissions.includes('project:write');
   const canManage = canWrite && (me.role === 'admin' || p.owner.id === me.id);

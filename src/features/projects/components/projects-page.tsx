@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Link, useNavigate } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
-import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
+import { EmptyState, Panel, QueryStatus } from '@/components/ui/states';
 import { formatDate } from '@/lib/dates';
 import { useCreateProject, useProjects } from '../api/projects';
 import { ProjectFormDialog } from './project-form-dialog';
@@ -44,10 +44,8 @@ export function ProjectsPage({ canCreate }: { canCreate: boolean }) {
         {projects.data?.length ? newButton : null}
       </div>
 
-      {projects.isPending ? (
-        <Spinner label="Loading your projects…" />
-      ) : projects.isError ? (
-        <ErrorState error={projects.error} onRetry={() => void projects.refetch()} />
+      {projects.isPending || projects.isError ? (
+        <QueryStatus query={projects} loading="Loading your projects…" />
       ) : projects.data.length === 0 ? (
         <EmptyState
           title="No projects yet"

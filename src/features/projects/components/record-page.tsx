@@ -5,7 +5,8 @@ import type { DesignRecordContent, DesignRecordDto } from '@shared/schemas/proje
 import { FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { MarginCell, ModeTag, ModesTable, SizingSummary } from '@/components/failure-modes';
 import { Button } from '@/components/ui/button';
-import { ErrorState, Spinner, Tag } from '@/components/ui/states';
+import { CitationLines } from '@/components/reference-card';
+import { QueryStatus, Spinner, Tag } from '@/components/ui/states';
 import { formatDateTime } from '@/lib/dates';
 import { useUnits } from '@/lib/unit-system';
 import { RECORD_SECTIONS, REFERENCE_KIND_LABELS, factorsText } from '@shared/labels';
@@ -169,12 +170,7 @@ function Sources({ content }: { content: DesignRecordContent }) {
             {r ? (
               <div>
                 <Tag tone="brass">{REFERENCE_KIND_LABELS[r.kind]}</Tag> {r.identifier ? <span className="font-mono text-xs">{r.identifier}</span> : null}
-                <p className="font-bold">{r.title}</p>
-                <p className="text-ink-soft">
-                  {[r.authors, r.year].filter(Boolean).join(', ')}
-                  {r.location ? ` — ${r.location}` : ''}
-                </p>
-                {r.note ? <p className="whitespace-pre-line text-xs text-ink-soft">{r.note}</p> : null}
+                <CitationLines reference={r} />
                 {/* Records frozen before references were versioned cite version 1 and name no document version. */}
                 <p className="text-xs text-ink-soft" data-testid="record-reference-version">
                   Citation version {r.version ?? 1}
@@ -336,7 +332,6 @@ function RecordView({ record, canExport }: { record: DesignRecordDto; canExport:
 
 export function RecordPage({ id, canExport }: { id: number; canExport: boolean }) {
   const record = useDesignRecord(id);
-  if (record.isPending) return <Spinner label="Loading the design record…" />;
-  if (record.isError) return <ErrorState error={record.error} onRetry={() => void record.refetch()} />;
+  if (record.isPending || record.isError) return <QueryStatus query={record} loading="Loading the design record…" />;
   return <RecordView record={record.data} canExport={canExport} />;
 }

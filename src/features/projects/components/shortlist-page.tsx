@@ -3,12 +3,12 @@ import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { Link } from 'react-router-dom';
 import { shortlistItemUpdateSchema, type ShortlistDto, type ShortlistItemDto } from '@shared/schemas/projects';
-import { Button } from '@/components/ui/button';
-import { ConfirmDialog } from '@/components/ui/confirm-dialog';
+import { Button, SubmitButton } from '@/components/ui/button';
+import { ConfirmDialog, mutationState } from '@/components/ui/confirm-dialog';
 import { LinkButton } from '@/components/ui/link-button';
-import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
+import { EmptyState, Panel, QueryStatus, Tag } from '@/components/ui/states';
 import { TextAreaField } from '@/components/ui/text-area';
-import { ApiError, isStale } from '@/lib/api-client';
+import { ApiError, isStale, errorText } from '@/lib/api-client';
 import { setServerErrors } from '@/lib/field-errors';
 import { StaleBanner } from '@/components/stale-banner';
 import { FormError } from '@/components/ui/form-error';
@@ -23,7 +23,6 @@ import { Rounds } from './rounds';
 import { formatDateTime } from '@/lib/dates';
 import { Breadcrumb } from '@/components/ui/breadcrumb';
 
-const errorText = (err: unknown) => (err instanceof ApiError ? err.message : 'The server did not answer. Try again.');
 /** A reorder refused because the shortlist moved on (stale) or is no longer open. */
 const isOutdated = (err: unknown) => err instanceof ApiError && err.status === 409 && (err.code === 'stale' || err.code === 'wrong_status');
 
@@ -83,9 +82,9 @@ function NoteEditor({ item, shortlistId, onDone, onReload }: { item: ShortlistIt
       />
       <FormError message={errors.root?.message} />
       <div className="flex gap-2">
-        <Button type="submit" disabled={isSubmitting} className="!py-1 text-xs">
-          {isSubmitting ? 'Saving…' : 'Save note'}
-        </Button>
+        <SubmitButton busy={isSubmitting} busyLabel="Saving…" className="!py-1 text-xs">
+          Save note
+        </SubmitButton>
         <Button tone="quiet" onClick={onDone} className="!py-1 text-xs">
           Cancel
         </Button>
@@ -256,9 +255,8 @@ function Items({ shortlist, rights, onReload, readAgain }: { shortlist: Shortlis
         title="Remove this candidate from the shortlist?"
         confirmLabel="Remove"
         tone="danger"
-        busy={remove.isPending}
+        {...mutationState(remove)}
         busyLabel="Removing…"
-        error={remove.isError ? errorText(remove.error) : undefined}
         onClose={() => setRemoving(null)}
         onConfirm={() => removing && remove.mutate({ step: 'remove', itemId: removing.id }, { onSuccess: () => setRemoving(null) })}
       >
@@ -275,8 +273,7 @@ export function ShortlistPage({ id, me }: { id: number; me: Viewer }) {
   const shortlist = useShortlist(id);
   const project = useProject(shortlist.data?.projectId ?? 0);
 
-  if (shortlist.isPending) return <Spinner label="Loading the shortlist…" />;
-  if (shortlist.isError) return <ErrorState error={shortlist.error} onRetry={() => void shortlist.refetch()} />;
+  if (shortlist.isPending || shortlist.isError) return <QueryStatus query={shortlist} loading="Loading the shortlist…" />;
   const s = shortlist.data;
   const rights = shortlistRights(s, me, project.data ? project.data.members.map((m) => m.id) : null);
   const reload = () => void shortlist.refetch();

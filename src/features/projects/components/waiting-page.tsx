@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
+import { EmptyState, Panel, QueryStatus } from '@/components/ui/states';
 import { formatDateTime } from '@/lib/dates';
 import { useAwaitingCheck } from '../api/shortlists';
 
@@ -14,10 +14,8 @@ export function WaitingPage({ name }: { name: string }) {
         their own.
       </p>
       <Panel title="Shortlists to check">
-        {waiting.isPending ? (
-          <Spinner label="Looking for submitted shortlists…" />
-        ) : waiting.isError ? (
-          <ErrorState error={waiting.error} onRetry={() => void waiting.refetch()} />
+        {waiting.isPending || waiting.isError ? (
+          <QueryStatus query={waiting} loading="Looking for submitted shortlists…" />
         ) : waiting.data.items.length === 0 ? (
           <EmptyState title="Nothing waits for your check">
             When an engineer submits a shortlist in one of your projects, it appears here and you get an e-mail.{' '}

@@ -1,6 +1,8 @@
-import { queryOptions, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { queryOptions, useQuery, type QueryClient } from '@tanstack/react-query';
+import { useSaveMutation } from '@/lib/query-client';
 import { api, upload } from '@/lib/api-client';
 import type { RatingTableCsvDto, RatingTableData, RatingTableDraftInput, RatingTableDto, RatingTableListDto, RatingTableStepInput } from '@shared/schemas/rating-tables';
+import { queryKeys } from '@/lib/query-keys';
 
 export interface RatingTableFilters {
   materialId?: number;
@@ -8,12 +10,7 @@ export interface RatingTableFilters {
 }
 
 /** Query keys of rating tables: one factory. */
-export const ratingTableKeys = {
-  all: ['rating-tables'] as const,
-  lists: () => [...ratingTableKeys.all, 'list'] as const,
-  list: (filters: RatingTableFilters) => [...ratingTableKeys.lists(), filters] as const,
-  detail: (id: number) => [...ratingTableKeys.all, 'detail', id] as const,
-};
+export const ratingTableKeys = queryKeys<RatingTableFilters>('rating-tables');
 
 export const ratingTablesQueryOptions = (filters: RatingTableFilters) =>
   queryOptions({ queryKey: ratingTableKeys.list(filters), queryFn: () => api.get<RatingTableListDto>('/rating-tables', { ...filters }), staleTime: 30_000 });
@@ -27,32 +24,21 @@ export const useRatingTable = (id: number) => useQuery(ratingTableQueryOptions(i
 /** Evaluations and the catalogue read published tables: a step refreshes them all. */
 const EVALUATION_KEY_ROOTS = [['evaluate'], ['property-sets'], ['materials']] as const;
 
-function useSettle() {
-  const qc = useQueryClient();
-  return (table: RatingTableDto) => {
-    qc.setQueryData(ratingTableKeys.detail(table.id), table);
-    void qc.invalidateQueries({ queryKey: ratingTableKeys.lists() });
-    for (const root of EVALUATION_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
-  };
+/** The saved table goes into the cache; the lists and what evaluates with published tables refresh. */
+function ratingTableSaved(qc: QueryClient, table: RatingTableDto) {
+  qc.setQueryData(ratingTableKeys.detail(table.id), table);
+  void qc.invalidateQueries({ queryKey: ratingTableKeys.lists() });
+  for (const root of EVALUATION_KEY_ROOTS) void qc.invalidateQueries({ queryKey: root });
 }
 
-export function useCreateRatingTable() {
-  const settle = useSettle();
-  return useMutation({ mutationFn: (draft: RatingTableDraftInput) => api.post<RatingTableDto>('/rating-tables', draft), onSuccess: settle });
-}
+const useRatingTableMutation = <V>(mutationFn: (vars: V) => Promise<RatingTableDto>) => useSaveMutation(mutationFn, ratingTableSaved);
 
-export function useUpdateRatingTable(id: number) {
-  const settle = useSettle();
-  return useMutation({
-    mutationFn: (body: { lockVersion: number; draft: RatingTableDraftInput }) => api.put<RatingTableDto>(`/rating-tables/${id}`, body),
-    onSuccess: settle,
-  });
-}
+export const useCreateRatingTable = () => useRatingTableMutation((draft: RatingTableDraftInput) => api.post<RatingTableDto>('/rating-tables', draft));
 
-export function useRatingTableStep(id: number) {
-  const settle = useSettle();
-  return useMutation({ mutationFn: (input: RatingTableStepInput) => api.post<RatingTableDto>(`/rating-tables/${id}/steps`, input), onSuccess: settle });
-}
+export const useUpdateRatingTable = (id: number) =>
+  useRatingTableMutation((body: { lockVersion: number; draft: RatingTableDraftInput }) => api.put<RatingTableDto>(`/rating-tables/${id}`, body));
+
+export const useRatingTableStep = (id: number) => useRatingTableMutation((input: RatingTableStepInput) => api.post<RatingTableDto>(`/rating-tables/${id}/steps`, input));
 
 /** Reads a CSV grid on the server (nothing is written) and hands it to the editor. */
 export function readRatingCsv(file: File, form: RatingTableData['form']): Promise<RatingTableCsvDto> {

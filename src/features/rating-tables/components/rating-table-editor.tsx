@@ -7,7 +7,7 @@ import { StaleBanner } from '@/components/stale-banner';
 import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { FormError } from '@/components/ui/form-error';
 import { TextAreaField } from '@/components/ui/text-area';
-import { Button } from '@/components/ui/button';
+import { Button, SubmitButton } from '@/components/ui/button';
 import { ApiError, isStale } from '@/lib/api-client';
 import { setServerErrors } from '@/lib/field-errors';
 import { editorFieldLabel, editorPathFor, ENTRY_UNITS, ratingDraftFormSchema, resizeGrid, type EditorState } from '../editor-model';
@@ -286,9 +286,9 @@ export function RatingTableEditor({
       {stale && onReload ? <StaleBanner message={stale.message} onReload={onReload} /> : null}
       <FormError message={formState.errors.root?.message} />
       <div className="flex gap-2">
-        <Button type="submit" disabled={formState.isSubmitting}>
-          {formState.isSubmitting ? 'Saving…' : 'Save draft'}
-        </Button>
+        <SubmitButton busy={formState.isSubmitting} busyLabel="Saving…">
+          Save draft
+        </SubmitButton>
       </div>
     </form>
   );
