@@ -4,7 +4,7 @@ import { useMe } from '@/features/auth/api/session';
 import { savedLoadCaseQueryOptions } from '@/features/evaluate/api/project-links';
 import { EvaluatePage } from '@/features/evaluate/components/evaluate-page';
 import { evaluateQueryOptions } from '@/features/evaluate/api/evaluate';
-import { exampleRequest } from '@/features/evaluate/form-model';
+import { exampleRequest } from '@/features/evaluate/saved-load-case';
 import { requirePermission } from './permission';
 
 // ?loadCase=<id> opens a load case saved in a project; otherwise the example load case is ranked.

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_CHAMBER_PORT } from '@shared/demo-load-cases';
 import type { LoadCaseInput } from '@shared/schemas/evaluate';
-import { checkForm, convertForm, DEMO_LOAD_CASE_SI, exactValues, formFromLoadCase, requestFromLoadCase, sameLoadCase, toRequest } from './form-model';
+import { checkForm, convertForm, DEMO_LOAD_CASE_SI, exactValues, toRequest } from './form-model';
+import { formFromLoadCase, requestFromLoadCase, sameLoadCase } from './saved-load-case';
 
 describe('Evaluate form model', () => {
   it('builds the SI request from the demo load case shown in SI units (mm, m, °C)', () => {

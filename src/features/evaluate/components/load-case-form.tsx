@@ -4,7 +4,7 @@ import { zodResolver } from '@hookform/resolvers/zod';
 import { FAMILIES, FAMILY_LABELS } from '@shared/schemas/catalogue';
 import { COMPONENT_TYPES, type EvaluateRequest } from '@shared/schemas/evaluate';
 import { COMPONENT_LABELS, WINDOW_COMPONENTS } from '@shared/labels';
-import { pressureFromDepth, DEFAULT_TARGET_SAFETY_FACTORS } from '@shared/engine';
+import { pressureFromDepth } from '@shared/engine';
 import { SelectField, TextField, LabelledOptions } from '@/components/ui/field';
 import { Button, SubmitButton } from '@/components/ui/button';
 import { FormError } from '@/components/ui/form-error';
@@ -12,6 +12,7 @@ import { useUnits } from '@/lib/unit-system';
 import { defaultPressureUnit, formatPressureAll, fromDisplay, PRESSURE_UNITS, roundForInput, toDisplay, unitOf, type PressureUnit } from '@/lib/units';
 import { checkForm, convertForm, exactValues, loadCaseFormSchema, withPressureUnit, type ExactValues, type LoadCaseForm } from '../form-model';
 import { ComponentSketch } from './component-sketch';
+import { FamilyTargetsFields } from './family-targets';
 
 function Fieldset({ legend, children }: { legend: string; children: React.ReactNode }) {
   return (
@@ -237,32 +238,7 @@ export function LoadCaseFormPanel({
           <input type="checkbox" className="mt-1" {...register('useFamilyTargets')} />
           <span>Target safety factor by family</span>
         </label>
-        {v.useFamilyTargets ? (
-          <div data-testid="family-targets">
-            <p className="mb-1 text-xs text-ink-faint">Common-practice defaults, shown beside each; change any for this load case.</p>
-            <div className="grid grid-cols-2 gap-x-2 gap-y-1">
-              {FAMILIES.map((family) => (
-                <label key={family} className="flex items-center justify-between gap-1 text-xs">
-                  <span className="min-w-0 truncate" title={FAMILY_LABELS[family]}>
-                    {FAMILY_LABELS[family]}
-                  </span>
-                  <span className="flex items-center gap-1">
-                    <input
-                      inputMode="decimal"
-                      aria-label={`Target safety factor for ${FAMILY_LABELS[family]}`}
-                      className={`w-12 rounded-plate border bg-white px-1 py-0.5 text-right text-xs ${Object.is(v.familyTargets?.[family], DEFAULT_TARGET_SAFETY_FACTORS[family]) ? 'border-chart-line' : 'border-brass font-bold'}`}
-                      {...register(`familyTargets.${family}`, num)}
-                    />
-                    <span className="w-7 text-ink-faint" title="Common practice">
-                      {DEFAULT_TARGET_SAFETY_FACTORS[family]}
-                    </span>
-                  </span>
-                </label>
-              ))}
-            </div>
-            <FormError message={err('familyTargets')} />
-          </div>
-        ) : null}
+        {v.useFamilyTargets ? <FamilyTargetsFields register={register} values={v} error={err('familyTargets')} /> : null}
         <div className="grid grid-cols-2 gap-2">
           {!v.useFamilyTargets ? (
             <TextField label="Target safety factor" inputMode="decimal" error={err('targetSafetyFactor')} hint="One target for every candidate" {...register('targetSafetyFactor', num)} />

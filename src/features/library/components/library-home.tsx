@@ -6,8 +6,7 @@ import { TextField } from '@/components/ui/field';
 import { EmptyState, ErrorState, Panel, Spinner, Tag } from '@/components/ui/states';
 import { useBulkSubmit, useLibrarySets, usePublishedSets } from '../api/library-sets';
 import { useProposedVersions } from '../api/references';
-import { useConfirmations } from '../api/confirmations';
-import { PROVENANCE_LABELS, type ValueConfirmationDto } from '@shared/schemas/provenance';
+import { ConfirmationQueue } from './confirmation-queue';
 import { Button } from '@/components/ui/button';
 import { ConfirmDialog } from '@/components/ui/confirm-dialog';
 import { STATUS_LABELS, STATUS_TONE, formatDateTime } from '../labels';
@@ -144,53 +143,6 @@ function BulkSubmitBar({ drafts, selected, onDone }: { drafts: LibrarySetDto[]; 
         </ul>
       </ConfirmDialog>
     </div>
-  );
-}
-
-/** Proposed confirmations of published sets' values, each linking to its set where it is approved or rejected. */
-function ConfirmationQueue({ me }: { me: SessionUserDto | null | undefined }) {
-  const query = useConfirmations({ status: 'proposed' });
-  const items = query.data?.items ?? [];
-  const own = (c: ValueConfirmationDto) => c.proposedBy.id === me?.id;
-  return (
-    <Panel title={`Values waiting for confirmation review (${items.length})`}>
-      {query.isPending ? (
-        <Spinner label="Loading the confirmations waiting for review…" />
-      ) : query.isError ? (
-        <ErrorState error={query.error} onRetry={() => void query.refetch()} />
-      ) : items.length === 0 ? (
-        <EmptyState title="No value waits for confirmation review">
-          To confirm a value of a published set against its source, open the set and choose “Confirm a value”. A second librarian approves it on the
-          set’s page; it is listed here until then.
-        </EmptyState>
-      ) : (
-        <>
-          <PlainTable label="Values waiting for confirmation review" columns={['Set', 'Value', 'Where the source shows it', 'Proposed by']}>
-            {items.map((c) => (
-              <tr key={c.id} className="border-t border-chart-line/60 align-top">
-                <td className="py-1.5 pr-3">
-                  <Link to={`/library/sets/${c.propertySetId}`} className="font-bold text-sounding hover:underline">
-                    {c.setTitle}
-                  </Link>
-                </td>
-                <td className="py-1.5 pr-3">{PROVENANCE_LABELS[c.key]}</td>
-                <td className="py-1.5 pr-3">{c.location}</td>
-                <td className="py-1.5">
-                  {c.proposedBy.name}
-                  {own(c) ? (
-                    <span className="ml-1">
-                      <Tag>yours</Tag>
-                    </span>
-                  ) : null}
-                  <span className="block text-xs text-ink-soft">{formatDateTime(c.createdAt)}</span>
-                </td>
-              </tr>
-            ))}
-          </PlainTable>
-          {items.some(own) ? <p className="mt-2 text-xs text-ink-soft">Your own proposals are approved or rejected by someone else.</p> : null}
-        </>
-      )}
-    </Panel>
   );
 }
 
