@@ -49,7 +49,7 @@ export function ShortlistDialog({
   const add = useAddToShortlist();
   const form = useForm<ShortlistForm, unknown, z.output<typeof shortlistFormSchema>>({
     resolver: zodResolver(shortlistFormSchema),
-    defaultValues: { target: '', name: '', note: '' },
+    defaultValues: { target: '', note: '' },
   });
   const { errors } = form.formState;
 
@@ -57,7 +57,7 @@ export function ShortlistDialog({
   useEffect(() => {
     if (!open) return;
     add.reset();
-    form.reset({ target: '', name: '', note: '' });
+    form.reset({ target: '', note: '' });
   }, [open, result?.propertySetId]);
 
   // Offer the newest of the caller's shortlists first; "new" when there is none.
