@@ -108,7 +108,7 @@ export const caughtMailQuerySchema = z.object({ limit: z.coerce.number().int().m
 
 export const auditQuerySchema = z
   .object({
-    entityType: z.enum(['property-set', 'rating-table', 'reference', 'reference-version', 'material', 'import', 'user', 'project', 'shortlist', 'value-confirmation']).optional(),
+    entityType: z.enum(['property-set', 'rating-table', 'reference', 'reference-version', 'value-confirmation', 'material', 'import', 'user', 'project', 'load-case', 'shortlist']).optional(),
     entityId: z.string().trim().max(40).optional(),
     limit: z.coerce.number().int().min(1).max(500).default(100),
     before: z.coerce.number().int().positive().optional(),

@@ -76,6 +76,11 @@ describe('a submitted shortlist freezes its inputs', () => {
     expect(record.content.candidates[0].result.requiredThickness).toBe(reviewed.requiredThickness);
     // The edited load case is what a new shortlist would use.
     expect((await engineer.get(`/api/load-cases/${loadCaseId}`)).body.loadCase.pressure).toMatchObject({ depth: 50 });
+    // The administrator's audit log filters by load case: its creation and the edit.
+    const admin = await signIn(handle.app, 'admin');
+    const log = await admin.get(`/api/admin/audit?entityType=load-case&entityId=${loadCaseId}`);
+    expect(log.status, JSON.stringify(log.body)).toBe(200);
+    expect(log.body.items.map((e: { action: string }) => e.action)).toEqual(['update', 'create']);
   });
 
   it('keeps every round: the return with its comment, what changed, and the check, on the shortlist and in the record', async () => {

@@ -20,10 +20,15 @@ describe('audit log formatting', () => {
     expect(entityHref('property-set', '12')).toBe('/library/sets/12');
     expect(entityHref('import', '3')).toBeNull();
     expect(entityHref('reference', '7')).toBe('/library/references/7');
+    expect(entityHref('rating-table', '4')).toBe('/library/rating-tables/4');
+    expect(entityHref('shortlist', '9')).toBe('/shortlists/9');
+    expect(entityHref('project', '2')).toBe('/projects/2');
     expect(entityLabel('reference-version')).toBe('Reference change');
     expect(entityHref('material', null)).toBeNull();
     expect(entityLabel('import')).toBe('CSV import');
     expect(entityLabel('value-confirmation')).toBe('Value confirmation');
+    expect(entityLabel('rating-table')).toBe('Rating table');
+    expect(entityLabel('load-case')).toBe('Load case');
     expect(entityLabel('widget')).toBe('widget');
   });
 });

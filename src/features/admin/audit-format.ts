@@ -2,12 +2,14 @@
 
 const ENTITY_LABELS: Record<string, string> = {
   'property-set': 'Property set',
+  'rating-table': 'Rating table',
   reference: 'Reference',
   'reference-version': 'Reference change',
   material: 'Material',
   import: 'CSV import',
   user: 'User',
   project: 'Project',
+  'load-case': 'Load case',
   shortlist: 'Shortlist',
   'value-confirmation': 'Value confirmation',
 };
@@ -20,6 +22,9 @@ export function entityHref(type: string, id: string | null): string | null {
   if (type === 'property-set') return `/library/sets/${encodeURIComponent(id)}`;
   if (type === 'material') return `/materials/${encodeURIComponent(id)}`;
   if (type === 'reference') return `/library/references/${encodeURIComponent(id)}`;
+  if (type === 'rating-table') return `/library/rating-tables/${encodeURIComponent(id)}`;
+  if (type === 'project') return `/projects/${encodeURIComponent(id)}`;
+  if (type === 'shortlist') return `/shortlists/${encodeURIComponent(id)}`;
   return null;
 }
 
