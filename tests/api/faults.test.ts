@@ -4,7 +4,7 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { spawn } from 'node:child_process';
+import { startServerProcess } from '../helpers/server-process';
 import http from 'node:http';
 import { startCluster, type Cluster } from '../helpers/pg-cluster';
 import { resetEnvCache } from '../../server/config/env';
@@ -88,20 +88,9 @@ describe('restarts', () => {
   });
 
   it('finishes a request still arriving when told to stop, then exits cleanly', async () => {
-    const child = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
-      env: { ...process.env, DATABASE_URL: cluster.url, NODE_ENV: 'test', PORT: '0', HOST: '127.0.0.1' },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    let out = '';
-    child.stderr!.on('data', (d: Buffer) => (out += d.toString()));
-    const port = await new Promise<number>((resolve, reject) => {
-      child.stdout!.on('data', (d: Buffer) => {
-        out += d.toString();
-        const m = out.match(/serving on http:\/\/localhost:(\d+)/);
-        if (m) resolve(Number(m[1]));
-      });
-      child.on('exit', (code) => reject(new Error(`server exited early (${code}): ${out}`)));
-    });
+    const server = await startServerProcess({ DATABASE_URL: cluster.url });
+    const { child } = server;
+    const port = Number(new URL(server.url).port);
     const body = JSON.stringify({ email: 'viewer@harrow.example', password: DEMO_PASSWORD });
     const answer = new Promise<number>((resolve, reject) => {
       const req = http.request({ host: '127.0.0.1', port, path: '/api/auth/login', method: 'POST', headers: { 'content-type': 'application/json', 'content-length': Buffer.byteLength(body) } }, (res) => {
@@ -116,6 +105,6 @@ describe('restarts', () => {
     });
     const exited = new Promise<number | null>((resolve) => child.on('exit', (code) => resolve(code)));
     expect(await answer).toBe(200);
-    expect(await exited, out).toBe(0);
+    expect(await exited, server.output()).toBe(0);
   }, 60_000);
 });

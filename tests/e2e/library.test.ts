@@ -1,7 +1,7 @@
 /// <reference lib="dom" />
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { startBrowserSession, signInThroughForm, type BrowserSession } from '../helpers/browser';
+import { startBrowserSession, signInThroughForm, type BrowserSession, switchAccount } from '../helpers/browser';
 import { Material, User } from '../../server/db/models';
 import { hashPassword } from '../../server/auth/passwords';
 import { IMPORT_COLUMNS } from '../../shared/schemas/library';
@@ -26,14 +26,7 @@ async function signOut(page: Page) {
   await page.waitForURL(/\/sign-in/);
 }
 
-async function signInAs(page: Page, email: string, password: string) {
-  await s.context.clearCookies();
-  await page.goto(`${s.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByTestId('signed-in-as').waitFor();
-}
+const signInAs = (page: Page, email: string, password: string) => switchAccount(s, page, email, password);
 
 describe('library desk journey in chromium', () => {
   it('lets the demo librarian draft a set with a new reference and submit it, but not approve it', async () => {

@@ -5,7 +5,7 @@
 // was approved with. A viewer opens the reference page read-only. Harrow Sound demo data only.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { startBrowserSession, signInThroughForm, type BrowserSession } from '../helpers/browser';
+import { startBrowserSession, signInThroughForm, type BrowserSession, switchAccount } from '../helpers/browser';
 import { PropertySet, Reference, User } from '../../server/db/models';
 import { hashPassword } from '../../server/auth/passwords';
 
@@ -29,14 +29,7 @@ afterAll(async () => {
   await s?.close();
 });
 
-async function signInAs(page: Page, email: string, password: string) {
-  await s.context.clearCookies();
-  await page.goto(`${s.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByTestId('signed-in-as').waitFor();
-}
+const signInAs = (page: Page, email: string, password: string) => switchAccount(s, page, email, password);
 
 describe('a reference change in chromium', () => {
   it('lets the demo librarian propose a change to a reference in use and submit it, but not approve it', async () => {

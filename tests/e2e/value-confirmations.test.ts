@@ -6,7 +6,7 @@
 // meanwhile shows as stale; the administrator's audit log shows the steps. Harrow Sound accounts.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { startBrowserSession, signInThroughForm, type BrowserSession } from '../helpers/browser';
+import { startBrowserSession, signInThroughForm, type BrowserSession, switchAccount } from '../helpers/browser';
 import { DEMO_PASSWORD } from '../../server/db/seeders/demo';
 import { createAccount, EXTRA_PASSWORD } from '../helpers/library';
 import { engineInputKeys, presentKeys, statusOf, PROVENANCE_LABELS, type ProvenanceKey, type ValueConfirmationDto } from '../../shared/schemas/provenance';
@@ -35,14 +35,7 @@ afterAll(async () => {
   await s?.close();
 });
 
-async function signInAs(page: Page, email: string, password: string) {
-  await s.context.clearCookies();
-  await page.goto(`${s.baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByTestId('signed-in-as').waitFor();
-}
+const signInAs = (page: Page, email: string, password: string) => switchAccount(s, page, email, password);
 
 /** The "c/t" of a ranked candidate's inputs mark. */
 async function markOf(page: Page, setId: number): Promise<[number, number]> {

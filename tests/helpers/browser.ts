@@ -53,10 +53,21 @@ export async function startBrowserSession(options: { demoProject?: boolean } = {
   };
 }
 
-export async function signInThroughForm(page: Page, baseUrl: string, role: Role): Promise<void> {
+/** Signs in through the sign-in page with an address and password, and waits for the app's header. */
+export async function signInWithPassword(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
   await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').fill(`${role}@harrow.example`);
-  await page.getByLabel('Password').fill(DEMO_PASSWORD);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.getByTestId('signed-in-as').waitFor();
+}
+
+export async function signInThroughForm(page: Page, baseUrl: string, role: Role): Promise<void> {
+  await signInWithPassword(page, baseUrl, `${role}@harrow.example`, DEMO_PASSWORD);
+}
+
+/** Ends the session's current sign-in (its cookies) and signs in as another account. */
+export async function switchAccount(s: BrowserSession, page: Page, email: string, password: string): Promise<void> {
+  await s.context.clearCookies();
+  await signInWithPassword(page, s.baseUrl, email, password);
 }
