@@ -9,6 +9,8 @@ import type { ModeMaterial } from './components/common';
 import { isWindowComponent, rateWithTable, ratingMargin, tableCovers } from './rating-tables';
 import type { CandidateMaterial, CandidateResult, ModeResult, RatingResult, RatingTable, SizedBy, WindowCoverage } from './types';
 import { targetFor, type PreparedLoadCase } from './load-case';
+import { FALLBACK_TARGET_SAFETY_FACTOR } from './defaults';
+import { NO_FAMILY, readModeMaterial, type RankingTable } from './ranking-table';
 import { ACRYLIC_UNRATED_WARNING, BRITTLE_WINDOW_WARNING, CREEP_MODULUS_WARNING, FALLBACK_TARGET_WARNING, uncoveredWarning } from './candidate-warnings';
 
 // Scratch arrays for one candidate's modes (at most 4); evaluation is synchronous.
@@ -122,6 +124,30 @@ export function rankingMargin(prepared: PreparedLoadCase, candidate: CandidateMa
     if (sf < govSf) govSf = sf;
   }
   out.margin = govSf / targetFor(prepared, candidate) - 1;
+  return out;
+}
+
+/**
+ * rankingMargin for candidate `i` of a ranking table (same answer, read from the table's
+ * columns). `targets` holds each family's target under the prepared load case (familyTargets).
+ * A candidate with rating tables goes through rankingMargin.
+ */
+export function rankingMarginFromTable(prepared: PreparedLoadCase, table: RankingTable, i: number, targets: Float64Array, out: RankingKey): RankingKey {
+  if (table.rated[i] === 1) return rankingMargin(prepared, table.candidates[i], out);
+  const mm = SCRATCH_MM;
+  readModeMaterial(table, i, mm);
+  const { model, component, pressure: p } = prepared;
+  model.fill(component, model.thickness(component), p, mm, STRESS, ALLOWABLE);
+  let govSf = Infinity;
+  for (let k = 0; k < model.modes.length; k++) {
+    const sf = ALLOWABLE[k] / STRESS[k];
+    if (sf < govSf) govSf = sf;
+  }
+  // No rating route: uncovered under human occupancy when the component is a window.
+  out.group = prepared.humanOccupancy && isWindowComponent(component) ? 1 : 0;
+  const f = table.family[i];
+  const target = prepared.targetSafetyFactor ?? (f === NO_FAMILY ? FALLBACK_TARGET_SAFETY_FACTOR : targets[f]);
+  out.margin = govSf / target - 1;
   return out;
 }
 

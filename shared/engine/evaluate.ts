@@ -6,7 +6,8 @@
  */
 import type { LoadCaseInput } from '../schemas/evaluate';
 import { prepareLoadCase } from './load-case';
-import { evaluateCandidate, rankingMargin } from './evaluate-candidate';
+import { evaluateCandidate, rankingMarginFromTable } from './evaluate-candidate';
+import { familyTargets, rankingTable } from './ranking-table';
 import { sortResults, topResults } from './rank';
 import type { CandidateMaterial, CandidateResult, EvaluateResult, SortBy } from './types';
 
@@ -76,8 +77,10 @@ export function evaluate(input: EvaluateInput): EvaluateResult {
     const groups = new Uint8Array(n);
     let uncovered = 0;
     const r = { margin: 0, group: 0 };
+    const table = rankingTable(candidates, prepared.conditions);
+    const targets = familyTargets(prepared.targetByFamily);
     for (let i = 0; i < n; i++) {
-      rankingMargin(prepared, candidates[i], r);
+      rankingMarginFromTable(prepared, table, i, targets, r);
       // A margin that is not a number (no answer) counts as the worst.
       keys[i] = Number.isNaN(r.margin) ? Infinity : -r.margin;
       if (coveredFirst && r.group === 1) {

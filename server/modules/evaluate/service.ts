@@ -22,29 +22,61 @@ function exclusionOf(entry: CatalogueEntry, req: EvaluateRequest): ExclusionReas
 }
 
 /** Candidates named in the request: catalogue ids (published, or any set the caller may read) and inline materials. */
-async function resolveCandidates(req: EvaluateRequest, caller: Caller): Promise<{ candidates: CandidateMaterial[]; excluded: ExclusionDto[] }> {
+type Resolved = { candidates: CandidateMaterial[]; excluded: ExclusionDto[] };
+
+/**
+ * The catalogue's candidates left by each set of filters, kept per catalogue snapshot (a new
+ * snapshot is a new array, so a change anywhere drops these with it): the same list object for
+ * the same filters lets the engine reuse its ranking table (shared/engine/ranking-table.ts).
+ */
+const FILTERED = new WeakMap<readonly CatalogueEntry[], Map<string, Resolved>>();
+
+function filterKey(req: EvaluateRequest): string {
+  const f = req.filters;
+  if (!f) return '';
+  const t = f.coversTemperature ? req.loadCase.temperature : null;
+  return JSON.stringify([f.family ?? null, f.transparent ?? null, t && t.min, t && t.max, !!f.confirmedOnly, !!f.excludeDemo]);
+}
+
+async function resolveCandidates(req: EvaluateRequest, caller: Caller): Promise<Resolved> {
   const catalogue = await publishedCatalogue();
   if (!req.candidates) {
-    const kept: CandidateMaterial[] = [];
-    const left = new Map<ExclusionReason, ExclusionDto>();
-    for (const e of catalogue) {
-      const reason = exclusionOf(e, req);
-      if (reason === null) {
-        kept.push(e.candidate);
-        continue;
-      }
-      const x = left.get(reason) ?? { reason, count: 0, names: [] };
-      x.count++;
-      if (x.names.length < EXCLUDED_NAMES_SHOWN) x.names.push(e.candidate.name);
-      left.set(reason, x);
+    let perFilter = FILTERED.get(catalogue);
+    if (perFilter === undefined) FILTERED.set(catalogue, (perFilter = new Map()));
+    const key = filterKey(req);
+    let hit = perFilter.get(key);
+    if (hit === undefined) {
+      // Bounded: filter combinations are few, but temperatures are free numbers.
+      if (perFilter.size >= 64) perFilter.clear();
+      perFilter.set(key, (hit = filterCatalogue(catalogue, req)));
     }
-    return { candidates: kept, excluded: [...left.values()] };
+    return hit;
   }
+  return resolveNamed(catalogue, req.candidates, caller);
+}
 
+function filterCatalogue(catalogue: readonly CatalogueEntry[], req: EvaluateRequest): Resolved {
+  const kept: CandidateMaterial[] = [];
+  const left = new Map<ExclusionReason, ExclusionDto>();
+  for (const e of catalogue) {
+    const reason = exclusionOf(e, req);
+    if (reason === null) {
+      kept.push(e.candidate);
+      continue;
+    }
+    const x = left.get(reason) ?? { reason, count: 0, names: [] };
+    x.count++;
+    if (x.names.length < EXCLUDED_NAMES_SHOWN) x.names.push(e.candidate.name);
+    left.set(reason, x);
+  }
+  return { candidates: kept, excluded: [...left.values()] };
+}
+
+async function resolveNamed(catalogue: readonly CatalogueEntry[], named: NonNullable<EvaluateRequest['candidates']>, caller: Caller): Promise<Resolved> {
   const byId = new Map(catalogue.map((e) => [e.set.id, e.candidate]));
   const fields: FieldErrors = {};
   const resolved: CandidateMaterial[] = [];
-  for (const [i, c] of req.candidates.entries()) {
+  for (const [i, c] of named.entries()) {
     if ('inline' in c) {
       resolved.push({ ...c.inline });
       continue;
