@@ -1,5 +1,8 @@
 import autocannon from 'autocannon';
 import type { BenchServer } from './server';
+import { DEFAULT_LIMIT, FIRST_PAGE_RESULTS } from '../shared/schemas/evaluate';
+
+export { DEFAULT_LIMIT };
 
 export interface LoadResult {
   p50Ms: number;
@@ -41,8 +44,9 @@ export async function load(server: BenchServer, path: string, options: { method?
  * Every request a different thickness, so no answer comes from the cache: the cost of really
  * evaluating the whole catalogue per request, the figure an engineer feels (budgeted against health).
  */
-export async function loadUncachedEvaluate(server: BenchServer, seconds: number): Promise<LoadResult> {
-  const base = JSON.parse(EVALUATE_BODY);
+export async function loadUncachedEvaluate(server: BenchServer, seconds: number, limit: number = FIRST_PAGE_RESULTS): Promise<LoadResult> {
+  // By default what the Evaluate page asks for first (FIRST_PAGE_RESULTS); `limit` for others.
+  const base = { ...JSON.parse(EVALUATE_BODY), limit };
   let n = 0;
   const result = await autocannon({
     url: `${server.baseUrl}/api/evaluate`,

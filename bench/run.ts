@@ -9,7 +9,7 @@ import type { EngineBench } from './engine';
 import { prepareBenchDatabase } from './prepare';
 import { closeDatabase } from '../server/db/sequelize';
 import { startBenchServer, rssOf } from './server';
-import { load, loadUncachedEvaluate, evaluatePayloadBytes, EVALUATE_BODY } from './api';
+import { load, loadUncachedEvaluate, evaluatePayloadBytes, EVALUATE_BODY, DEFAULT_LIMIT } from './api';
 import { initialJsGzipBytes, evaluateReadyMs } from './client';
 
 const BUDGETS = {
@@ -50,7 +50,9 @@ async function main() {
     const health = await load(server, '/api/health', { seconds });
     const evaluate = await load(server, '/api/evaluate', { method: 'POST', body: EVALUATE_BODY, seconds });
     const propertySets = await load(server, '/api/property-sets', { seconds });
+    // Budgeted: what the Evaluate page asks for first. Reported beside it: the API's default (100 results).
     const evaluateUncached = await loadUncachedEvaluate(server, seconds);
+    const evaluateUncachedDefault = await loadUncachedEvaluate(server, seconds, DEFAULT_LIMIT);
     const rssAfter = await rssOf(server.pid);
     const payload = await evaluatePayloadBytes(server);
     api = {
@@ -59,6 +61,7 @@ async function main() {
       health,
       propertySets: { p50Ms: propertySets.p50Ms, p99Ms: propertySets.p99Ms, errors: propertySets.errors, requestsPerSecond: propertySets.requestsPerSecond },
       evaluateUncached,
+      evaluateUncachedDefault,
       payload,
       /** Every process of the server: the cluster primary and its workers. */
       rssBytes: { before: rssBefore, after: rssAfter },
@@ -88,12 +91,12 @@ async function main() {
     ['evaluate p99', `${api.evaluate.p99Ms} ms (≤ ${BUDGETS.evaluateP99Ms})`, api.evaluate.p99Ms <= BUDGETS.evaluateP99Ms],
     ['evaluate errors', `${api.evaluate.errors} (= 0)`, api.evaluate.errors === 0],
     [
-      'uncached evaluate p50 vs health',
+      'uncached evaluate, first page, p50',
       `${api.evaluateUncached.p50Ms} ms vs ${api.health.p50Ms} ms (≤ ×${BUDGETS.uncachedP50OverHealthP50})`,
       api.evaluateUncached.p50Ms <= BUDGETS.uncachedP50OverHealthP50 * Math.max(api.health.p50Ms, 1),
     ],
     [
-      'uncached evaluate throughput',
+      'uncached evaluate, first page, req/s',
       `${api.evaluateUncached.requestsPerSecond} req/s, ${Math.round((100 * api.evaluateUncached.requestsPerSecond) / api.health.requestsPerSecond)} % of health (≥ ${BUDGETS.uncachedThroughputOverHealth * 100} %)`,
       api.evaluateUncached.requestsPerSecond >= BUDGETS.uncachedThroughputOverHealth * api.health.requestsPerSecond,
     ],
@@ -108,7 +111,7 @@ async function main() {
     ['Evaluate ready', `${client.evaluateReadyMs} ms (≤ ${BUDGETS.evaluateReadyMs})`, client.evaluateReadyMs <= BUDGETS.evaluateReadyMs],
   ];
   console.log('\nendpoint          p50 ms  p99 ms  req/s  errors');
-  for (const [name, r] of [['health', api.health], ['evaluate', api.evaluate], ['property-sets', api.propertySets], ['evaluate, uncached', api.evaluateUncached]] as const) {
+  for (const [name, r] of [['health', api.health], ['evaluate', api.evaluate], ['property-sets', api.propertySets], ['uncached, page', api.evaluateUncached], ['uncached, 100', api.evaluateUncachedDefault]] as const) {
     console.log(`${name.padEnd(17)} ${String(r.p50Ms).padStart(6)}  ${String(r.p99Ms).padStart(6)}  ${String(r.requestsPerSecond).padStart(5)}  ${String(r.errors).padStart(6)}`);
   }
   console.log(`\nengine per component: ${Object.entries(engine.perComponent).map(([k, v]) => `${k} ${v.toLocaleString('en-GB')}`).join(', ')}`);

@@ -27,6 +27,11 @@ export const sortBySchema = z.enum(SORT_KEYS, {
 });
 export const MAX_CANDIDATES = 5000;
 export const DEFAULT_LIMIT = 100;
+/**
+ * Results the Evaluate page asks for first, more on demand: building, packing and sending 100
+ * full results cost most of an uncached evaluation, and the page shows the first ones.
+ */
+export const FIRST_PAGE_RESULTS = 25;
 
 /** Narrows the published catalogue when no candidates are given. */
 export const evaluateFiltersSchema = strict('Filters', {

@@ -27,6 +27,32 @@ describe('Evaluate journey in chromium', () => {
     expect(await firstRow.textContent()).toMatch(/Tension|Compression|Shear|Buckling/);
   });
 
+  it('asks for the best 25 first and shows the rest on demand, best first', async () => {
+    const { page, baseUrl } = s;
+    await page.goto(`${baseUrl}/evaluate`);
+    const table = page.getByRole('table', { name: 'Ranked candidates' });
+    await table.waitFor();
+    // Every published set: any transparency, any service range.
+    await page.getByLabel('Transparency').selectOption('');
+    await page.getByLabel('Service range must cover the design temperatures').uncheck();
+    await page.getByRole('button', { name: 'Evaluate candidates' }).click();
+    await page.getByTestId('evaluation-summary').filter({ hasText: 'best 25 shown' }).waitFor();
+    const summary = (await page.getByTestId('evaluation-summary').textContent()) ?? '';
+    const total = Number(summary.match(/(\d+) candidates? evaluated/)?.[1]);
+    // The seeded catalogue has more published sets than the first page holds.
+    expect(total).toBeGreaterThan(25);
+    expect(summary).toContain('best 25 shown');
+    const first = await table.locator('tbody tr').first().textContent();
+    const more = page.getByTestId('more-results');
+    expect(await more.textContent()).toBe(`Show ${Math.min(100, total) - 25} more`);
+    await more.click();
+    await page.getByTestId('evaluation-summary').filter({ hasNotText: 'best 25 shown' }).waitFor();
+    // Every published set now (the table paints its rows progressively).
+    await page.waitForFunction((n) => document.querySelectorAll('table[aria-label="Ranked candidates"] tbody tr').length === n, Math.min(100, total));
+    expect(await table.locator('tbody tr').first().textContent()).toBe(first);
+    if (total <= 100) expect(await more.count()).toBe(0);
+  });
+
   it('draws the margin chart and the thickness sweep with where the governing mode changes', async () => {
     const { page } = s;
     await page.getByRole('img', { name: 'Margins by failure mode per candidate' }).waitFor();

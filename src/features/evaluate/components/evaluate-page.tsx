@@ -17,6 +17,7 @@ import { exampleRequest, formFromLoadCase, requestFromLoadCase, sameLoadCase, sa
 import { LoadCaseFormPanel, type FormPoint } from './load-case-form';
 import type { MapPoint } from './mode-map';
 import { ResultsTable, resultKey, ModeTag } from './results-table';
+import { FIRST_RESULTS, MoreResults, nextLimit } from './more-results';
 import { SaveLoadCaseDialog } from './save-load-case-dialog';
 import { ShortlistDialog } from './shortlist-dialog';
 
@@ -178,7 +179,10 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
   const [shortlisting, setShortlisting] = useState<CandidateResult | null>(null);
   const [pendingCandidate, setPendingCandidate] = useState<CandidateResult | null>(null);
   const [notice, setNotice] = useState<{ text: string; shortlistId: number } | null>(null);
-  const evaluation = useEvaluation(request);
+  // The page asks for the best FIRST_RESULTS and more on demand (more-results.tsx).
+  const [limit, setLimit] = useState(FIRST_RESULTS);
+  const asked = useMemo(() => ({ ...request, limit }), [request, limit]);
+  const evaluation = useEvaluation(asked);
   const data = evaluation.data;
   // Whether the form still asks for what the ranking shows: 'changed' or 'invalid' dims it.
   const [draft, setDraft] = useState<'same' | 'changed' | 'invalid'>('same');
@@ -209,6 +213,8 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
   useEffect(() => {
     if (pendingId === undefined || !data || !saved) return;
     const result = data.results.find((r) => r.propertySetId === pendingId);
+    // Picked further down than this page has asked for yet: ask for more first.
+    if (!result && data.results.length < data.total) return setLimit((l) => Math.max(l, nextLimit(data.results.length)));
     if (result) setShortlisting(result);
     navigate(`${location.pathname}${location.search}`, { replace: true, state: null });
   }, [pendingId, data, saved, navigate, location.pathname, location.search]);
@@ -346,6 +352,7 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
                   Choose another family or transparency, or untick “Service range must cover the design temperatures”.
                 </EmptyState>
               )}
+              <MoreResults shown={data.results.length} total={data.total} loading={evaluation.isFetching && limit > data.results.length} onMore={setLimit} />
             </Panel>
             {data.results.length ? (
               <div className="grid gap-4 xl:grid-cols-2">
