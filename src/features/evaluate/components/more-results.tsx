@@ -1,19 +1,19 @@
 import { Button } from '@/components/ui/button';
-import { FIRST_PAGE_RESULTS } from '@shared/schemas/evaluate';
+import { FIRST_PAGE_RESULTS, MAX_CANDIDATES } from '@shared/schemas/evaluate';
 
 /** The Evaluate page asks for the best FIRST_PAGE_RESULTS candidates first (the API's own default stays 100). */
 export const FIRST_RESULTS = FIRST_PAGE_RESULTS;
 /** Each "more" asks for up to this many results in all, then this many more. */
 export const MORE_STEP = 100;
 
-/** How many results the next "more" asks for in all. */
+/** How many results the next "more" asks for in all (at most what one evaluation may return). */
 export function nextLimit(shown: number): number {
-  return shown < MORE_STEP ? MORE_STEP : shown + MORE_STEP;
+  return Math.min(shown < MORE_STEP ? MORE_STEP : shown + MORE_STEP, MAX_CANDIDATES);
 }
 
 /** "Show n more" under the ranking while the answer holds fewer results than were evaluated. */
 export function MoreResults({ shown, total, loading, onMore }: { shown: number; total: number; loading: boolean; onMore: (limit: number) => void }) {
-  if (shown >= total) return null;
+  if (shown >= Math.min(total, MAX_CANDIDATES)) return null;
   const next = nextLimit(shown);
   const more = Math.min(next, total) - shown;
   return (
