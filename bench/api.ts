@@ -1,8 +1,6 @@
 import autocannon from 'autocannon';
 import type { BenchServer } from './server';
-import { DEFAULT_LIMIT, FIRST_PAGE_RESULTS } from '../shared/schemas/evaluate';
-
-export { DEFAULT_LIMIT };
+import { FIRST_PAGE_RESULTS } from '../shared/schemas/evaluate';
 
 export interface LoadResult {
   p50Ms: number;

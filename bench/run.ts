@@ -9,7 +9,8 @@ import type { EngineBench } from './engine';
 import { prepareBenchDatabase } from './prepare';
 import { closeDatabase } from '../server/db/sequelize';
 import { startBenchServer, rssOf } from './server';
-import { load, loadUncachedEvaluate, evaluatePayloadBytes, EVALUATE_BODY, DEFAULT_LIMIT } from './api';
+import { load, loadUncachedEvaluate, evaluatePayloadBytes, EVALUATE_BODY } from './api';
+import { DEFAULT_LIMIT } from '../shared/schemas/evaluate';
 import { initialJsGzipBytes, evaluateReadyMs } from './client';
 
 const BUDGETS = {

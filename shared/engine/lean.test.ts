@@ -1,24 +1,15 @@
-import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { ratingTableContentSchema, type RatingTableContent } from '../schemas/rating-tables';
 import { DEMO_CAMERA, DEMO_CHAMBER_PORT, DEMO_HULL, DEMO_VIEWPORT } from '../demo-load-cases';
 import { evaluate } from './evaluate';
 import { loadCases } from './evaluate-fixtures';
 import { LEAN_FORMAT, packEvaluation, roundedLikeLean, unpackEvaluation } from './lean';
 import { acrylicLotMinimums, demo, hy80 } from './test-materials';
+import { seededRatingTables } from './test-support';
 import type { CandidateMaterial, EvaluateResult, RatingTable } from './types';
 
 // The seeded rating tables, so that candidates sized by a table (with its rating block) are packed too.
-const seed = JSON.parse(readFileSync(fileURLToPath(new URL('../../data/rating-tables.json', import.meta.url)), 'utf8')) as {
-  ratingTables: (RatingTableContent & { key: string; reference: string })[];
-};
-const tables: RatingTable[] = seed.ratingTables.map(({ reference, name, geometry, includedAngle, limits, grade, note, data }, i) => ({
-  ...ratingTableContentSchema.parse({ name, geometry, includedAngle, limits, grade, note, data }),
-  source: reference,
-  id: i + 1,
-}));
+const tables: RatingTable[] = Object.values(seededRatingTables());
 
 /** 100 candidates: the test materials, numbered, one in five with the rating tables. */
 const hundred: CandidateMaterial[] = Array.from({ length: 100 }, (_, i) => {

@@ -1,24 +1,15 @@
-import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { ratingTableContentSchema, type RatingTableContent } from '../schemas/rating-tables';
 import { DEMO_CAMERA, DEMO_CHAMBER_PORT, DEMO_HULL, DEMO_VIEWPORT } from '../demo-load-cases';
 import { evaluate, prepareLoadCase } from './evaluate';
 import { rankingMargin, rankingMarginFromTable } from './evaluate-candidate';
 import { loadCases } from './evaluate-fixtures';
 import { familyTargets, rankingTable } from './ranking-table';
 import { acrylicLotMinimums, demo, hy80, titanium } from './test-materials';
+import { seededRatingTables } from './test-support';
 import type { CandidateMaterial, RatingTable } from './types';
 
 // The seeded rating tables, so that candidates sized by a table take the per-object path.
-const seed = JSON.parse(readFileSync(fileURLToPath(new URL('../../data/rating-tables.json', import.meta.url)), 'utf8')) as {
-  ratingTables: (RatingTableContent & { key: string; reference: string })[];
-};
-const tables: RatingTable[] = seed.ratingTables.map(({ reference, name, geometry, includedAngle, limits, grade, note, data }, i) => ({
-  ...ratingTableContentSchema.parse({ name, geometry, includedAngle, limits, grade, note, data }),
-  source: reference,
-  id: i + 1,
-}));
+const tables: RatingTable[] = Object.values(seededRatingTables());
 
 /** 120 candidates: the test materials, numbered, one in five with the rating tables, one in seven without a family. */
 const many = (): CandidateMaterial[] =>

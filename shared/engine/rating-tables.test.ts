@@ -1,26 +1,17 @@
-import { readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { LoadCaseInput } from '../schemas/evaluate';
-import { ratingTableContentSchema, type RatingTableContent } from '../schemas/rating-tables';
+import { ratingTableContentSchema } from '../schemas/rating-tables';
 import { evaluate } from './evaluate';
 import { chamberViewport, withThickness } from './evaluate-fixtures';
 import { minimumRatioAt, ratedPressureAt, rateWithTable, tableCovers } from './rating-tables';
 import { acrylicLotMinimums, glass, sapphire } from './test-materials';
-import { PSI } from './test-support';
+import { PSI, seededRatingTableRows, seededRatingTables } from './test-support';
 import type { CandidateMaterial, RatingTable } from './types';
 
 // The seeded rating tables (data/rating-tables.json), each validated by the shared schema.
-const seed = JSON.parse(readFileSync(fileURLToPath(new URL('../../data/rating-tables.json', import.meta.url)), 'utf8')) as {
-  ratingTables: (RatingTableContent & { key: string; reference: string })[];
-};
-const tables: Record<string, RatingTable> = Object.fromEntries(
-  seed.ratingTables.map(({ key, reference, name, geometry, includedAngle, limits, grade, note, data }, i) => {
-    const content = ratingTableContentSchema.parse({ name, geometry, includedAngle, limits, grade, note, data });
-    return [key, { ...content, source: reference, id: i + 1 }];
-  }),
-);
+const seed = { ratingTables: seededRatingTableRows() };
+const tables = seededRatingTables();
 const flat = tables['class-flat-acrylic'];
 const cone90 = tables['stachiw-cones-90-150'];
 const BAR = 1e5;

@@ -2,7 +2,7 @@ import { lazy, Suspense, useCallback, useEffect, useMemo, useRef, useState, type
 import { Link, useLocation, useNavigate, useSearchParams } from 'react-router-dom';
 import { useQuery } from '@tanstack/react-query';
 import { candidateFromPropertySet, type CandidateMaterial, type CandidateResult } from '@shared/engine';
-import type { EvaluateRequest, ExclusionDto, ExclusionReason, SORT_KEYS } from '@shared/schemas/evaluate';
+import { FIRST_PAGE_RESULTS, type EvaluateRequest, type ExclusionDto, type ExclusionReason, type SORT_KEYS } from '@shared/schemas/evaluate';
 import type { LoadCaseDto, ShortlistDto } from '@shared/schemas/projects';
 import { Cautions } from '@/components/cautions';
 import { EmptyState, ErrorState, Panel, Spinner } from '@/components/ui/states';
@@ -17,7 +17,7 @@ import { exampleRequest, formFromLoadCase, requestFromLoadCase, sameLoadCase, sa
 import { LoadCaseFormPanel, type FormPoint } from './load-case-form';
 import type { MapPoint } from './mode-map';
 import { ResultsTable, resultKey, ModeTag } from './results-table';
-import { FIRST_RESULTS, MoreResults, nextLimit } from './more-results';
+import { MoreResults, nextLimit } from './more-results';
 import { SaveLoadCaseDialog } from './save-load-case-dialog';
 import { ShortlistDialog } from './shortlist-dialog';
 
@@ -179,8 +179,8 @@ function EvaluateWorkspace({ saved, canSave, meId, onReopen }: { saved: LoadCase
   const [shortlisting, setShortlisting] = useState<CandidateResult | null>(null);
   const [pendingCandidate, setPendingCandidate] = useState<CandidateResult | null>(null);
   const [notice, setNotice] = useState<{ text: string; shortlistId: number } | null>(null);
-  // The page asks for the best FIRST_RESULTS and more on demand (more-results.tsx).
-  const [limit, setLimit] = useState(FIRST_RESULTS);
+  // The page asks for the best FIRST_PAGE_RESULTS and more on demand (more-results.tsx).
+  const [limit, setLimit] = useState(FIRST_PAGE_RESULTS);
   const asked = useMemo(() => ({ ...request, limit }), [request, limit]);
   const evaluation = useEvaluation(asked);
   const data = evaluation.data;

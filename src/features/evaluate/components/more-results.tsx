@@ -1,8 +1,6 @@
 import { Button } from '@/components/ui/button';
-import { FIRST_PAGE_RESULTS, MAX_CANDIDATES } from '@shared/schemas/evaluate';
+import { MAX_CANDIDATES } from '@shared/schemas/evaluate';
 
-/** The Evaluate page asks for the best FIRST_PAGE_RESULTS candidates first (the API's own default stays 100). */
-export const FIRST_RESULTS = FIRST_PAGE_RESULTS;
 /** Each "more" asks for up to this many results in all, then this many more. */
 export const MORE_STEP = 100;
 
